@@ -1,0 +1,24 @@
+import type { Knex } from 'knex';
+import * as m001 from './20261201_001_users';
+import * as m002 from './20261201_002_sessions';
+import * as m003 from './20261201_003_projects';
+import * as m004 from './20261201_004_password_tokens';
+import * as m005 from './20261201_005_dev_mail';
+import * as m006 from './20261201_006_molecules';
+
+// Knex migrations, in order. A new migration is a new file here plus one line below;
+// listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
+const migrations: Record<string, Knex.Migration> = {
+  '20261201_001_users': m001,
+  '20261201_002_sessions': m002,
+  '20261201_003_projects': m003,
+  '20261201_004_password_tokens': m004,
+  '20261201_005_dev_mail': m005,
+  '20261201_006_molecules': m006,
+};
+
+export const migrationSource: Knex.MigrationSource<string> = {
+  getMigrations: async () => Object.keys(migrations),
+  getMigrationName: (name) => name,
+  getMigration: async (name) => migrations[name],
+};

@@ -1,0 +1,53 @@
+#!/usr/bin/env node
+// Entry point of every npm script that needs the project's dependencies.
+// Plain JavaScript on purpose: it must run before node_modules exists.
+// It installs npm dependencies when node_modules is absent or out of date
+// (compared by a hash of package-lock.json), then hands over to the
+// TypeScript script named by the first argument, run with tsx.
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const stamp = join(root, 'node_modules', '.beadloom-lock-hash');
+const lockFile = join(root, 'package-lock.json');
+
+function lockHash() {
+  const lock = existsSync(lockFile) ? readFileSync(lockFile) : Buffer.from('');
+  return createHash('sha256').update(lock).update(readFileSync(join(root, 'package.json'))).digest('hex');
+}
+
+function ensureDependencies() {
+  const wanted = lockHash();
+  const current = existsSync(stamp) ? readFileSync(stamp, 'utf8').trim() : '';
+  if (existsSync(join(root, 'node_modules', '.bin', 'tsx')) && current === wanted) return;
+  const args = existsSync(lockFile) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund'];
+  console.log(`[beadloom] installing npm dependencies (npm ${args[0]})…`);
+  const result = spawnSync('npm', args, { cwd: root, stdio: 'inherit' });
+  if (result.status !== 0) {
+    console.error('[beadloom] npm could not install the dependencies; see the messages above.');
+    process.exit(result.status ?? 1);
+  }
+  writeFileSync(stamp, wanted);
+}
+
+const [command, ...rest] = process.argv.slice(2);
+const scripts = { start: 'scripts/start.ts', test: 'scripts/test.ts', dev: 'scripts/dev.ts', bench: 'scripts/bench.ts' };
+if (!command || !(command in scripts)) {
+  console.error(`usage: bootstrap.mjs ${Object.keys(scripts).join('|')} [args…]`);
+  process.exit(2);
+}
+
+ensureDependencies();
+const child = spawn(join(root, 'node_modules', '.bin', 'tsx'), [scripts[command], ...rest], {
+  cwd: root,
+  stdio: 'inherit',
+});
+// The child gets Ctrl-C from the terminal itself and shuts down in order;
+// this process only waits for it so the exit code is passed on.
+for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
+  process.on(signal, () => child.kill(signal));
+}
+child.on('exit', (code, signal) => process.exit(code ?? (signal ? 1 : 0)));

@@ -1,0 +1,49 @@
+// `npm run dev`: the private MariaDB of `npm start`, then the API server under
+// `tsx watch` (restarts on change, port 4821) and the Vite dev server (port
+// 4820, proxying /api, /dev and /collab to it).
+import { spawn } from 'node:child_process';
+import { startMariaDb } from './lib/mariadb';
+import { persistentSecret } from './lib/secrets';
+import { bin } from './lib/run';
+import { createDb, migrateLatest } from '../server/db/knex';
+import { seedDemo } from '../seeds/demo';
+
+const mariadb = await startMariaDb({
+  dataDir: '.data/mariadb',
+  port: Number(process.env.DB_PORT ?? 4830),
+  database: 'beadloom',
+  user: 'beadloom',
+  password: persistentSecret('.data/db-password'),
+});
+const db = createDb(mariadb.url);
+await migrateLatest(db);
+await seedDemo(db, 12);
+await db.destroy();
+
+const webPort = process.env.PORT ?? '4820';
+const env = {
+  ...process.env,
+  DATABASE_URL: mariadb.url,
+  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret('.data/session-secret', 48),
+  PORT: '4821',
+  APP_URL: `http://localhost:${webPort}`,
+  CLIENT_DIR: '',
+  LOG_LEVEL: process.env.LOG_LEVEL ?? 'info',
+};
+const children = [
+  spawn(bin('tsx'), ['watch', '--clear-screen=false', 'server/index.ts'], { stdio: 'inherit', env }),
+  spawn(bin('vite'), ['--port', webPort, '--strictPort'], { stdio: 'inherit', env: { ...process.env, API_PORT: '4821' } }),
+];
+console.log(`[beadloom] dev server on http://localhost:${webPort} (API on 4821)`);
+
+let stopping = false;
+const stop = async () => {
+  if (stopping) return;
+  stopping = true;
+  for (const c of children) c.kill('SIGTERM');
+  await mariadb.stop();
+  process.exit(0);
+};
+process.once('SIGINT', () => void stop());
+process.once('SIGTERM', () => void stop());
+for (const c of children) c.on('exit', () => void stop());

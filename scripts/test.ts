@@ -1,0 +1,44 @@
+// `npm test`: a throwaway MariaDB on a free port in a temp dir, the client
+// build (the browser tests serve it), then every suite (unit, API, collab,
+// browser) with vitest. MariaDB stops and the temp dir goes, pass or fail.
+// Extra arguments go to vitest, e.g. `npm test -- --project unit`.
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { startMariaDb } from './lib/mariadb';
+import { ensureChromium } from './lib/system-packages';
+import { freePort } from './lib/free-port';
+import { randomSecret } from './lib/secrets';
+import { bin, run } from './lib/run';
+
+const args = process.argv.slice(2);
+const chromium = ensureChromium();
+const dir = mkdtempSync(join(tmpdir(), 'beadloom-test-'));
+const mariadb = await startMariaDb({ dataDir: dir, port: await freePort(), database: 'beadloom_test', user: 'beadloom', password: randomSecret(16) });
+
+async function cleanUp(code: number): Promise<never> {
+  await mariadb.stop();
+  rmSync(dir, { recursive: true, force: true });
+  process.exit(code);
+}
+process.once('SIGINT', () => void cleanUp(130));
+process.once('SIGTERM', () => void cleanUp(143));
+
+let code = 1;
+try {
+  const wantsBrowser = args.length === 0 || args.some((a) => a.includes('e2e'));
+  if (wantsBrowser && process.env.BEADLOOM_SKIP_BUILD !== '1') {
+    console.log('[beadloom] building the client for the browser tests…');
+    code = await run(bin('vite'), ['build', '--logLevel', 'warn']);
+    if (code !== 0) throw new Error('The client build failed.');
+  }
+  code = await run(bin('vitest'), ['run', ...args], {
+    ...process.env,
+    TEST_DATABASE_URL: mariadb.url,
+    CHROMIUM_PATH: chromium,
+    NODE_ENV: 'test',
+  });
+} catch (err) {
+  console.error(`[beadloom] ${(err as Error).message}`);
+}
+await cleanUp(code);

@@ -1,0 +1,95 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import { existsSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import type { AppContext } from './context';
+import { RouteTable, type RouteEntry } from './http/route-table';
+import { errorMiddleware, unknownRoute } from './http/error-middleware';
+import { requireJson } from './http/require-json';
+import { createSessionMiddleware } from './auth/session';
+import { configurePassport } from './auth/passport';
+import { createCsrf } from './auth/csrf';
+import { authRoutes } from './auth/auth.routes';
+import { userRoutes } from './users/users.routes';
+import { projectRoutes } from './projects/projects.routes';
+import { moleculeRoutes } from './molecules/molecules.routes';
+import { healthRoutes } from './health/health.routes';
+import { devMailRoutes } from './mail/dev-mail.routes';
+
+export interface BuiltApp {
+  app: Express;
+  /** Every route the app serves, for the route × role permission test. */
+  routes: RouteEntry[];
+  /** The session middleware, reused to authenticate WebSocket upgrades. */
+  session: express.RequestHandler;
+  passport: ReturnType<typeof configurePassport>;
+  close(): Promise<void>;
+}
+
+const UPLOAD_PATHS = /\/upload$/;
+
+export function createApp(ctx: AppContext): BuiltApp {
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'connect-src': ["'self'", 'ws:', 'wss:'],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'script-src': ["'self'", "'wasm-unsafe-eval'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+  app.use(pinoHttp({ logger: ctx.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(express.json({ limit: '1mb' }));
+  app.use(requireJson((path) => UPLOAD_PATHS.test(path)));
+
+  const { middleware: session, store } = createSessionMiddleware(ctx.config);
+  const passport = configurePassport(ctx.db, ctx.config);
+  const csrf = createCsrf(ctx.config);
+  app.use(session, passport.initialize(), passport.session());
+  app.use(csrf.protect);
+
+  const routes = new RouteTable();
+  healthRoutes(routes, ctx);
+  authRoutes(routes, ctx, { csrf, passport });
+  userRoutes(routes, ctx);
+  projectRoutes(routes, ctx);
+  moleculeRoutes(routes, ctx);
+  if (ctx.mailSinkInUse) devMailRoutes(routes, ctx);
+  app.use(routes.router);
+  app.use(['/api', '/dev'], unknownRoute);
+
+  serveClient(app, ctx.config.clientDir);
+  app.use(unknownRoute);
+  app.use(errorMiddleware);
+
+  return {
+    app,
+    routes: routes.entries,
+    session,
+    passport,
+    close: () => store.close(),
+  };
+}
+
+/** The built client: static files, and index.html for every other GET (client-side routes). */
+function serveClient(app: Express, clientDir: string | null): void {
+  if (!clientDir) return;
+  const dir = resolve(clientDir);
+  const index = join(dir, 'index.html');
+  app.use(express.static(dir, { index: false, maxAge: '1h' }));
+  app.get(/^\/(?!api\/|dev\/|collab\/).*/, (_req, res, next) => {
+    if (!existsSync(index)) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

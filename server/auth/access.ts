@@ -1,0 +1,44 @@
+import type { Request } from 'express';
+import type { Db } from '../db/knex';
+import type { ProjectRole } from '../../src/shared/roles';
+import { can, canSee, canSite, type ProjectAction, type SiteAction } from './permissions';
+import { forbidden, notFound, unauthenticated } from '../http/errors';
+
+// The bridge between requests and the permission module: look up the caller's
+// standing, ask permissions.ts, and throw the right error (401, 404 or 403).
+
+export function requireUser(req: Request): Express.User {
+  if (!req.user) throw unauthenticated();
+  return req.user;
+}
+
+export async function roleInProject(db: Db, projectId: number, userId: number): Promise<{ exists: boolean; role: ProjectRole | null }> {
+  const row = await db('projects as p')
+    .leftJoin('project_members as m', function joinMember() {
+      this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', db.raw('?', [userId]));
+    })
+    .where('p.id', projectId)
+    .first('p.id', 'm.role');
+  return { exists: !!row, role: (row?.role as ProjectRole | undefined) ?? null };
+}
+
+/** Resolves the caller's role in a project or throws: 401 anonymous, 404 invisible, 403 not allowed. */
+export async function authorizeProject(db: Db, req: Request, projectId: number, action: ProjectAction): Promise<ProjectRole | null> {
+  const user = requireUser(req);
+  const standing = await roleInProject(db, projectId, user.id);
+  if (!standing.exists || !canSee(user, standing)) throw notFound('That project');
+  if (!can(user, action, standing)) throw forbidden();
+  return standing.role;
+}
+
+export async function rolesAnywhere(db: Db, userId: number): Promise<ProjectRole[]> {
+  const rows = await db('project_members').where({ user_id: userId }).distinct('role');
+  return rows.map((r) => r.role as ProjectRole);
+}
+
+export async function authorizeSite(db: Db, req: Request, action: SiteAction): Promise<Express.User> {
+  const user = requireUser(req);
+  const roles = user.isAdmin ? [] : await rolesAnywhere(db, user.id);
+  if (!canSite(user, action, { roles })) throw forbidden('Your account does not allow that.');
+  return user;
+}

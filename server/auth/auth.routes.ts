@@ -1,0 +1,76 @@
+import type { Request, Response, NextFunction } from 'express';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import type { createCsrf } from './csrf';
+import type passport from 'passport';
+import { validate } from '../http/validate';
+import { changePasswordBody, forgotBody, loginBody, resetBody, updateMeBody, type LoginResponse } from '../../src/shared/auth';
+import { createLoginLimiters } from './rate-limit';
+import { requireUser } from './access';
+import { buildMe } from './me.service';
+import { changePassword, requestPasswordReset, resetPassword } from './auth.service';
+
+interface AuthDeps {
+  csrf: ReturnType<typeof createCsrf>;
+  passport: passport.PassportStatic;
+}
+
+export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: AuthDeps): void {
+  r.get('/api/auth/csrf', (req, res) => {
+    res.json({ token: csrf.issue(req, res) });
+  });
+
+  r.post('/api/auth/login', ...createLoginLimiters(ctx.config), validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
+    passport.authenticate('local', (err: unknown, user: Express.User | false) => {
+      if (err || !user) return next(err);
+      // passport regenerates the session id here (no session fixation).
+      req.logIn(user, async (loginErr) => {
+        if (loginErr) return next(loginErr);
+        try {
+          const body: LoginResponse = { user: await buildMe(ctx.db, user), csrfToken: csrf.issue(req, res) };
+          res.json(body);
+        } catch (e) {
+          next(e);
+        }
+      });
+    })(req, res, next);
+  });
+
+  r.post('/api/auth/logout', (req, res, next) => {
+    req.logOut((err) => {
+      if (err) return next(err);
+      req.session.destroy(() => res.status(204).end());
+    });
+  });
+
+  r.post('/api/auth/forgot', validate({ body: forgotBody }), (req, res) => {
+    // Answer at once and send in the background: the timing says nothing about the address.
+    requestPasswordReset(ctx, req.body.email).catch((err) => ctx.log.error({ err }, 'password reset mail failed'));
+    res.status(202).json({ ok: true });
+  });
+
+  r.post('/api/auth/reset', validate({ body: resetBody }), async (req, res) => {
+    await resetPassword(ctx, req.body.token, req.body.password);
+    res.status(204).end();
+  });
+
+  r.get('/api/me', async (req, res) => {
+    res.json(await buildMe(ctx.db, requireUser(req)));
+  });
+
+  r.patch('/api/me', validate({ body: updateMeBody }), async (req, res) => {
+    const user = requireUser(req);
+    await ctx.db('users').where({ id: user.id }).update({ display_name: req.body.displayName, updated_at: ctx.db.fn.now() });
+    res.json(await buildMe(ctx.db, { ...user, displayName: req.body.displayName }));
+  });
+
+  r.post('/api/me/password', validate({ body: changePasswordBody }), async (req, res, next) => {
+    const user = requireUser(req);
+    const sessionVersion = await changePassword(ctx, user.id, req.body.currentPassword, req.body.newPassword);
+    // Every other session of the account ends; this one signs in again with the new version.
+    req.logIn({ ...user, sessionVersion }, (err) => {
+      if (err) return next(err);
+      res.json({ csrfToken: csrf.issue(req, res) });
+    });
+  });
+}

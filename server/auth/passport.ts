@@ -1,0 +1,44 @@
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import type { Config } from '../config';
+import type { Db } from '../db/knex';
+import { AppError } from '../http/errors';
+import { verifyPassword } from './passwords';
+import { findUserByEmail, findUserById, toSessionUser } from '../users/users.service';
+
+// The session stores { id, v }: the account id and its session version. A
+// disabled account, or one whose version moved on (disable, password change),
+// is signed out on its next request.
+
+interface SessionRef {
+  id: number;
+  v: number;
+}
+
+export function configurePassport(db: Db, config: Config): passport.PassportStatic {
+  const pp = new passport.Passport();
+  pp.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, async (email, password, done) => {
+      try {
+        const row = await findUserByEmail(db, email);
+        const ok = await verifyPassword(password, row?.password_hash ?? null, config.bcryptCost);
+        if (!row || !ok) return done(new AppError(401, 'invalid_credentials', 'That e-mail and password do not match an account.'));
+        if (row.disabled_at) return done(new AppError(403, 'account_disabled', 'This account has been disabled. Ask an administrator.'));
+        return done(null, toSessionUser(row));
+      } catch (err) {
+        return done(err);
+      }
+    }),
+  );
+  pp.serializeUser((user, done) => done(null, { id: user.id, v: user.sessionVersion } satisfies SessionRef));
+  pp.deserializeUser(async (ref: SessionRef, done) => {
+    try {
+      const row = await findUserById(db, ref.id);
+      if (!row || row.disabled_at || row.session_version !== ref.v) return done(null, false);
+      return done(null, toSessionUser(row));
+    } catch (err) {
+      return done(err);
+    }
+  });
+  return pp as unknown as passport.PassportStatic;
+}

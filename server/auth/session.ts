@@ -1,0 +1,39 @@
+import session from 'express-session';
+import createMySQLStore from 'express-mysql-session';
+import type { Config } from '../config';
+
+// Sessions live in MariaDB (table `sessions`, created by a migration) so app
+// servers stay stateless. Cookies are httpOnly and SameSite=Lax.
+
+export const SESSION_COOKIE = 'beadloom.sid';
+
+export function createSessionMiddleware(config: Config) {
+  const MySQLStore = createMySQLStore(session);
+  const url = new URL(config.databaseUrl);
+  const store = new MySQLStore({
+    host: url.hostname,
+    port: Number(url.port || 3306),
+    user: decodeURIComponent(url.username),
+    password: decodeURIComponent(url.password),
+    database: url.pathname.slice(1),
+    createDatabaseTable: false,
+    clearExpired: true,
+    checkExpirationInterval: 15 * 60_000,
+    expiration: 7 * 24 * 60 * 60_000,
+  });
+  const middleware = session({
+    name: SESSION_COOKIE,
+    secret: config.sessionSecret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: config.appUrl.startsWith('https://'),
+      maxAge: 7 * 24 * 60 * 60_000,
+    },
+  });
+  return { middleware, store };
+}

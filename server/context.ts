@@ -1,0 +1,14 @@
+import type { Logger } from 'pino';
+import type { Config } from './config';
+import type { Db } from './db/knex';
+import type { Mailer } from './mail/mailer';
+
+/** What every route module and service is given; built once in server/app.ts. */
+export interface AppContext {
+  config: Config;
+  db: Db;
+  mailer: Mailer;
+  log: Logger;
+  /** True while mail goes to the local sink; /dev/mail exists only then. */
+  mailSinkInUse: boolean;
+}

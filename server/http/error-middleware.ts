@@ -1,0 +1,40 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { AppError } from './errors';
+
+export const unknownRoute: RequestHandler = (req) => {
+  throw new AppError(404, 'not_found', `No route ${req.method} ${req.path}.`);
+};
+
+interface BodyParserError {
+  type?: string;
+  status?: number;
+  limit?: number;
+}
+
+/** The one place that writes error responses. Unknown errors never show internals. */
+export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
+  const known = toAppError(err);
+  if (!known) req.log?.error({ err }, 'unhandled error');
+  const e = known ?? new AppError(500, 'internal_error', 'Something went wrong on the server. It has been logged.');
+  if (res.headersSent) {
+    res.end();
+    return;
+  }
+  for (const [name, value] of Object.entries(e.headers)) res.setHeader(name, value);
+  res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.details !== undefined ? { details: e.details } : {}) } });
+};
+
+function toAppError(err: unknown): AppError | null {
+  if (err instanceof AppError) return err;
+  const bp = err as BodyParserError;
+  if (bp && typeof bp === 'object') {
+    if (bp.type === 'entity.parse.failed') return new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
+    if (bp.type === 'entity.too.large') {
+      return new AppError(413, 'payload_too_large', `The request body is larger than the limit of ${bp.limit} bytes.`, { limit: bp.limit });
+    }
+    if (bp.type === 'charset.unsupported' || bp.type === 'encoding.unsupported') {
+      return new AppError(415, 'unsupported_media_type', 'The body encoding is not supported; send UTF-8 JSON.');
+    }
+  }
+  return null;
+}

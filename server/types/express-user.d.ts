@@ -1,0 +1,21 @@
+import 'express-session';
+
+declare global {
+  namespace Express {
+    /** The signed-in account as passport attaches it to req.user. */
+    interface User {
+      id: number;
+      email: string;
+      displayName: string;
+      isAdmin: boolean;
+      sessionVersion: number;
+    }
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    /** Set when a CSRF token is issued, so an anonymous session is stored and its id stays stable. */
+    csrfIssued?: boolean;
+  }
+}

@@ -1,0 +1,46 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import { validate } from '../http/validate';
+import { authorizeSite } from '../auth/access';
+import { createUserBody, updateUserBody } from '../../src/shared/users';
+import { idParam } from '../../src/shared/fields';
+import { endSessions, findUserById, listUsers, toUserSummary } from './users.service';
+import { createInvitedAccount } from './invitations';
+import { conflict, notFound } from '../http/errors';
+
+const userParams = z.object({ id: idParam });
+
+export function userRoutes(r: RouteTable, ctx: AppContext): void {
+  r.get('/api/users', async (req, res) => {
+    await authorizeSite(ctx.db, req, 'users:manage');
+    res.json((await listUsers(ctx.db)).map(toUserSummary));
+  });
+
+  r.post('/api/users', validate({ body: createUserBody }), async (req, res) => {
+    const admin = await authorizeSite(ctx.db, req, 'users:manage');
+    const row = await createInvitedAccount(ctx, req.body, admin.displayName, null);
+    res.status(201).json(toUserSummary(row));
+  });
+
+  r.patch('/api/users/:id', validate({ params: userParams, body: updateUserBody }), async (req, res) => {
+    const admin = await authorizeSite(ctx.db, req, 'users:manage');
+    const id = Number(req.params.id);
+    const row = await findUserById(ctx.db, id);
+    if (!row) throw notFound('That account');
+    const { displayName, isAdmin, disabled } = req.body as z.infer<typeof updateUserBody>;
+    if (id === admin.id && (disabled === true || isAdmin === false)) {
+      throw conflict('conflict', 'You cannot disable your own account or remove your own admin flag.');
+    }
+    await ctx.db('users')
+      .where({ id })
+      .update({
+        ...(displayName !== undefined ? { display_name: displayName } : {}),
+        ...(isAdmin !== undefined ? { is_admin: isAdmin } : {}),
+        ...(disabled !== undefined ? { disabled_at: disabled ? ctx.db.fn.now() : null } : {}),
+        updated_at: ctx.db.fn.now(),
+      });
+    if (disabled === true) await endSessions(ctx.db, id);
+    res.json(toUserSummary((await findUserById(ctx.db, id))!));
+  });
+}

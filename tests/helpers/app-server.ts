@@ -1,0 +1,29 @@
+import { startServer } from '../../server/index';
+import { configFromEnv } from '../../server/config';
+import { seedDemo } from '../../seeds/demo';
+import { createTestDatabase } from './db';
+
+// The whole app as `npm start` runs it (HTTP server, SMTP sink, built client
+// from dist/) on a fresh demo-seeded database and a free port, for browser tests.
+
+export async function startTestServer(): Promise<{ url: string; stop(): Promise<void> }> {
+  const database = await createTestDatabase();
+  await seedDemo(database.db, 12);
+  const config = configFromEnv({
+    DATABASE_URL: database.url,
+    SESSION_SECRET: 'browser-test-secret-that-is-long-enough-0123',
+    PORT: '0',
+    LOG_LEVEL: 'silent',
+    CLIENT_DIR: 'dist',
+  });
+  const running = await startServer(config);
+  // Links in e-mails must point at the port actually bound.
+  running.ctx.config.appUrl = running.url;
+  return {
+    url: running.url,
+    async stop() {
+      await running.stop();
+      await database.drop();
+    },
+  };
+}

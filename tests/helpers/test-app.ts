@@ -1,0 +1,49 @@
+import { createApp, type BuiltApp } from '../../server/app';
+import { configFromEnv, type Config } from '../../server/config';
+import { createLogger } from '../../server/logger';
+import { createMailer } from '../../server/mail/mailer';
+import { startMailSink } from '../../server/mail/sink';
+import type { AppContext } from '../../server/context';
+import { seedDemo } from '../../seeds/demo';
+import { createTestDatabase, type TestDatabase } from './db';
+
+// The real Express app on a fresh, migrated and demo-seeded database, with the
+// real local SMTP sink. Tests drive it with supertest (see client.ts).
+
+export interface TestApp extends BuiltApp {
+  ctx: AppContext;
+  database: TestDatabase;
+  /** Messages the SMTP sink caught, newest first. */
+  mail(): Promise<{ to: string; subject: string; text: string; html: string }[]>;
+  stop(): Promise<void>;
+}
+
+export async function createTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  await seedDemo(database.db, 12);
+  const sink = await startMailSink(database.db);
+  const config: Config = {
+    ...configFromEnv({ DATABASE_URL: database.url, SESSION_SECRET: 'test-secret-that-is-long-enough-0123456789', PORT: '4820' }),
+    clientDir: null,
+    logLevel: 'silent',
+    ...overrides,
+  };
+  const mailer = createMailer(sink.url, config.mailFrom);
+  const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true };
+  const built = createApp(ctx);
+  return {
+    ...built,
+    ctx,
+    database,
+    async mail() {
+      const rows = await database.db('dev_mail').orderBy('id', 'desc');
+      return rows.map((r) => ({ to: r.to_addresses, subject: r.subject, text: r.text_body, html: r.html_body }));
+    },
+    async stop() {
+      await built.close();
+      mailer.close();
+      await sink.close();
+      await database.drop();
+    },
+  };
+}
