@@ -1,0 +1,36 @@
+import { useState } from 'react';
+import { useNavigate } from 'react-router';
+import { Button } from '../../components/ui/button';
+import { PageHeader } from '../../components/ui/page-header';
+import { Section } from '../../components/ui/section';
+import { CreateProjectForm } from '../../features/projects/components/create-project-form';
+import { ProjectList } from '../../features/projects/components/project-list';
+import { useDocumentTitle } from '../../hooks/use-document-title';
+import { paths } from '../../lib/paths';
+import { useCurrentUser } from '../shell/current-user';
+
+export function ProjectsRoute() {
+  useDocumentTitle('Projects');
+  const me = useCurrentUser();
+  const navigate = useNavigate();
+  const [creating, setCreating] = useState(false);
+
+  return (
+    <>
+      <PageHeader
+        title="Projects"
+        description="Each project holds one group's molecules, their mappings and the people who work on them."
+        actions={
+          me.canCreateProjects &&
+          !creating && <Button onClick={() => setCreating(true)}>New project</Button>
+        }
+      />
+      {creating && (
+        <Section title="New project" description="You become its supervisor and can add members next." className="mb-6">
+          <CreateProjectForm onCreated={(project) => navigate(paths.project(project.id))} onCancel={() => setCreating(false)} />
+        </Section>
+      )}
+      <ProjectList />
+    </>
+  );
+}

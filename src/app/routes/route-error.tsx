@@ -1,0 +1,21 @@
+import { isRouteErrorResponse, useRouteError } from 'react-router';
+import { ErrorAlert } from '../../components/ui/alert';
+import { Logo } from '../../components/ui/logo';
+
+/** Last resort when a page throws while rendering. */
+export function RouteError() {
+  const error = useRouteError();
+  const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : undefined;
+  return (
+    <div className="mx-auto max-w-lg px-4 py-16">
+      <Logo />
+      <h1 className="mt-8 text-2xl font-bold text-ink-950">Something broke on this page</h1>
+      <div className="mt-4">
+        <ErrorAlert error={message ? undefined : error}>{message}</ErrorAlert>
+      </div>
+      <p className="mt-6 text-sm">
+        <a href="/" className="font-semibold text-ink-700 underline">Reload Beadloom</a>
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,14 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { ProjectSummary } from '../../../shared/projects';
+import { api } from '../../../lib/api-client';
+
+export function getProject(projectId: number): Promise<ProjectSummary> {
+  return api.get<ProjectSummary>(`/api/projects/${projectId}`);
+}
+
+export const projectQueryOptions = (projectId: number) =>
+  queryOptions({ queryKey: ['projects', projectId], queryFn: () => getProject(projectId) });
+
+export function useProject(projectId: number) {
+  return useQuery(projectQueryOptions(projectId));
+}

@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { meQueryKey } from '../../../lib/query-keys';
+import { projectsQueryOptions } from './get-projects';
+
+export function removeMember(projectId: number, userId: number): Promise<void> {
+  return api.delete(`/api/projects/${projectId}/members/${userId}`);
+}
+
+export function useRemoveMember(projectId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (userId: number) => removeMember(projectId, userId),
+    onSuccess: () => Promise.all([
+      queryClient.invalidateQueries({ queryKey: projectsQueryOptions().queryKey }),
+      queryClient.invalidateQueries({ queryKey: meQueryKey }),
+    ]),
+  });
+}
