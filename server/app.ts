@@ -1,5 +1,6 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import cookieParser from 'cookie-parser';
 import { pinoHttp } from 'pino-http';
 import { existsSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -55,7 +56,7 @@ export function createApp(ctx: AppContext): BuiltApp {
   const { middleware: session, store } = createSessionMiddleware(ctx.config);
   const passport = configurePassport(ctx.db, ctx.config);
   const csrf = createCsrf(ctx.config);
-  app.use(session, passport.initialize(), passport.session());
+  app.use(cookieParser(), session, passport.initialize(), passport.session());
   app.use(csrf.protect);
 
   const routes = new RouteTable();

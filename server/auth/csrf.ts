@@ -29,7 +29,7 @@ export function createCsrf(config: Config) {
   /** Issues a token for this session; marks the session so it is stored and its id stays stable. */
   const issue = (req: Request, res: Parameters<RequestHandler>[1]): string => {
     req.session.csrfIssued = true;
-    return generateCsrfToken(req, res, { overwrite: true });
+    return generateCsrfToken(req, res);
   };
 
   return { protect, issue };

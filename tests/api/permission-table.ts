@@ -1,0 +1,128 @@
+import type { Db } from '../../server/db/knex';
+import { createAccount, demoProjectId, userId } from '../helpers/fixtures';
+
+// The route × role table: for every route of the app, what each kind of caller
+// gets. The permission test fails when the app has a route that is not here.
+// Rows run in order for the roles in ROLES order: refused callers first, so
+// a permitted caller's side effect cannot change what a refused one sees.
+
+export const ROLES = ['anonymous', 'nonMember', 'student', 'modeller', 'supervisor', 'admin'] as const;
+export type Caller = (typeof ROLES)[number];
+
+export interface RouteCase {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  /** Builds the concrete URL and body for one caller; may create fixtures first. */
+  request(env: CaseEnv, caller: Caller): Promise<{ url: string; body?: unknown }>;
+  expect: Record<Caller, number>;
+  /** Sign in afresh for this row (the request ends the session). */
+  fresh?: boolean;
+}
+
+export interface CaseEnv {
+  db: Db;
+  projectId: number;
+}
+
+const all = (status: number): Record<Caller, number> => ({ anonymous: status, nonMember: status, student: status, modeller: status, supervisor: status, admin: status });
+const signedIn = (status: number) => ({ ...all(status), anonymous: 401 });
+const inProject = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
+  anonymous: 401,
+  nonMember: 404,
+  student: allowed.includes('student') ? ok : 403,
+  modeller: allowed.includes('modeller') ? ok : 403,
+  supervisor: ok,
+  admin: ok,
+});
+const adminOnly = (ok: number) => ({ ...all(403), anonymous: 401, admin: ok });
+const EVERYONE: Caller[] = ['student', 'modeller'];
+const EDITORS: Caller[] = ['modeller'];
+
+const url = (u: string) => async () => ({ url: u });
+const project = (suffix = '') => async (env: CaseEnv) => ({ url: `/api/projects/${env.projectId}${suffix}` });
+let counter = 0;
+const unique = (caller: Caller) => `${caller}-${++counter}-${Date.now()}`;
+
+export const ROUTE_CASES: RouteCase[] = [
+  { method: 'get', path: '/api/health', request: url('/api/health'), expect: all(200) },
+  { method: 'get', path: '/api/auth/csrf', request: url('/api/auth/csrf'), expect: all(200) },
+  {
+    method: 'post',
+    path: '/api/auth/login',
+    request: async () => ({ url: '/api/auth/login', body: { email: 'nobody-here@example.org', password: 'wrong password' } }),
+    expect: all(401),
+  },
+  { method: 'post', path: '/api/auth/logout', request: url('/api/auth/logout'), expect: all(204), fresh: true },
+  { method: 'post', path: '/api/auth/forgot', request: async () => ({ url: '/api/auth/forgot', body: { email: 'nobody-here@example.org' } }), expect: all(202) },
+  {
+    method: 'post',
+    path: '/api/auth/reset',
+    request: async () => ({ url: '/api/auth/reset', body: { token: 'x'.repeat(43), password: 'a new password 123' } }),
+    expect: all(400),
+  },
+  { method: 'get', path: '/api/me', request: url('/api/me'), expect: signedIn(200) },
+  { method: 'patch', path: '/api/me', request: async (_e, c) => ({ url: '/api/me', body: { displayName: `Renamed ${c}` } }), expect: signedIn(200) },
+  {
+    method: 'post',
+    path: '/api/me/password',
+    request: async () => ({ url: '/api/me/password', body: { currentPassword: 'not the password', newPassword: 'another password 1' } }),
+    expect: signedIn(400),
+  },
+  { method: 'get', path: '/api/users', request: url('/api/users'), expect: adminOnly(200) },
+  {
+    method: 'post',
+    path: '/api/users',
+    request: async (_e, c) => ({ url: '/api/users', body: { email: `${unique(c)}@example.org`, displayName: 'New person' } }),
+    expect: adminOnly(201),
+  },
+  {
+    method: 'patch',
+    path: '/api/users/:id',
+    request: async (env, c) => ({ url: `/api/users/${await createAccount(env.db, `${unique(c)}@example.org`)}`, body: { displayName: 'Changed' } }),
+    expect: adminOnly(200),
+  },
+  { method: 'get', path: '/api/projects', request: url('/api/projects'), expect: signedIn(200) },
+  {
+    method: 'post',
+    path: '/api/projects',
+    request: async (_e, c) => ({ url: '/api/projects', body: { name: `Project of ${c}` } }),
+    expect: { anonymous: 401, nonMember: 403, student: 403, modeller: 403, supervisor: 201, admin: 201 },
+  },
+  { method: 'get', path: '/api/projects/:id', request: project(), expect: inProject(200, EVERYONE) },
+  { method: 'patch', path: '/api/projects/:id', request: async (env) => ({ url: `/api/projects/${env.projectId}`, body: { description: 'Updated.' } }), expect: inProject(200, []) },
+  { method: 'get', path: '/api/projects/:id/members', request: project('/members'), expect: inProject(200, EVERYONE) },
+  {
+    method: 'post',
+    path: '/api/projects/:id/members',
+    request: async (env, c) => ({ url: `/api/projects/${env.projectId}/members`, body: { email: `${unique(c)}@example.org`, role: 'student' } }),
+    expect: inProject(201, []),
+  },
+  {
+    method: 'patch',
+    path: '/api/projects/:id/members/:userId',
+    request: async (env, c) => {
+      const id = await createAccount(env.db, `${unique(c)}@example.org`, { projectId: env.projectId, role: 'student' });
+      return { url: `/api/projects/${env.projectId}/members/${id}`, body: { role: 'modeller' } };
+    },
+    expect: inProject(200, []),
+  },
+  {
+    method: 'delete',
+    path: '/api/projects/:id/members/:userId',
+    request: async (env, c) => {
+      const id = await createAccount(env.db, `${unique(c)}@example.org`, { projectId: env.projectId, role: 'student' });
+      return { url: `/api/projects/${env.projectId}/members/${id}` };
+    },
+    expect: inProject(204, []),
+  },
+  { method: 'get', path: '/api/projects/:id/molecules', request: project('/molecules'), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: all(200) },
+  { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: all(200) },
+];
+
+export async function caseEnv(db: Db): Promise<CaseEnv> {
+  await userId(db, 'supervisor@example.org');
+  return { db, projectId: await demoProjectId(db) };
+}
+
+export { EDITORS };
