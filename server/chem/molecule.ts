@@ -1,0 +1,75 @@
+/**
+ * parseMolecule: input → the canonical Molecule (atoms, bonds, formula, weight, SMILES, Wildman–Crippen
+ * logP per atom). Parsing and the atom order are openchemlib's (parse.ts, model.ts); masses are ours
+ * (masses.ts); typing is RDKit SMARTS matching on a molfile written from the model (crippen.ts).
+ */
+import type { Molecule } from '../../src/shared/chem';
+import { typeAtoms } from './crippen';
+import { hillFormula } from './formula';
+import { molecularWeight } from './masses';
+import { buildModel } from './model';
+import { layout2d } from './ocl-build';
+import { parseInput, type MoleculeInput, type OclMolecule } from './parse';
+import { loadRdkit } from './rdkit';
+
+export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
+  const rd = await loadRdkit();
+  const { mol, source, warnings } = parseInput(input);
+  const threeD = source === 'molfile' && hasDepth(mol);
+  const model = buildModel(mol, threeD);
+  const { atoms, bonds } = model;
+  const molecularWeightValue = molecularWeight(atoms);
+  if (source === 'molfile') {
+    layout2d(model).forEach((p, i) => Object.assign(atoms[i], p));
+    if (threeD && !model.coordinates3d) {
+      warnings.push('The molfile is 3D but not every hydrogen is given, so its coordinates are not kept; generate a conformer instead.');
+    }
+  }
+  if (model.foldedExplicitH > 0) {
+    warnings.push(`${model.foldedExplicitH} explicit hydrogen atom(s) were folded into their heavy atoms.`);
+  }
+  const components = countComponents(atoms.length, bonds);
+  if (components > 1) warnings.push(`The structure has ${components} disconnected parts (a salt or mixture).`);
+  for (const a of atoms) {
+    if (a.radical > 0) warnings.push(`Atom ${a.index} (${a.element}) carries ${a.radical} unpaired electron(s).`);
+  }
+  const typing = typeAtoms(rd, model);
+  for (const el of typing.untypedElements) {
+    warnings.push(`Wildman–Crippen has no atom type for ${el}; its logP contribution is taken as 0.`);
+  }
+  return {
+    atoms,
+    bonds,
+    formula: hillFormula(atoms),
+    molecularWeight: molecularWeightValue,
+    netCharge: atoms.reduce((q, a) => q + a.charge, 0),
+    canonicalSmiles: mol.toIsomericSmiles(),
+    logP: typing.logP,
+    atomLogP: typing.atomLogP,
+    atomTypes: typing.atomTypes,
+    coordinates: model.coordinates3d,
+    warnings,
+  };
+}
+
+function hasDepth(mol: OclMolecule): boolean {
+  for (let i = 0; i < mol.getAllAtoms(); i++) if (Math.abs(mol.getAtomZ(i)) > 1e-4) return true;
+  return false;
+}
+
+function countComponents(n: number, bonds: { a: number; b: number }[]): number {
+  const parent = Array.from({ length: n }, (_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  let count = n;
+  for (const { a, b } of bonds) {
+    const [ra, rb] = [find(a), find(b)];
+    if (ra !== rb) {
+      parent[ra] = rb;
+      count--;
+    }
+  }
+  return count;
+}

@@ -1,0 +1,136 @@
+/**
+ * The chemistry core's data, as plain types shared by server and client.
+ *
+ * Atom-index contract (see docs/chemistry.md): `Molecule.atoms` lists every non-hydrogen atom in the
+ * order openchemlib gives after parsing (not necessarily the order of the input string). Hydrogens are
+ * not atoms of their own: each belongs to its heavy atom (`hydrogens`, with isotope labels in
+ * `hydrogenIsotopes`). Anything that lists per-atom 3D data (coordinates) lists the heavy atoms first, in
+ * index order, then each heavy atom's hydrogens, grouped by parent in parent order, unlabelled ones first.
+ */
+
+export type CentreRule = 'mass' | 'geometry' | 'geometry-heavy';
+export type Resolution = '4:1' | '3:1' | '2:1';
+export type SizeClass = 'regular' | 'small' | 'tiny';
+export type Severity = 'error' | 'warning' | 'info';
+export type Vec3 = [number, number, number];
+
+export interface Atom {
+  index: number;
+  element: string;
+  /** Mass number when the atom is isotope-labelled ([13C]), else null. */
+  isotope: number | null;
+  charge: number;
+  /** openchemlib's aromaticity (for drawing); typing uses RDKit's perception, see docs/chemistry.md. */
+  aromatic: boolean;
+  /** All hydrogens on this atom, labelled ones included. */
+  hydrogens: number;
+  /** Mass numbers of the labelled hydrogens among `hydrogens` (e.g. [2, 2, 2] for CD3). */
+  hydrogenIsotopes: number[];
+  radical: number;
+  x: number;
+  y: number;
+}
+
+export interface Bond {
+  a: number;
+  b: number;
+  /** Kekulé order (1, 2, 3); 0 for a metal/dative link. */
+  order: number;
+  aromatic: boolean;
+}
+
+export interface Molecule {
+  atoms: Atom[];
+  bonds: Bond[];
+  formula: string;
+  molecularWeight: number;
+  netCharge: number;
+  canonicalSmiles: string;
+  logP: number;
+  /** Wildman–Crippen contribution per heavy atom, its hydrogens' contributions included. */
+  atomLogP: number[];
+  /** Wildman–Crippen type label per heavy atom (e.g. 'C18'), '' when no type applies. */
+  atomTypes: string[];
+  /** 3D coordinates (Å) in the contract's order when the input was a 3D molfile with every hydrogen. */
+  coordinates: number[][] | null;
+  warnings: string[];
+}
+
+export interface MappingAtom {
+  index: number;
+  weight: number;
+}
+
+export interface MappingBead {
+  id: string;
+  name: string;
+  type?: string;
+  centre: CentreRule;
+  atoms: MappingAtom[];
+}
+
+export interface Mapping {
+  beads: MappingBead[];
+}
+
+export interface BeadType {
+  name: string;
+  sizeClass: SizeClass;
+  charge: number;
+  /** kJ/mol, ΔG_OW range (positive = prefers octanol). */
+  deltaGMin: number;
+  deltaGMax: number;
+}
+
+export interface EvaluateOptions {
+  temperature?: number;
+  coordinates?: number[][];
+  resolution?: Resolution;
+  library?: BeadType[];
+  /** Type each bead's fragment afresh (needs RDKit loaded); default true. */
+  fragments?: boolean;
+}
+
+export interface BeadEvaluation {
+  id: string;
+  name: string;
+  mass: number;
+  heavyAtoms: number;
+  charge: number;
+  logP: number;
+  fragmentLogP: number | null;
+  /** kJ/mol from `logP`. */
+  deltaG: number;
+  /** kJ/mol from `fragmentLogP`. */
+  fragmentDeltaG: number | null;
+  sizeClass: SizeClass | null;
+  suggestedType: string | null;
+  /** Whether the suggested type's ΔG range holds the bead's ΔG (false: nearest type). */
+  suggestedTypeFits: boolean | null;
+  centre: Vec3 | null;
+}
+
+export interface Topology {
+  bonds: [string, string][];
+  angles: [string, string, string][];
+  dihedrals: [string, string, string, string][];
+  rings: string[][];
+}
+
+export interface Check {
+  code: string;
+  severity: Severity;
+  message: string;
+  atoms: number[];
+  beads: string[];
+  hint: string;
+}
+
+export interface Evaluation {
+  temperature: number;
+  resolution: Resolution;
+  beads: BeadEvaluation[];
+  topology: Topology;
+  checks: Check[];
+  warnings: string[];
+}
