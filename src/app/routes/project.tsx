@@ -45,7 +45,7 @@ function ProjectPage({ projectId }: { projectId: number }) {
         eyebrow={<TextLink to={paths.projects}>Projects</TextLink>}
         title={project.data.name}
         description={
-          <div className="flex flex-col gap-2">
+          <div className="flex flex-col items-start gap-2">
             <RoleBadge role={project.data.role} />
             {!editing && <p className="whitespace-pre-line">{project.data.description || 'No description yet.'}</p>}
           </div>
@@ -57,7 +57,7 @@ function ProjectPage({ projectId }: { projectId: number }) {
           <EditProjectForm project={project.data} onDone={() => setEditing(false)} />
         </Section>
       )}
-      <div className="grid gap-6 lg:grid-cols-[3fr_2fr]">
+      <div className="grid items-start gap-6 lg:grid-cols-2">
         <Section title="Molecules" description="Structures this group maps to beads.">
           <MoleculeList projectId={projectId} />
         </Section>

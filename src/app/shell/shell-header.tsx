@@ -51,6 +51,9 @@ export function ShellHeader({ me }: { me: Me }) {
 }
 
 function initials(name: string): string {
-  const parts = name.trim().split(/\s+/);
-  return ((parts[0]?.[0] ?? '') + (parts.length > 1 ? (parts.at(-1)?.[0] ?? '') : '')).toUpperCase();
+  // First and last word, leaving out anything in brackets: "Ada Quill (site admin)" → "AQ".
+  const words = name.replace(/\(.*?\)/g, ' ').trim().split(/\s+/).filter(Boolean);
+  const first = words[0]?.[0] ?? '?';
+  const last = words.length > 1 ? (words.at(-1)?.[0] ?? '') : '';
+  return (first + last).toUpperCase();
 }

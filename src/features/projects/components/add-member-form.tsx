@@ -21,22 +21,11 @@ export function AddMemberForm({ projectId }: { projectId: number }) {
 
   return (
     <form noValidate aria-label="Add a member" onSubmit={submit} className="flex flex-col gap-4">
-      <div className="grid gap-4 sm:grid-cols-[2fr_1fr]">
-        <TextField
-          label="Member e-mail"
-          type="email"
-          autoComplete="off"
-          {...form.field('email')}
-        />
-        <SelectField
-          label="Member role"
-          options={roleOptions}
-          {...form.field('role')}
-        />
-      </div>
+      <TextField label="Member e-mail" type="email" autoComplete="off" {...form.field('email')} />
+      <SelectField label="Member role" options={roleOptions} {...form.field('role')} />
       <TextField
         label="Member name"
-        hint="Only for someone new to Beadloom: their account gets this name, and they receive an invitation by e-mail."
+        hint="Only for someone new to Beadloom: their account gets this name and an invitation by e-mail."
         {...form.field('displayName')}
       />
       {add.error && <ErrorAlert error={add.error} />}
