@@ -1,0 +1,93 @@
+import { z } from 'zod';
+
+// A project's bead type library: the table bead type suggestions are drawn from. Edited as a whole
+// (`PUT /api/projects/:id/bead-types` replaces it), imported and exported as CSV with BEAD_TYPE_CSV_COLUMNS.
+
+export const SIZE_CLASSES = ['regular', 'small', 'tiny'] as const;
+export const BEAD_TYPES_MAX = 500;
+/** kJ/mol; open-ended ranges are written as ±1000 so the table survives JSON and CSV. */
+export const DELTA_G_LIMIT = 1000;
+
+const deltaG = z.number('ΔG is a number (kJ/mol).').min(-DELTA_G_LIMIT).max(DELTA_G_LIMIT);
+
+export const beadTypeRow = z
+  .strictObject({
+    name: z.string().trim().min(1, 'A bead type needs a name.').max(40, 'A bead type name has at most 40 characters.'),
+    sizeClass: z.enum(SIZE_CLASSES, 'The size class is regular, small or tiny.'),
+    charge: z.number().int('The charge is a whole number.').min(-4).max(4),
+    deltaGMin: deltaG,
+    deltaGMax: deltaG,
+    description: z.string().trim().max(500).default(''),
+  })
+  .refine((r) => r.deltaGMin <= r.deltaGMax, { message: 'deltaGMin must not exceed deltaGMax.', path: ['deltaGMin'] });
+export type BeadTypeRow = z.infer<typeof beadTypeRow>;
+
+export const putBeadTypesBody = z
+  .strictObject({ types: z.array(beadTypeRow).max(BEAD_TYPES_MAX, `A library holds at most ${BEAD_TYPES_MAX} types.`) })
+  .refine((b) => new Set(b.types.map((t) => t.name)).size === b.types.length, { message: 'Bead type names must be unique.', path: ['types'] });
+export type PutBeadTypesBody = z.infer<typeof putBeadTypesBody>;
+
+export interface BeadTypeLibrary {
+  projectId: number;
+  types: BeadTypeRow[];
+  updatedAt: string | null;
+}
+
+export const BEAD_TYPE_CSV_COLUMNS = ['name', 'size_class', 'charge', 'delta_g_min', 'delta_g_max', 'description'] as const;
+
+export function beadTypesToCsv(types: readonly BeadTypeRow[]): string {
+  const cell = (v: string | number) => (typeof v === 'string' && /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : String(v));
+  const rows = types.map((t) => [t.name, t.sizeClass, t.charge, t.deltaGMin, t.deltaGMax, t.description].map(cell).join(','));
+  return [BEAD_TYPE_CSV_COLUMNS.join(','), ...rows].join('\n') + '\n';
+}
+
+export type CsvResult = { ok: true; types: BeadTypeRow[] } | { ok: false; line: number; message: string };
+
+/** Parses the CSV written by `beadTypesToCsv` (header required, columns in any order). */
+export function beadTypesFromCsv(text: string): CsvResult {
+  const lines = splitCsv(text).filter((cells) => cells.some((c) => c.trim() !== ''));
+  if (lines.length === 0) return { ok: false, line: 1, message: 'The file is empty.' };
+  const header = lines[0].map((h) => h.trim().toLowerCase());
+  const missing = BEAD_TYPE_CSV_COLUMNS.filter((c) => c !== 'description' && !header.includes(c));
+  if (missing.length) return { ok: false, line: 1, message: `Missing column(s): ${missing.join(', ')}.` };
+  const at = (cells: string[], col: string) => cells[header.indexOf(col)]?.trim() ?? '';
+  const num = (s: string) => (s === '' ? Number.NaN : Number(s));
+  const types: BeadTypeRow[] = [];
+  for (let i = 1; i < lines.length; i++) {
+    const c = lines[i];
+    const parsed = beadTypeRow.safeParse({
+      name: at(c, 'name'),
+      sizeClass: at(c, 'size_class'),
+      charge: num(at(c, 'charge')),
+      deltaGMin: num(at(c, 'delta_g_min')),
+      deltaGMax: num(at(c, 'delta_g_max')),
+      description: at(c, 'description'),
+    });
+    if (!parsed.success) return { ok: false, line: i + 1, message: `${parsed.error.issues[0].path.join('.')}: ${parsed.error.issues[0].message}` };
+    types.push(parsed.data);
+  }
+  return { ok: true, types };
+}
+
+/** RFC 4180 cells: quoted fields may hold commas, quotes ("") and newlines. */
+function splitCsv(text: string): string[][] {
+  const rows: string[][] = [];
+  let row: string[] = [];
+  let cell = '';
+  let quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const ch = text[i];
+    if (quoted) {
+      if (ch === '"' && text[i + 1] === '"') (cell += '"'), i++;
+      else if (ch === '"') quoted = false;
+      else cell += ch;
+    } else if (ch === '"') quoted = true;
+    else if (ch === ',') row.push(cell), (cell = '');
+    else if (ch === '\n' || ch === '\r') {
+      if (ch === '\r' && text[i + 1] === '\n') i++;
+      row.push(cell), rows.push(row), (row = []), (cell = '');
+    } else cell += ch;
+  }
+  if (cell !== '' || row.length) row.push(cell), rows.push(row);
+  return rows;
+}

@@ -1,0 +1,135 @@
+/**
+ * Checks that a mapping draft (see mapping-doc.ts) has exactly the documented shape.
+ *
+ * The collab server applies each incoming update to a shadow copy with `applyChecked`, which looks only
+ * at what the update touched (Yjs reports the changed keys of every type in the transaction), so
+ * checking costs the size of the edit, not of the document. `checkDoc` walks everything (tests, loads).
+ *
+ * Refused: anything at the top level but `beads` and `atoms`; list content anywhere; a bead that is
+ * not a Y.Map of exactly `name` (1–40 characters), `type` (string ≤ 40 or null) and `centre` (a centre
+ * rule); an atom key that is not a decimal index below the molecule's atom count; an atom value that is
+ * not a non-empty plain object of bead id → weight in (0, 1].
+ */
+import * as Y from 'yjs';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, atomsOf, beadsOf } from './mapping-doc';
+
+export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range';
+
+export interface DocProblem {
+  code: DocProblemCode;
+  message: string;
+  /** Where in the document, e.g. "atoms.17" or "beads.b12ab.name". */
+  path: string;
+}
+
+const problem = (code: DocProblemCode, path: string, message: string): DocProblem => ({ code, path, message });
+const INDEX = /^(0|[1-9][0-9]{0,8})$/;
+const MAX_BEADS_PER_ATOM = 16;
+
+export function checkBead(id: string, value: unknown): DocProblem | null {
+  const path = `beads.${id}`;
+  if (value === undefined) return null; // deleted
+  if (id.length === 0 || id.length > BEAD_ID_MAX) return problem('wrong_type', path, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
+  if (!(value instanceof Y.Map)) return problem('wrong_type', path, 'A bead must be a Y.Map.');
+  if ((value as unknown as { _start: unknown })._start !== null) return problem('wrong_type', path, 'A bead holds no list content.');
+  for (const key of value.keys()) {
+    if (!(BEAD_KEYS as readonly string[]).includes(key)) return problem('unknown_key', `${path}.${key}`, `A bead has only ${BEAD_KEYS.join(', ')}; "${key}" is not allowed.`);
+  }
+  const name = value.get('name');
+  if (typeof name !== 'string' || name.trim().length === 0 || name.length > BEAD_NAME_MAX) {
+    return problem('wrong_type', `${path}.name`, `A bead name is text of 1 to ${BEAD_NAME_MAX} characters.`);
+  }
+  const type = value.get('type');
+  if (type !== null && (typeof type !== 'string' || type.length > BEAD_TYPE_MAX)) {
+    return problem('wrong_type', `${path}.type`, `A bead type is null or text of at most ${BEAD_TYPE_MAX} characters.`);
+  }
+  const centre = value.get('centre');
+  if (!CENTRE_RULES.includes(centre as never)) return problem('wrong_type', `${path}.centre`, `The centre rule is one of ${CENTRE_RULES.join(', ')}.`);
+  return null;
+}
+
+export function checkAtom(key: string, value: unknown, atomCount: number): DocProblem | null {
+  const path = `atoms.${key}`;
+  if (!INDEX.test(key)) return problem('wrong_type', path, `Atom keys are atom indices written as decimal numbers; "${key}" is not.`);
+  if (Number(key) >= atomCount) return problem('atom_out_of_range', path, `Atom ${key} does not exist: the molecule has atoms 0 to ${atomCount - 1}.`);
+  if (value === undefined) return null; // deleted
+  if (typeof value !== 'object' || value === null || Array.isArray(value) || value instanceof Uint8Array || value instanceof Y.AbstractType) {
+    return problem('wrong_type', path, 'An atom entry is a plain object of bead id → weight.');
+  }
+  const entries = Object.entries(value);
+  if (entries.length === 0) return problem('wrong_type', path, 'An atom entry names at least one bead; delete the entry to unassign the atom.');
+  if (entries.length > MAX_BEADS_PER_ATOM) return problem('wrong_type', path, `An atom is shared by at most ${MAX_BEADS_PER_ATOM} beads.`);
+  for (const [beadId, weight] of entries) {
+    if (beadId.length === 0 || beadId.length > BEAD_ID_MAX) return problem('wrong_type', `${path}.${beadId}`, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
+    if (typeof weight !== 'number' || !Number.isFinite(weight)) return problem('wrong_type', `${path}.${beadId}`, 'A weight is a number.');
+    if (!(weight > 0 && weight <= 1)) return problem('weight_out_of_range', `${path}.${beadId}`, `A weight lies in (0, 1]; got ${weight}.`);
+  }
+  return null;
+}
+
+function checkTopLevel(doc: Y.Doc): DocProblem | null {
+  for (const [name, type] of doc.share) {
+    if (name !== BEADS && name !== ATOMS) return problem('unknown_key', name, `The draft has only "${BEADS}" and "${ATOMS}" at the top; "${name}" is not allowed.`);
+    if ((type as unknown as { _start: unknown })._start !== null) return problem('wrong_type', name, `"${name}" is a map, not a list.`);
+  }
+  return null;
+}
+
+/** Walks the whole document. */
+export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
+  const top = checkTopLevel(doc);
+  if (top) return top;
+  for (const [id, value] of beadsOf(doc).entries()) {
+    const p = checkBead(id, value);
+    if (p) return p;
+  }
+  for (const [key, value] of atomsOf(doc).entries()) {
+    const p = checkAtom(key, value, atomCount);
+    if (p) return p;
+  }
+  return null;
+}
+
+/**
+ * Applies `update` to `doc` and checks what it changed. On a problem, `doc` already holds the bad
+ * update: the caller must throw this copy away and rebuild it from the accepted state.
+ */
+export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, origin?: unknown): DocProblem | null {
+  const transactions: Y.Transaction[] = [];
+  const collect = (tr: Y.Transaction) => void transactions.push(tr);
+  doc.on('afterTransaction', collect);
+  try {
+    Y.applyUpdate(doc, update, origin);
+  } finally {
+    doc.off('afterTransaction', collect);
+  }
+  const top = checkTopLevel(doc);
+  if (top) return top;
+  const beads = beadsOf(doc) as Y.Map<unknown>;
+  const atoms = atomsOf(doc) as Y.Map<unknown>;
+  for (const tr of transactions) {
+    for (const [changed, keys] of tr.changed) {
+      const type = changed as unknown as Y.AbstractType<unknown>;
+      if (keys.has(null)) return problem('wrong_type', pathOf(type), 'The draft holds no list content.');
+      for (const key of keys as Set<string>) {
+        const p =
+          type === (beads as unknown) ? checkBead(key, beads.get(key))
+          : type === (atoms as unknown) ? checkAtom(key, atoms.get(key), atomCount)
+          : nestedBead(type, beads);
+        if (p) return p;
+      }
+    }
+  }
+  return null;
+}
+
+function nestedBead(type: Y.AbstractType<unknown>, beads: Y.Map<unknown>): DocProblem | null {
+  const item = type._item;
+  if (item && item.parent === beads && typeof item.parentSub === 'string') return checkBead(item.parentSub, beads.get(item.parentSub));
+  return problem('wrong_type', pathOf(type), 'Only beads may hold nested maps.');
+}
+
+function pathOf(type: Y.AbstractType<unknown>): string {
+  const sub = type._item?.parentSub;
+  return sub ? `…${sub}` : 'document';
+}

@@ -1,0 +1,51 @@
+import { z } from 'zod';
+import { NAME_MAX } from './fields';
+import type { Evaluation, Mapping, Resolution } from './chem';
+
+// Mappings of a molecule. The draft itself is a live Yjs document (mapping-doc.ts) edited over
+// /collab/:mappingId; REST creates mappings, edits their metadata and reads the draft for non-editors.
+
+export const RESOLUTIONS = ['4:1', '3:1', '2:1'] as const satisfies readonly Resolution[];
+export const resolution = z.enum(RESOLUTIONS, 'Choose a resolution of 4:1, 3:1 or 2:1.');
+
+const name = z.string().trim().min(1, 'Enter a mapping name.').max(NAME_MAX, `A name has at most ${NAME_MAX} characters.`);
+const description = z.string().trim().max(5000, 'A description has at most 5000 characters.');
+
+export const createMappingBody = z.strictObject({
+  name,
+  resolution,
+  description: description.optional(),
+  /** Start as a copy of this mapping's current draft (same molecule). */
+  copyOf: z.number().int().positive().optional(),
+});
+export type CreateMappingBody = z.infer<typeof createMappingBody>;
+
+export const updateMappingBody = z
+  .strictObject({ name, resolution, description })
+  .partial()
+  .refine((b) => Object.keys(b).length > 0, 'Change at least one field.');
+export type UpdateMappingBody = z.infer<typeof updateMappingBody>;
+
+export interface MappingSummary {
+  id: number;
+  moleculeId: number;
+  projectId: number;
+  name: string;
+  resolution: Resolution;
+  description: string;
+  /** True while a production version is locked: the draft is read-only for everyone. */
+  locked: boolean;
+  beadCount: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface MappingDetail extends MappingSummary {
+  /** The draft as the chemistry core reads it (from the live document). */
+  draft: Mapping;
+  /** The evaluation of exactly this draft, or null when it could not be evaluated (see `evaluationError`). */
+  evaluation: Evaluation | null;
+  evaluationError: { code: string; message: string } | null;
+  /** Whether the caller may edit the draft live (role and lock). */
+  canEdit: boolean;
+}
