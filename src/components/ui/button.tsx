@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes } from 'react';
+import type { ButtonHTMLAttributes, Ref } from 'react';
 import { cn } from '../../lib/cn';
 
 const variants = {
@@ -14,6 +14,7 @@ const sizes = {
 } as const;
 
 export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
+  ref?: Ref<HTMLButtonElement>;
   variant?: keyof typeof variants;
   size?: keyof typeof sizes;
   /** While true the button is disabled and says `pendingText` instead. */

@@ -18,6 +18,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (response: LoginRespons
         label="E-mail"
         type="email"
         autoComplete="username"
+        autoFocus
         {...form.field('email')}
       />
       <TextField

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import type { Member } from '../../../shared/projects';
 import { PROJECT_ROLES, ROLE_LABELS, type ProjectRole } from '../../../shared/roles';
 import { Badge } from '../../../components/ui/badge';
@@ -20,6 +20,12 @@ export function MemberRow({ projectId, member, isSelf, canManage }: MemberRowPro
   const changeRole = useChangeMemberRole(projectId);
   const remove = useRemoveMember(projectId);
   const [confirming, setConfirming] = useState(false);
+  const removeButton = useRef<HTMLButtonElement>(null);
+  // Keyboard users land back where they were when they step out of the question.
+  const keep = () => {
+    setConfirming(false);
+    requestAnimationFrame(() => removeButton.current?.focus());
+  };
   const name = member.displayName || member.email;
   const error = changeRole.error ?? remove.error;
 
@@ -52,7 +58,7 @@ export function MemberRow({ projectId, member, isSelf, canManage }: MemberRowPro
             <RoleBadge role={member.role} />
           )}
           {canManage && !confirming && (
-            <Button variant="danger" size="sm" aria-label={`Remove ${name}`} onClick={() => setConfirming(true)}>
+            <Button ref={removeButton} variant="danger" size="sm" aria-label={`Remove ${name}`} onClick={() => setConfirming(true)}>
               Remove
             </Button>
           )}
@@ -70,7 +76,7 @@ export function MemberRow({ projectId, member, isSelf, canManage }: MemberRowPro
           >
             Yes, remove
           </Button>
-          <Button variant="ghost" size="sm" onClick={() => setConfirming(false)}>
+          <Button variant="ghost" size="sm" autoFocus onClick={keep}>
             Keep
           </Button>
         </div>
