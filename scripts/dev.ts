@@ -44,6 +44,6 @@ const stop = async () => {
   await mariadb.stop();
   process.exit(0);
 };
-process.once('SIGINT', () => void stop());
-process.once('SIGTERM', () => void stop());
+process.on('SIGINT', () => void stop());
+process.on('SIGTERM', () => void stop());
 for (const c of children) c.on('exit', () => void stop());

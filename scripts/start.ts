@@ -29,8 +29,8 @@ async function stopAll(code: number, server?: { stop(): Promise<void> }) {
   console.log('[beadloom] stopped.');
   process.exit(code);
 }
-process.once('SIGINT', () => void stopAll(0));
-process.once('SIGTERM', () => void stopAll(0));
+process.on('SIGINT', () => void stopAll(0));
+process.on('SIGTERM', () => void stopAll(0));
 
 try {
   const db = createDb(mariadb.url);
@@ -51,8 +51,8 @@ try {
   const server = await startServer(config, process.env.HOST ?? '127.0.0.1');
   process.removeAllListeners('SIGINT');
   process.removeAllListeners('SIGTERM');
-  process.once('SIGINT', () => void stopAll(0, server));
-  process.once('SIGTERM', () => void stopAll(0, server));
+  process.on('SIGINT', () => void stopAll(0, server));
+  process.on('SIGTERM', () => void stopAll(0, server));
 
   console.log(`\nBeadloom is running at ${config.appUrl}${seeded ? ' (demo data seeded)' : ''}`);
   if (server.ctx.mailSinkInUse) console.log(`Caught e-mail: ${config.appUrl}/dev/mail`);

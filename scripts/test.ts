@@ -21,8 +21,8 @@ async function cleanUp(code: number): Promise<never> {
   rmSync(dir, { recursive: true, force: true });
   process.exit(code);
 }
-process.once('SIGINT', () => void cleanUp(130));
-process.once('SIGTERM', () => void cleanUp(143));
+process.on('SIGINT', () => void cleanUp(130));
+process.on('SIGTERM', () => void cleanUp(143));
 
 let code = 1;
 try {

@@ -3,7 +3,7 @@
 // client command gets --no-defaults first, and the server --user=root when we are root.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
-import { join } from 'node:path';
+import { join, resolve } from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { ensureMariaDbServer, findBinary } from './system-packages';
 
@@ -25,7 +25,9 @@ const isRoot = process.getuid?.() === 0;
 
 export async function startMariaDb(options: MariaDbOptions): Promise<RunningMariaDb> {
   const bins = ensureMariaDbServer();
-  const { dataDir, port } = options;
+  // Absolute: mariadb-install-db runs from its own base directory.
+  const dataDir = resolve(options.dataDir);
+  const { port } = options;
   const dbDir = join(dataDir, 'db');
   const socket = join(dataDir, 'mariadb.sock');
   const pidFile = join(dataDir, 'mariadb.pid');
