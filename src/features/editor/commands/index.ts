@@ -1,0 +1,12 @@
+import { beadCommands } from './bead-commands';
+import { historyCommands, selectionCommands, viewCommands } from './other-commands';
+import type { EditorCommand } from './registry';
+
+/** Every editor command, in the order the help overlay lists them. */
+export const editorCommands: readonly EditorCommand[] = [...beadCommands, ...selectionCommands, ...historyCommands, ...viewCommands];
+
+export const commandNamed = (name: string): EditorCommand => {
+  const found = editorCommands.find((c) => c.name === name);
+  if (!found) throw new Error(`No editor command ${name}.`);
+  return found;
+};
