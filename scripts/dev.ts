@@ -2,29 +2,16 @@
 // `tsx watch` (restarts on change, port 4821) and the Vite dev server (port
 // 4820, proxying /api, /dev and /collab to it).
 import { spawn } from 'node:child_process';
-import { startMariaDb } from './lib/mariadb';
-import { persistentSecret } from './lib/secrets';
+import { startLocalDatabase, sessionSecret } from './lib/local-db';
 import { bin } from './lib/run';
-import { createDb, migrateLatest } from '../server/db/knex';
-import { seedDemo } from '../seeds/demo';
 
-const mariadb = await startMariaDb({
-  dataDir: '.data/mariadb',
-  port: Number(process.env.DB_PORT ?? 4830),
-  database: 'beadloom',
-  user: 'beadloom',
-  password: persistentSecret('.data/db-password'),
-});
-const db = createDb(mariadb.url);
-await migrateLatest(db);
-await seedDemo(db, 12);
-await db.destroy();
+const { mariadb } = await startLocalDatabase(true);
 
 const webPort = process.env.PORT ?? '4820';
 const env = {
   ...process.env,
   DATABASE_URL: mariadb.url,
-  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret('.data/session-secret', 48),
+  SESSION_SECRET: sessionSecret(),
   PORT: '4821',
   APP_URL: `http://localhost:${webPort}`,
   CLIENT_DIR: '',

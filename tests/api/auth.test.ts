@@ -10,6 +10,7 @@ beforeAll(async () => {
 });
 afterAll(() => t.stop());
 
+const cookies = (h: string | string[] | undefined): string[] => (Array.isArray(h) ? h : h ? [h] : []);
 const tokenFrom = (text: string) => /token=([A-Za-z0-9_-]+)/.exec(text)?.[1] ?? '';
 
 describe('sign-in', () => {
@@ -25,10 +26,10 @@ describe('sign-in', () => {
   it('sets an httpOnly SameSite=Lax session cookie and changes the session id at sign-in', async () => {
     const c = new ApiClient(t.app);
     const before = await c.agent.get('/api/auth/csrf');
-    const sidBefore = before.headers['set-cookie']?.find((h: string) => h.startsWith(SESSION_COOKIE)) ?? '';
+    const sidBefore = cookies(before.headers['set-cookie']).find((h: string) => h.startsWith(SESSION_COOKIE)) ?? '';
     c.csrf = before.body.token;
     const login = await c.post('/api/auth/login', { email: 'modeller@example.org', password: 'beadloom-demo' }).expect(200);
-    const sidAfter = login.headers['set-cookie']?.find((h: string) => h.startsWith(SESSION_COOKIE)) ?? '';
+    const sidAfter = cookies(login.headers['set-cookie']).find((h: string) => h.startsWith(SESSION_COOKIE)) ?? '';
     expect(sidAfter).toMatch(/HttpOnly/i);
     expect(sidAfter).toMatch(/SameSite=Lax/i);
     expect(sidAfter.split(';')[0]).not.toEqual(sidBefore.split(';')[0]);
