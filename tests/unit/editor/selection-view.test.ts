@@ -55,3 +55,18 @@ describe('viewport', () => {
     expect(z.k).toBe(6);
   });
 });
+
+describe('atom cursor', () => {
+  it('follows bonds in the arrow direction, else jumps to the nearest atom that way', async () => {
+    const { nextAtom } = await import('../../../src/features/editor/model/atom-cursor');
+    //   0 — 1 — 2        3 (unbonded, far right)
+    //       |
+    //       4
+    const pts = [{ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 2, y: 0.2 }, { x: 5, y: 0 }, { x: 1, y: 1 }];
+    const nb = [[1], [0, 2, 4], [1], [], [1]];
+    expect(nextAtom(pts, nb, 1, 'right')).toBe(2);
+    expect(nextAtom(pts, nb, 1, 'down')).toBe(4);
+    expect(nextAtom(pts, nb, 2, 'right')).toBe(3);
+    expect(nextAtom(pts, nb, 0, 'left')).toBe(0);
+  });
+});

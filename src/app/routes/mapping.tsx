@@ -1,0 +1,46 @@
+import { useParams } from 'react-router';
+import { ErrorAlert } from '../../components/ui/alert';
+import { Loading } from '../../components/ui/loading';
+import { TextLink } from '../../components/ui/text-link';
+import { useBeadTypes } from '../../features/bead-types/api/get-bead-types';
+import { LiveMapping } from '../../features/editor/components/live-mapping';
+import { useMapping } from '../../features/mappings/api/get-mapping';
+import { useMolecule } from '../../features/molecules/api/get-molecule';
+import { useDocumentTitle } from '../../hooks/use-document-title';
+import { isApiError } from '../../lib/api-client';
+import { paths } from '../../lib/paths';
+import { NotFoundRoute } from './not-found';
+
+export function MappingRoute() {
+  const mappingId = Number(useParams().mappingId);
+  return Number.isInteger(mappingId) && mappingId > 0 ? <MappingPage mappingId={mappingId} /> : <NotFoundRoute />;
+}
+
+function MappingPage({ mappingId }: { mappingId: number }) {
+  const mapping = useMapping(mappingId);
+  const molecule = useMolecule(mapping.data?.moleculeId ?? 0, mapping.isSuccess);
+  const library = useBeadTypes(mapping.data?.projectId ?? 0, mapping.isSuccess);
+  useDocumentTitle(mapping.data && molecule.data ? `${mapping.data.name} · ${molecule.data.name}` : undefined);
+
+  const failed = [mapping, molecule, library].find((q) => q.isError);
+  if (failed) return isApiError(failed.error) && failed.error.status === 404 ? <NotFoundRoute /> : <ErrorAlert error={failed.error} />;
+  if (!mapping.data || !molecule.data || !library.data) return <Loading label="Loading the mapping…" />;
+
+  return (
+    // The editor wants the whole window: it steps out of the shell's reading-width column.
+    <div className="relative left-1/2 flex w-[calc(100vw-2rem)] max-w-[112rem] -translate-x-1/2 flex-col gap-3">
+      <header className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
+        <nav aria-label="Breadcrumb" className="text-sm text-ink-600">
+          <TextLink to={paths.project(mapping.data.projectId)}>Project</TextLink>
+          <span aria-hidden="true"> / </span>
+          <TextLink to={paths.molecule(molecule.data.id)}>{molecule.data.name}</TextLink>
+          <span aria-hidden="true"> / </span>
+        </nav>
+        <h1 className="text-2xl font-bold text-ink-900">{mapping.data.name}</h1>
+        <span className="rounded-full bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-800">{mapping.data.resolution} target</span>
+        {mapping.data.locked && <span className="rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Production version locked</span>}
+      </header>
+      <LiveMapping mapping={mapping.data} molecule={molecule.data.model} library={library.data.types} />
+    </div>
+  );
+}

@@ -1,0 +1,77 @@
+import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from '@xyflow/react';
+import '@xyflow/react/dist/style.css';
+import { memo, useMemo } from 'react';
+import type { MappingView } from '../model/bead-view';
+import { textOn } from '../model/contrast';
+import { centroid, type Point } from '../model/hull';
+
+const CENTRE = { top: '50%', left: '50%', transform: 'translate(-50%, -50%)', opacity: 0, border: 0, minWidth: 1, minHeight: 1, width: 1, height: 1 } as const;
+
+type BeadNode = Node<{ name: string; colour: string; active: boolean }, 'bead'>;
+
+const BeadNodeView = memo(function BeadNodeView({ data }: NodeProps<BeadNode>) {
+  return (
+    <div
+      className="flex size-11 items-center justify-center rounded-full border-2 text-xs font-bold shadow-card"
+      style={{ background: data.colour, color: textOn(data.colour), borderColor: data.active ? '#0e3030' : '#fdfbf6' }}
+      data-graph-bead={data.name}
+    >
+      {data.name}
+      {/* Both ends of every edge sit at the node's centre, so bonds read as centre-to-centre lines. */}
+      <Handle type="target" position={Position.Top} style={CENTRE} isConnectable={false} />
+      <Handle type="source" position={Position.Bottom} style={CENTRE} isConnectable={false} />
+    </div>
+  );
+});
+
+const nodeTypes = { bead: BeadNodeView };
+const NODE = 44;
+
+/** The CG bead graph: one node per bead at its atoms' 2D centroid, an edge per bead–bead bond. */
+export function BeadGraph({ view, points, activeBead, onSelectBead }: { view: MappingView; points: readonly Point[]; activeBead: string | null; onSelectBead(id: string): void }) {
+  const nodes = useMemo<BeadNode[]>(
+    () =>
+      view.beads
+        .filter((b) => b.atoms.length > 0)
+        .map((b) => {
+          const c = centroid(b.atoms.map((a) => points[a.index]).filter(Boolean));
+          return {
+            id: b.id,
+            type: 'bead',
+            position: { x: c.x * 1.6 - NODE / 2, y: c.y * 1.6 - NODE / 2 },
+            data: { name: b.name, colour: b.colour, active: b.id === activeBead },
+            selected: b.id === activeBead,
+            ariaLabel: `Bead ${b.name}`,
+          };
+        }),
+    [view, points, activeBead],
+  );
+  const edges = useMemo<Edge[]>(
+    () => view.links.map(([p, q]) => ({ id: `${p}-${q}`, source: p, target: q, type: 'straight', style: { stroke: '#174c4a', strokeWidth: 2.5 }, zIndex: -1 })),
+    [view],
+  );
+
+  return (
+    <div className="h-full min-h-56" aria-label="Bead graph" role="region">
+      <ReactFlow
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        nodesDraggable={false}
+        nodesConnectable={false}
+        edgesFocusable={false}
+        fitView
+        fitViewOptions={{ padding: 0.25 }}
+        key={nodes.length === 0 ? 'empty' : 'beads'}
+        minZoom={0.2}
+        onNodeClick={(_e, node) => onSelectBead(node.id)}
+        onNodesChange={(changes) => {
+          for (const c of changes) if (c.type === 'select' && c.selected) onSelectBead(c.id);
+        }}
+      >
+        <Background gap={24} color="#e2d7bf" />
+        <Controls showInteractive={false} position="bottom-right" />
+      </ReactFlow>
+    </div>
+  );
+}

@@ -1,0 +1,114 @@
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { useMemo } from 'react';
+import type { BeadEvaluation, Evaluation } from '../../../shared/chem';
+import { setType } from '../../../shared/mapping-doc';
+import type { EditorContext } from '../commands/registry';
+import type { BeadView } from '../model/bead-view';
+import { formatFixed, formatMass, formatSigned } from '../model/number-format';
+
+interface Row {
+  bead: BeadView;
+  ev: BeadEvaluation | undefined;
+}
+
+const col = createColumnHelper<Row>();
+const CENTRE_LABEL = { mass: 'Mass', geometry: 'Geometry', 'geometry-heavy': 'Geometry (heavy)' } as const;
+
+/** One row per bead with the server's live numbers; a row press selects the bead. */
+export function BeadTable({ ctx, evaluation, onSelectBead }: { ctx: EditorContext; evaluation: Evaluation | null; onSelectBead(id: string): void }) {
+  const rows = useMemo(() => {
+    const byId = new Map(evaluation?.beads.map((b) => [b.id, b]));
+    return ctx.view.beads.map((bead) => ({ bead, ev: byId.get(bead.id) }));
+  }, [ctx.view, evaluation]);
+
+  const columns = useMemo(
+    () => [
+      col.accessor((r) => r.bead.name, {
+        id: 'name',
+        header: 'Bead',
+        cell: ({ row }) => (
+          <span className="flex items-center gap-2 font-semibold">
+            <span aria-hidden="true" className="size-3 shrink-0 rounded-full" style={{ background: row.original.bead.colour }} />
+            {row.original.bead.name}
+          </span>
+        ),
+      }),
+      col.accessor((r) => r.bead.type ?? '', { id: 'type', header: 'Type', cell: (c) => c.getValue() || <span className="text-ink-400">none</span> }),
+      col.accessor((r) => r.ev?.heavyAtoms, { id: 'heavy', header: 'Heavy atoms', cell: (c) => formatFixed(c.getValue(), 2).replace(/\.00$/, '') }),
+      col.accessor((r) => r.ev?.mass, { id: 'mass', header: 'Mass (g/mol)', cell: (c) => formatMass(c.getValue()) }),
+      col.accessor((r) => r.ev?.charge, { id: 'charge', header: 'Charge', cell: (c) => formatSigned(c.getValue(), 0) }),
+      col.accessor((r) => r.ev?.logP, { id: 'logp', header: 'logP', cell: (c) => formatSigned(c.getValue(), 2) }),
+      col.accessor((r) => r.ev?.fragmentLogP, { id: 'fraglogp', header: 'Fragment logP', cell: (c) => formatSigned(c.getValue(), 2) }),
+      col.accessor((r) => r.ev?.deltaG, { id: 'dg', header: 'ΔG_OW (kJ/mol)', cell: (c) => formatSigned(c.getValue(), 1) }),
+      col.accessor((r) => r.ev?.sizeClass ?? null, { id: 'size', header: 'Size class', cell: (c) => c.getValue() ?? '–' }),
+      col.display({
+        id: 'suggested',
+        header: 'Suggested type',
+        cell: ({ row }) => <Suggestion ctx={ctx} row={row.original} />,
+      }),
+      col.accessor((r) => r.bead.centre, { id: 'centre', header: 'Centre', cell: (c) => CENTRE_LABEL[c.getValue()] }),
+    ],
+    [ctx],
+  );
+
+  const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.bead.id });
+
+  if (rows.length === 0) return <p className="py-6 text-center text-sm text-ink-600">No beads yet. Select atoms on the drawing and press <strong>Make bead</strong> (B).</p>;
+  return (
+    <div className="overflow-x-auto">
+      <table aria-label="Beads" className="w-full border-collapse text-sm">
+        <thead>
+          {table.getHeaderGroups().map((g) => (
+            <tr key={g.id} className="border-b border-paper-300 text-left text-xs text-ink-600">
+              {g.headers.map((h) => (
+                <th key={h.id} scope="col" className="px-2 py-1.5 font-semibold whitespace-nowrap">
+                  {flexRender(h.column.columnDef.header, h.getContext())}
+                </th>
+              ))}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((r) => (
+            <tr
+              key={r.id}
+              tabIndex={0}
+              aria-current={ctx.activeBead === r.id || undefined}
+              aria-label={`Bead ${r.original.bead.name}`}
+              onClick={() => onSelectBead(r.id)}
+              onKeyDown={(e) => (e.key === 'Enter' || e.key === ' ') && (e.preventDefault(), onSelectBead(r.id))}
+              className="cursor-pointer border-b border-paper-200 tabular-nums hover:bg-ink-50 aria-[current=true]:bg-ink-100"
+            >
+              {r.getVisibleCells().map((c) => (
+                <td key={c.id} className="px-2 py-1.5 whitespace-nowrap" data-column={c.column.id}>
+                  {flexRender(c.column.columnDef.cell, c.getContext())}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function Suggestion({ ctx, row }: { ctx: EditorContext; row: Row }) {
+  const s = row.ev?.suggestedType;
+  if (!s) return <span className="text-ink-400">–</span>;
+  const fits = row.ev?.suggestedTypeFits !== false;
+  const label = fits ? s : `${s} (nearest)`;
+  if (ctx.readOnly || row.bead.type === s) return <span>{label}</span>;
+  return (
+    <button
+      type="button"
+      onClick={(e) => {
+        e.stopPropagation();
+        setType(ctx.doc, row.bead.id, s, ctx.origin);
+      }}
+      className="rounded border border-ink-300 bg-paper-50 px-1.5 py-0.5 text-xs font-semibold text-ink-800 hover:bg-ink-50"
+      aria-label={`Use suggested type ${s} for bead ${row.bead.name}`}
+    >
+      Use {label}
+    </button>
+  );
+}

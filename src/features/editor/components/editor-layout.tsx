@@ -1,0 +1,101 @@
+import type { KeyboardEvent } from 'react';
+import type { BeadTypeRow } from '../../../shared/bead-types';
+import type { Check, Evaluation, Molecule } from '../../../shared/chem';
+import type { SessionSnapshot } from '../collab/mapping-session';
+import type { useEditorState } from '../hooks/use-editor-state';
+import type { MappingView } from '../model/bead-view';
+import type { Peer } from '../model/presence';
+import { BeadGraph } from './bead-graph';
+import { BeadInspector } from './bead-inspector';
+import { BeadTable } from './bead-table';
+import { ChecksPanel } from './checks-panel';
+import { EditorToolbar } from './editor-toolbar';
+import { MoleculeCanvas } from './molecule-canvas';
+import { Panel } from './panel';
+import { ConnectionBadge, PresenceList } from './presence-bar';
+import { ShortcutHelp } from './shortcut-help';
+import { TotalsBar } from './totals-bar';
+
+interface EditorLayoutProps {
+  onKeyDown(e: KeyboardEvent): void;
+  state: ReturnType<typeof useEditorState>;
+  snapshot: SessionSnapshot;
+  peers: readonly Peer[];
+  molecule: Molecule;
+  view: MappingView;
+  evaluation: Evaluation | null;
+  library: readonly BeadTypeRow[];
+  unassigned: number;
+  readOnlyReason: 'role' | 'locked' | null;
+  activeCheck: Check | null;
+  onShowCheck(check: Check | null): void;
+}
+
+const READ_ONLY_TEXT = { role: 'Students watch the draft live; editing is for modellers and supervisors.', locked: 'A production version is locked, so the draft is read-only until a supervisor unlocks it.' };
+
+export function EditorLayout(p: EditorLayoutProps) {
+  const { state, view } = p;
+  const active = state.activeBead ? view.byId.get(state.activeBead) : undefined;
+  const points = state.drawing.atoms;
+  return (
+    <div onKeyDown={p.onKeyDown} className="flex flex-col gap-3">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <TotalsBar molecule={p.molecule} beadCount={view.beads.length} unassigned={p.unassigned} />
+        <div className="flex items-center gap-3">
+          <PresenceList peers={p.peers} />
+          <ConnectionBadge state={p.snapshot.connection} reason={p.snapshot.closedReason} />
+        </div>
+      </div>
+      {p.readOnlyReason && <p className="rounded-md border border-ink-200 bg-ink-50 px-3 py-1.5 text-sm text-ink-800">{READ_ONLY_TEXT[p.readOnlyReason]}</p>}
+      <EditorToolbar ctx={state.ctx} showHydrogens={state.showHydrogens} />
+      <div className="grid gap-3 xl:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="h-[34rem] overflow-hidden rounded-lg border border-paper-300 shadow-card">
+          <MoleculeCanvas
+            drawing={state.drawing}
+            neighbours={state.neighbours}
+            view={view}
+            selection={state.selection}
+            highlight={state.highlight}
+            peers={p.peers}
+            activeBead={state.activeBead}
+            cursor={state.cursor}
+            setCursor={state.setCursor}
+            viewport={state.viewport}
+            setViewport={state.setViewport}
+            onSize={state.onSize}
+            gestures={state.gestures}
+            readOnly={state.ctx.readOnly}
+          />
+        </div>
+        <div className="flex flex-col gap-3">
+          <Panel title={active ? 'Active bead' : 'Selection'}>
+            {active ? (
+              <BeadInspector
+                ctx={state.ctx}
+                bead={active}
+                evaluation={p.evaluation?.beads.find((b) => b.id === active.id)}
+                library={p.library}
+                renaming={state.renaming === active.id}
+                onRenamed={() => state.setRenaming(null)}
+              />
+            ) : (
+              <p className="text-sm text-ink-700">
+                {state.selection.size ? `${state.selection.size} atom${state.selection.size === 1 ? '' : 's'} selected.` : 'Nothing selected. Click atoms, drag a box, or press ? for shortcuts.'}
+              </p>
+            )}
+          </Panel>
+          <Panel title="Bead graph" className="h-64 p-0">
+            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={(id) => state.selectBead(id, false)} />
+          </Panel>
+          <Panel title="Checks">
+            <ChecksPanel checks={p.evaluation?.checks ?? null} active={p.activeCheck} onShow={p.onShowCheck} />
+          </Panel>
+        </div>
+      </div>
+      <Panel title="Beads">
+        <BeadTable ctx={state.ctx} evaluation={p.evaluation} onSelectBead={(id) => state.selectBead(id, false)} />
+      </Panel>
+      {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
+    </div>
+  );
+}

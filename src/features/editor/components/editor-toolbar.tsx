@@ -1,0 +1,42 @@
+import { editorCommands } from '../commands';
+import { isAvailable, run, type CommandGroup, type EditorContext } from '../commands/registry';
+import { Kbd } from './kbd';
+
+const GROUPS: { group: CommandGroup; label: string; only?: string[] }[] = [
+  { group: 'beads', label: 'Bead editing' },
+  { group: 'history', label: 'History' },
+  { group: 'view', label: 'View', only: ['toggle-hydrogens', 'fit-view', 'zoom-in', 'zoom-out', 'show-shortcuts'] },
+];
+
+/** The toolbar: the same registered commands the keyboard runs, disabled where they would not apply. */
+export function EditorToolbar({ ctx, showHydrogens }: { ctx: EditorContext; showHydrogens: boolean }) {
+  return (
+    <div role="toolbar" aria-label="Mapping tools" className="flex flex-wrap items-center gap-x-3 gap-y-2">
+      {GROUPS.map(({ group, label, only }) => (
+        <div key={group} role="group" aria-label={label} className="flex flex-wrap items-center gap-1 border-r border-paper-300 pr-3 last:border-r-0">
+          {editorCommands
+            .filter((c) => c.group === group && (!only || only.includes(c.name)))
+            .filter((c) => !(ctx.readOnly && c.edits))
+            .map((c) => {
+              const pressed = c.name === 'toggle-hydrogens' ? showHydrogens : undefined;
+              return (
+                <button
+                  key={c.name}
+                  type="button"
+                  disabled={!isAvailable(c, ctx)}
+                  aria-pressed={pressed}
+                  aria-keyshortcuts={c.shortcut?.replace(/ /g, '+').replace('Del', 'Delete').replace('Esc', 'Escape')}
+                  title={c.shortcut ? `${c.label} (${c.shortcut})` : c.label}
+                  onClick={() => run(c, ctx)}
+                  className="inline-flex items-center gap-1.5 rounded-md border border-transparent px-2 py-1 text-sm font-semibold text-ink-800 hover:border-ink-200 hover:bg-ink-50 disabled:cursor-not-allowed disabled:text-ink-300 aria-pressed:border-ink-300 aria-pressed:bg-ink-100"
+                >
+                  {c.label}
+                  {c.shortcut && <Kbd muted>{c.shortcut}</Kbd>}
+                </button>
+              );
+            })}
+        </div>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,32 @@
+import { useEffect } from 'react';
+import type { BeadTypeRow } from '../../../shared/bead-types';
+import type { Molecule } from '../../../shared/chem';
+import type { MappingDetail } from '../../../shared/mappings';
+import { useMappingSession, useSessionSnapshot } from '../hooks/use-mapping-session';
+import type { MappingSession } from '../collab/mapping-session';
+import { MappingEditor } from './mapping-editor';
+
+interface LiveMappingProps {
+  mapping: MappingDetail;
+  molecule: Molecule;
+  library: readonly BeadTypeRow[];
+}
+
+/** Opens the live draft of a mapping and shows the editor on it. */
+export function LiveMapping(props: LiveMappingProps) {
+  const { session, reload } = useMappingSession(props.mapping.id);
+  if (!session) return <p className="text-sm text-ink-600">Opening the live draft…</p>;
+  return <ReloadOnRefusal session={session} reload={reload} {...props} />;
+}
+
+function ReloadOnRefusal({ session, reload, ...props }: LiveMappingProps & { session: MappingSession; reload(): void }) {
+  const { refusals, refused } = useSessionSnapshot(session);
+  useEffect(() => {
+    // The server refused one of our updates and kept its document: start over from it.
+    if (refusals > 0) {
+      console.warn(`Beadloom: an edit was refused (${refused?.message ?? 'no reason given'}); reloading the draft.`);
+      reload();
+    }
+  }, [refusals, refused, reload]);
+  return <MappingEditor session={session} {...props} />;
+}

@@ -1,0 +1,64 @@
+import { useMemo, useState, type KeyboardEvent } from 'react';
+import type { BeadTypeRow } from '../../../shared/bead-types';
+import type { Check, Molecule } from '../../../shared/chem';
+import type { MappingDetail } from '../../../shared/mappings';
+import type { MappingSession } from '../collab/mapping-session';
+import { editorCommands } from '../commands';
+import { commandForKey, run } from '../commands/registry';
+import { useEditorState } from '../hooks/use-editor-state';
+import { useSessionSnapshot } from '../hooks/use-mapping-session';
+import { useMappingView } from '../hooks/use-mapping-view';
+import { usePeers } from '../hooks/use-peers';
+import { unassignedAtoms } from '../model/bead-view';
+import { EditorLayout } from './editor-layout';
+
+interface MappingEditorProps {
+  session: MappingSession;
+  mapping: MappingDetail;
+  molecule: Molecule;
+  library: readonly BeadTypeRow[];
+}
+
+const typing = (el: EventTarget) => el instanceof HTMLElement && (el.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(el.tagName));
+
+/** The live mapping editor: wires the session, the document view and the editor state to the panels. */
+export function MappingEditor({ session, mapping, molecule, library }: MappingEditorProps) {
+  const snapshot = useSessionSnapshot(session);
+  const view = useMappingView(session.doc, molecule.bonds);
+  const peers = usePeers(session, molecule.atoms.length);
+  const evaluation = snapshot.evaluation ? snapshot.evaluation.evaluation : mapping.evaluation;
+  const readOnly = !mapping.canEdit || snapshot.session === null || snapshot.session.readOnly || !snapshot.synced;
+  const suggestions = useMemo(() => new Map(evaluation?.beads.map((b) => [b.id, b.suggestedType]) ?? []), [evaluation]);
+  const state = useEditorState(session, molecule, view, readOnly, suggestions);
+  const [activeCheck, setActiveCheck] = useState<Check | null>(null);
+
+  const onKeyDown = (e: KeyboardEvent) => {
+    if (typing(e.target) || state.helpOpen) return;
+    const command = commandForKey(editorCommands, e);
+    if (!command) return;
+    e.preventDefault();
+    run(command, state.ctx);
+  };
+
+  const showCheck = (check: Check | null) => {
+    setActiveCheck(check);
+    state.setHighlight(check?.atoms ?? []);
+  };
+
+  return (
+    <EditorLayout
+      onKeyDown={onKeyDown}
+      state={state}
+      snapshot={snapshot}
+      peers={peers}
+      molecule={molecule}
+      view={view}
+      evaluation={evaluation}
+      library={library}
+      unassigned={unassignedAtoms(view, molecule.atoms.length).length}
+      readOnlyReason={!mapping.canEdit ? (mapping.locked ? 'locked' : 'role') : (snapshot.session?.readOnlyReason ?? null)}
+      activeCheck={activeCheck}
+      onShowCheck={showCheck}
+    />
+  );
+}

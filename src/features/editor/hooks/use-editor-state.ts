@@ -1,0 +1,130 @@
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import type { Molecule } from '../../../shared/chem';
+import type { MappingSession } from '../collab/mapping-session';
+import type { EditorContext } from '../commands/registry';
+import type { GestureHandlers } from './use-canvas-gestures';
+import type { MappingView } from '../model/bead-view';
+import { layoutMolecule } from '../model/layout';
+import { atomsInBox, clickAtom, EMPTY, selectMany, type Selection } from '../model/selection';
+import { fitView, zoomAt, type Viewport } from '../model/viewport';
+
+/**
+ * The editor's own state (what I have selected, the active bead, zoom, panels) and the command
+ * context built from it. The draft itself lives in the Yjs document, never here.
+ */
+export function useEditorState(session: MappingSession, molecule: Molecule, view: MappingView, readOnly: boolean, suggestions: ReadonlyMap<string, string | null>) {
+  const [selection, setSelectionState] = useState<Selection>(EMPTY);
+  const [activeBead, setActiveBead] = useState<string | null>(null);
+  const [cursor, setCursor] = useState<number | null>(null);
+  const [showHydrogens, setShowHydrogens] = useState(false);
+  const [helpOpen, setHelpOpen] = useState(false);
+  const [renaming, setRenaming] = useState<string | null>(null);
+  const [highlight, setHighlight] = useState<number[]>([]);
+  const [viewport, setViewport] = useState<Viewport>({ x: 0, y: 0, k: 1 });
+  const size = useRef<{ width: number; height: number } | null>(null);
+
+  const drawing = useMemo(() => layoutMolecule(molecule, showHydrogens), [molecule, showHydrogens]);
+  const neighbours = useMemo(() => {
+    const n: number[][] = molecule.atoms.map(() => []);
+    for (const b of molecule.bonds) (n[b.a].push(b.b), n[b.b].push(b.a));
+    return n;
+  }, [molecule]);
+
+  const setSelection = useCallback((next: Selection) => {
+    setSelectionState(next);
+    session.setPresence({ selection: [...next] });
+  }, [session]);
+
+  const fit = useCallback(() => {
+    if (size.current) setViewport(fitView(drawing.bounds, size.current.width, size.current.height, 48, 2.2));
+  }, [drawing]);
+  const fitted = useRef(false);
+  const onSize = useCallback((s: { width: number; height: number }) => {
+    size.current = s;
+    if (!fitted.current && s.width > 0) {
+      fitted.current = true;
+      setViewport(fitView(drawing.bounds, s.width, s.height, 48, 2.2));
+    }
+  }, [drawing]);
+
+  // A bead deleted by anyone stops being active here.
+  useEffect(() => {
+    if (activeBead && !view.byId.has(activeBead)) setActiveBead(null);
+  }, [view, activeBead]);
+  useEffect(() => session.setPresence({ activeBead }), [session, activeBead]);
+
+  const ctx: EditorContext = {
+    doc: session.doc,
+    origin: session.origin,
+    undo: session.undo,
+    readOnly,
+    view,
+    atomCount: molecule.atoms.length,
+    selection,
+    setSelection,
+    activeBead,
+    setActiveBead,
+    suggestions,
+    ui: {
+      toggleHydrogens: () => setShowHydrogens((v) => !v),
+      fit,
+      zoom: (factor) => size.current && setViewport((v) => zoomAt(v, { x: size.current!.width / 2, y: size.current!.height / 2 }, factor)),
+      openHelp: () => setHelpOpen(true),
+      startRename: (id) => {
+        setActiveBead(id);
+        setRenaming(id);
+      },
+    },
+  };
+
+  const sendPointer = useMemo(() => throttle((p: { x: number; y: number } | null) => session.setPresence({ pointer: p }), 40), [session]);
+
+  const selectBead = (beadId: string, additive: boolean) => {
+    const atoms = view.byId.get(beadId)?.atoms.map((a) => a.index) ?? [];
+    setSelection(selectMany(selection, atoms, additive));
+    setActiveBead(beadId);
+  };
+
+  const gestures: GestureHandlers = {
+    onAtom(atom, additive) {
+      setCursor(atom);
+      setSelection(clickAtom(selection, atom, additive));
+      const holder = view.atomBeads.get(atom)?.[0] ?? null;
+      if (!additive) setActiveBead(holder);
+      else if (!activeBead && holder) setActiveBead(holder);
+    },
+    onBead: selectBead,
+    onBox: (box, additive) => setSelection(selectMany(selection, atomsInBox(drawing.atoms, box), additive)),
+    onPaper(additive) {
+      if (additive) return;
+      setSelection(EMPTY);
+      setActiveBead(null);
+    },
+    onPointer: sendPointer,
+  };
+
+  return {
+    ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, viewport, setViewport, onSize, gestures,
+    selectBead, highlight, setHighlight, helpOpen, setHelpOpen, renaming, setRenaming,
+  };
+}
+
+function throttle<T>(fn: (arg: T) => void, ms: number): (arg: T) => void {
+  let last = 0;
+  let pending: ReturnType<typeof setTimeout> | null = null;
+  let latest: T;
+  return (arg: T) => {
+    latest = arg;
+    const wait = last + ms - Date.now();
+    if (wait <= 0) {
+      last = Date.now();
+      fn(latest);
+    } else if (!pending) {
+      pending = setTimeout(() => {
+        pending = null;
+        last = Date.now();
+        fn(latest);
+      }, wait);
+    }
+  };
+}

@@ -1,0 +1,12 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MappingSummary } from '../../../shared/mappings';
+import { api } from '../../../lib/api-client';
+
+export const getMappings = (moleculeId: number) => api.get<MappingSummary[]>(`/api/molecules/${moleculeId}/mappings`);
+
+export const mappingsQueryOptions = (moleculeId: number) =>
+  queryOptions({ queryKey: ['molecules', moleculeId, 'mappings'], queryFn: () => getMappings(moleculeId) });
+
+export function useMappings(moleculeId: number) {
+  return useQuery(mappingsQueryOptions(moleculeId));
+}
