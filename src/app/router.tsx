@@ -4,6 +4,7 @@ import { paths } from '../lib/paths';
 import { queryClient } from './provider';
 import { AccountRoute } from './routes/account';
 import { AdminUsersRoute } from './routes/admin-users';
+import { MappingRoute } from './routes/mapping';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { NotFoundRoute } from './routes/not-found';
 import { ProjectRoute } from './routes/project';
@@ -26,6 +27,7 @@ export const router = createBrowserRouter([
       { index: true, element: <Navigate to={paths.projects} replace /> },
       { path: paths.projects, element: <ProjectsRoute /> },
       { path: '/projects/:projectId', element: <ProjectRoute /> },
+      { path: '/mappings/:mappingId', element: <MappingRoute /> },
       { path: paths.adminUsers, element: <AdminUsersRoute /> },
       { path: paths.account, element: <AccountRoute /> },
       { path: '*', element: <NotFoundRoute /> },

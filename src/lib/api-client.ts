@@ -56,7 +56,9 @@ async function freshCsrfToken(): Promise<string> {
 
 async function send<T>(method: Method, path: string, body: unknown, token: string | null): Promise<T> {
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (body !== undefined) headers['content-type'] = 'application/json';
+  // FormData (file uploads) sets its own multipart content type.
+  const form = body instanceof FormData;
+  if (body !== undefined && !form) headers['content-type'] = 'application/json';
   if (token) headers['x-csrf-token'] = token;
 
   let response: Response;
@@ -65,7 +67,7 @@ async function send<T>(method: Method, path: string, body: unknown, token: strin
       method,
       headers,
       credentials: 'same-origin',
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : form ? body : JSON.stringify(body),
     });
   } catch {
     throw new ApiError(0, 'network_error', 'The server could not be reached. Check your connection and try again.');
@@ -115,5 +117,6 @@ export const api = {
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, body ?? {}),
   put: <T>(path: string, body: unknown) => request<T>('PUT', path, body),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, body),
+  postForm: <T>(path: string, form: FormData) => request<T>('POST', path, form),
   delete: <T = void>(path: string) => request<T>('DELETE', path),
 };

@@ -5,6 +5,9 @@ export const paths = {
   resetPassword: '/reset-password',
   projects: '/projects',
   project: (projectId: number | string) => `/projects/${projectId}`,
+  newMolecule: (projectId: number | string) => `/projects/${projectId}/molecules/new`,
+  molecule: (moleculeId: number | string) => `/molecules/${moleculeId}`,
+  mapping: (mappingId: number | string) => `/mappings/${mappingId}`,
   adminUsers: '/admin/users',
   account: '/account',
 } as const;
