@@ -14,13 +14,17 @@ import { loadRdkit } from './rdkit';
 
 export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
   const rd = await loadRdkit();
-  const { mol, source, warnings } = parseInput(input);
-  const threeD = source === 'molfile' && hasDepth(mol);
+  const { mol, source, declared3D, warnings } = parseInput(input);
+  const threeD = source === 'molfile' && (declared3D || hasDepth(mol));
   const model = buildModel(mol, threeD);
   const { atoms, bonds } = model;
   const molecularWeightValue = molecularWeight(atoms);
-  if (source === 'molfile') {
+  // A SMILES has no coordinates and a 3D molfile's are not a drawing: lay out 2D for those; a 2D
+  // molfile keeps its own drawing.
+  if (source === 'smiles' || threeD || atoms.every((a) => a.x === 0 && a.y === 0)) {
     layout2d(model).forEach((p, i) => Object.assign(atoms[i], p));
+  }
+  if (source === 'molfile') {
     if (threeD && !model.coordinates3d) {
       warnings.push('The molfile is 3D but not every hydrogen is given, so its coordinates are not kept; generate a conformer instead.');
     }

@@ -16,6 +16,8 @@ export type MoleculeInput = { smiles: string } | { molfile: string };
 export interface ParsedInput {
   mol: OclMolecule;
   source: 'smiles' | 'molfile';
+  /** The molfile header declares 3D coordinates (columns 21–22 of line 2). */
+  declared3D: boolean;
   warnings: string[];
 }
 
@@ -43,12 +45,14 @@ function parseSmiles(raw: string): ParsedInput {
   }
   let mol: OclMolecule;
   try {
-    mol = Molecule.fromSmiles(smiles);
+    // Coordinates are laid out once, later, on the folded model (ocl-build.ts): openchemlib's default
+    // SMILES parse lays them out twice, which dominates parse time for large molecules.
+    mol = Molecule.fromSmiles(smiles, { noCoordinates: true });
   } catch (err) {
     throw smilesError(err);
   }
   checkParsed(mol, 'smiles', hasAromaticAtoms(smiles));
-  return { mol, source: 'smiles', warnings: [] };
+  return { mol, source: 'smiles', declared3D: false, warnings: [] };
 }
 
 function smilesError(err: unknown): ChemError {
@@ -86,7 +90,8 @@ function parseMolfileText(raw: string): ParsedInput {
     throw new ChemError('unparseable_molfile', `The molfile could not be read: ${reason}.`, { reason });
   }
   checkParsed(mol, 'molfile', false);
-  return { mol, source: 'molfile', warnings };
+  const declared3D = (text.split('\n')[1] ?? '').slice(20, 22) === '3D';
+  return { mol, source: 'molfile', declared3D, warnings };
 }
 
 const ATOM_LINE = /^\s*-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+[A-Za-z*#][A-Za-z0-9]*/;

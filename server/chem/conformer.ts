@@ -1,0 +1,119 @@
+/**
+ * generateConformer: reproducible 3D coordinates (Å) in the atom-index contract's order.
+ *
+ * openchemlib's ConformerGenerator (torsion-library based, seeded, bitwise reproducible for a given
+ * seed) builds a collision-free conformer of the model with explicit hydrogens; openchemlib's MMFF94s+
+ * force field then relaxes it with a capped number of minimiser iterations (more for small molecules,
+ * fewer for large ones), so that 150 heavy atoms finish in seconds. References: T. A. Halgren,
+ * J. Comput. Chem. 1996, 17, 490 (MMFF94); the openchemlib ConformerGenerator documentation.
+ * The conformer tables load once from openchemlib's own package files (Resources.registerFromNodejs).
+ */
+import { ConformerGenerator, ForceFieldMMFF94, Resources } from 'openchemlib';
+import type { Molecule } from '../../src/shared/chem';
+import { ChemError } from './errors';
+import { toOcl } from './ocl-build';
+
+let registered = false;
+
+export interface ConformerOptions {
+  seed: number;
+  /** Cap on MMFF94 minimiser iterations; default scales with size. 0 skips minimisation. */
+  maxIterations?: number;
+}
+
+export function defaultIterations(heavyAtoms: number): number {
+  if (heavyAtoms <= 30) return 2000;
+  if (heavyAtoms <= 80) return 500;
+  return 200;
+}
+
+export async function generateConformer(molecule: Molecule, options: ConformerOptions): Promise<number[][]> {
+  if (!Number.isInteger(options.seed)) throw new ChemError('bad_seed', 'The conformer seed must be a whole number.', { seed: options.seed });
+  if (!registered) {
+    Resources.registerFromNodejs();
+    registered = true;
+  }
+  const iterations = options.maxIterations ?? defaultIterations(molecule.atoms.length);
+  // Each disconnected part (a salt's ions) is built on its own and the parts are set side by side with
+  // a 4 Å gap along x: openchemlib's generator fails on some multi-part inputs.
+  const parts = components(molecule);
+  const heavy: number[][] = new Array(molecule.atoms.length);
+  const hydrogens: number[][][] = molecule.atoms.map(() => []);
+  let shift = 0;
+  for (const members of parts) {
+    const sub = subModel(molecule, members);
+    const xyz = members.length === 1 && sub.atoms[0].hydrogens === 0 ? [[0, 0, 0]] : conformerOf(sub, options.seed, iterations);
+    const xs = xyz.map((c) => c[0]);
+    const dx = shift - Math.min(...xs);
+    const moved = xyz.map(([x, y, z]) => [x + dx, y, z]);
+    shift += Math.max(...xs) - Math.min(...xs) + 4;
+    let h = members.length;
+    members.forEach((a, i) => {
+      heavy[a] = moved[i];
+      for (let k = 0; k < sub.atoms[i].hydrogens; k++) hydrogens[a].push(moved[h++]);
+    });
+  }
+  return [...heavy, ...hydrogens.flat()];
+}
+
+function conformerOf(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number, iterations: number): number[][] {
+  let generated: ReturnType<typeof toOcl> | null;
+  try {
+    generated = new ConformerGenerator(seed).getOneConformerAsMolecule(toOcl(sub, true));
+  } catch {
+    generated = null;
+  }
+  if (!generated) throw new ChemError('conformer_failed', 'No collision-free 3D conformer could be built for this molecule.');
+  if (iterations > 0) {
+    try {
+      new ForceFieldMMFF94(generated, ForceFieldMMFF94.MMFF94SPLUS).minimise({ maxIts: iterations });
+    } catch {
+      // MMFF94 has no parameters for some elements (metals, B, Si …); keep the unrelaxed conformer.
+    }
+  }
+  return readBack(sub, generated);
+}
+
+function components(molecule: Molecule): number[][] {
+  const n = molecule.atoms.length;
+  const parent = Array.from({ length: n }, (_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  for (const b of molecule.bonds) parent[find(b.a)] = find(b.b);
+  const groups = new Map<number, number[]>();
+  for (let i = 0; i < n; i++) groups.set(find(i), [...(groups.get(find(i)) ?? []), i]);
+  return [...groups.values()];
+}
+
+function subModel(molecule: Molecule, members: number[]): Pick<Molecule, 'atoms' | 'bonds'> {
+  const local = new Map(members.map((a, i) => [a, i]));
+  return {
+    atoms: members.map((a, i) => ({ ...molecule.atoms[a], index: i })),
+    bonds: molecule.bonds.filter((b) => local.has(b.a)).map((b) => ({ ...b, a: local.get(b.a)!, b: local.get(b.b)! })),
+  };
+}
+
+/** Coordinates in our order: heavy atoms by index, then each parent's hydrogens in contract order. */
+function readBack(molecule: Pick<Molecule, 'atoms'>, mol: ReturnType<typeof toOcl>): number[][] {
+  const n = molecule.atoms.length;
+  const xyz = (i: number): number[] => [mol.getAtomX(i), -mol.getAtomY(i), -mol.getAtomZ(i)];
+  const out: number[][] = [];
+  for (let i = 0; i < n; i++) {
+    if (mol.getAtomLabel(i) !== molecule.atoms[i].element) throw new Error(`conformer atom ${i} moved`);
+    out.push(xyz(i));
+  }
+  const hOf: number[][] = Array.from({ length: n }, () => []);
+  for (let h = n; h < mol.getAllAtoms(); h++) {
+    const parent = mol.getConnAtom(h, 0);
+    if (mol.getAtomicNo(h) !== 1 || parent < 0 || parent >= n) throw new Error(`conformer atom ${h} is not a hydrogen of a heavy atom`);
+    hOf[parent].push(h);
+  }
+  molecule.atoms.forEach((a, i) => {
+    const hs = hOf[i].sort((p, q) => (mol.getAtomMass(p) > 0 ? 1 : 0) - (mol.getAtomMass(q) > 0 ? 1 : 0) || p - q);
+    if (hs.length !== a.hydrogens) throw new Error(`conformer gave atom ${i} ${hs.length} hydrogens, expected ${a.hydrogens}`);
+    for (const h of hs) out.push(xyz(h));
+  });
+  return out;
+}
