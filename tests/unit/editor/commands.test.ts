@@ -97,3 +97,20 @@ describe('per-user undo', () => {
     expect(beadsOf(f.doc).map((b) => b.name)).toEqual(['B1', 'Theirs']);
   });
 });
+
+describe('empty beads', () => {
+  it('are deleted when an edit takes their last atom', () => {
+    const f = editorFixture(4, chain(4));
+    createBead(f.doc, [0, 1], { name: 'P' }, f.origin);
+    const q = createBead(f.doc, [2], { name: 'Q' }, f.origin);
+    f.select(2);
+    run(f.command('make-bead'), f.ctx());
+    expect(f.doc.getMap('beads').has(q)).toBe(false);
+    f.select(0, 1);
+    run(f.command('remove-from-bead'), f.ctx());
+    expect(docToMapping(f.doc).beads.map((b) => b.name)).toEqual(['B1']);
+    // One undo step brings the bead and its atoms back together.
+    run(f.command('undo'), f.ctx());
+    expect(docToMapping(f.doc).beads.map((b) => b.name)).toEqual(['P', 'B1']);
+  });
+});

@@ -28,7 +28,7 @@ export interface SessionSnapshot {
   synced: boolean;
   session: SessionMessage | null;
   evaluation: EvaluationMessage | null;
-  /** The last refused update; the editor reloads the draft when this changes. */
+  /** The last refused update; the editor reloads the draft when `refusals` grows. */
   refused: CollabErrorMessage | null;
   refusals: number;
   /** Why the socket closed for good (4401, 4404), when it did. */
@@ -48,14 +48,16 @@ export class MappingSession {
   private everConnected = false;
 
   constructor(mappingId: number) {
-    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS)], { trackedOrigins: new Set([this.origin]), captureTimeout: 400 });
+    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS)], { trackedOrigins: new Set([this.origin]), captureTimeout: 0 });
     const scheme = window.location.protocol === 'https:' ? 'wss' : 'ws';
     this.provider = new WebsocketProvider(`${scheme}://${window.location.host}/collab`, String(mappingId), this.doc, BROADCAST_CHANNEL_OFF);
     this.provider.messageHandlers[MESSAGE_EVALUATION] = (_enc, dec) => this.set({ evaluation: readJson<EvaluationMessage>(dec) });
     this.provider.messageHandlers[MESSAGE_SESSION] = (_enc, dec) => this.onSession(readJson<SessionMessage>(dec));
     this.provider.messageHandlers[MESSAGE_ERROR] = (_enc, dec) => {
+      // 'read_only' only confirms what the session message said (a viewer's sync reply is dropped);
+      // any other refusal means our document now differs from the server's.
       const refused = readJson<CollabErrorMessage>(dec);
-      this.set({ refused, refusals: this.snapshot.refusals + 1 });
+      this.set({ refused, refusals: this.snapshot.refusals + (refused.code === 'read_only' ? 0 : 1) });
     };
     this.provider.on('status', ({ status }) => {
       if (status === 'connected') this.everConnected = true;

@@ -1,4 +1,4 @@
-import { CENTRE_RULES, assignAtoms, createBead, deleteBead, mergeBeads, removeAtoms, setCentre, setType, shareAtom, splitBead } from '../../../shared/mapping-doc';
+import { CENTRE_RULES, assignAtoms, atomsOfBead, createBead, deleteBead, mergeBeads, removeAtoms, setCentre, setType, shareAtom, splitBead } from '../../../shared/mapping-doc';
 import { beadsTouching } from '../model/bead-view';
 import { sorted } from '../model/selection';
 import { plainKey, type EditorCommand, type EditorContext } from './registry';
@@ -16,6 +16,18 @@ export function targetBead(ctx: EditorContext): string | null {
   return touched.length === 1 ? touched[0] : null;
 }
 
+/**
+ * Runs an edit in one transaction and then deletes the beads it left without atoms (moving an
+ * atom out of a bead should not leave an empty bead behind to clutter the table).
+ */
+function editAndPrune(ctx: EditorContext, edit: () => void): void {
+  const before = beadsTouching(ctx.view, ctx.selection);
+  ctx.doc.transact(() => {
+    edit();
+    for (const id of before) if (atomsOfBead(ctx.doc, id).length === 0) deleteBead(ctx.doc, id, ctx.origin);
+  }, ctx.origin);
+}
+
 export const beadCommands: EditorCommand[] = [
   {
     name: 'make-bead',
@@ -26,7 +38,8 @@ export const beadCommands: EditorCommand[] = [
     edits: true,
     enabled: hasSelection,
     perform(ctx) {
-      const id = createBead(ctx.doc, sorted(ctx.selection), {}, ctx.origin);
+      let id = '';
+      editAndPrune(ctx, () => (id = createBead(ctx.doc, sorted(ctx.selection), {}, ctx.origin)));
       ctx.setActiveBead(id);
     },
   },
@@ -38,7 +51,7 @@ export const beadCommands: EditorCommand[] = [
     keyTest: plainKey('a'),
     edits: true,
     enabled: (ctx) => hasSelection(ctx) && active(ctx) !== null,
-    perform: (ctx) => assignAtoms(ctx.doc, active(ctx)!, sorted(ctx.selection), ctx.origin),
+    perform: (ctx) => editAndPrune(ctx, () => assignAtoms(ctx.doc, active(ctx)!, sorted(ctx.selection), ctx.origin)),
   },
   {
     name: 'remove-from-bead',
@@ -48,7 +61,10 @@ export const beadCommands: EditorCommand[] = [
     keyTest: plainKey('r'),
     edits: true,
     enabled: (ctx) => beadsTouching(ctx.view, ctx.selection).length > 0,
-    perform: (ctx) => removeAtoms(ctx.doc, sorted(ctx.selection), undefined, ctx.origin),
+    perform(ctx) {
+      editAndPrune(ctx, () => removeAtoms(ctx.doc, sorted(ctx.selection), undefined, ctx.origin));
+      ctx.setActiveBead(null);
+    },
   },
   {
     name: 'merge-beads',

@@ -1,0 +1,146 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { APIRequestContext, Browser, BrowserContext, Page } from 'playwright-core';
+import type { Molecule } from '../../src/shared/chem';
+import { startTestServer } from '../helpers/app-server';
+import { launchBrowser } from '../helpers/browser';
+
+// Issue 4's browser test, through the real client, server, collab socket and MariaDB: two
+// modellers (the demo's, and a second one the supervisor adds) edit one live mapping and each sees
+// the other's bead appear with the server's numbers; a student watches live and cannot edit.
+
+const PASSWORD = 'beadloom-demo';
+const SECOND = { email: 'noor.halden@example.org', name: 'Noor Halden', password: 'second-modeller-pass-31' };
+// IUPAC/CIAAW 2021 conventional atomic weights (from memory of the 2021 table).
+const WEIGHT: Record<string, number> = { C: 12.011, H: 1.008, O: 15.999, N: 14.007 };
+
+let server: Awaited<ReturnType<typeof startTestServer>>;
+let browser: Browser;
+const contexts: BrowserContext[] = [];
+const pageErrors: string[] = [];
+
+async function api(request: APIRequestContext) {
+  const { token } = await (await request.get('/api/auth/csrf')).json();
+  return {
+    async post(path: string, data: unknown) {
+      const res = await request.post(path, { data, headers: { 'x-csrf-token': token } });
+      expect(res.ok(), `${path}: ${await res.text()}`).toBe(true);
+      return res.json();
+    },
+  };
+}
+
+async function signedIn(email: string, password: string): Promise<Page> {
+  const context = await browser.newContext({ baseURL: server.url, viewport: { width: 1440, height: 1000 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  page.setDefaultTimeout(15_000);
+  page.on('pageerror', (e) => pageErrors.push(`${email}: ${e.message}`));
+  page.on('console', (m) => m.type() === 'error' && pageErrors.push(`${email}: ${m.text()}`));
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+  return page;
+}
+
+/** The supervisor adds a second modeller; the invitation's token sets their password. */
+async function addSecondModeller(): Promise<void> {
+  const context = await browser.newContext({ baseURL: server.url });
+  contexts.push(context);
+  const request = context.request;
+  const anon = await api(request);
+  const login = await anon.post('/api/auth/login', { email: 'supervisor@example.org', password: PASSWORD });
+  const projects = await (await request.get('/api/projects')).json();
+  const res = await request.post(`/api/projects/${projects[0].id}/members`, {
+    data: { email: SECOND.email, role: 'modeller', displayName: SECOND.name },
+    headers: { 'x-csrf-token': login.csrfToken },
+  });
+  expect(res.ok(), await res.text()).toBe(true);
+  const mail = await (await request.get('/dev/mail.json')).json();
+  const invitation = mail.find((m: { to: string[] }) => m.to.includes(SECOND.email));
+  const token = /token=([^\s&]+)/.exec(invitation.text)![1];
+  const reset = await request.post('/api/auth/reset', { data: { token, password: SECOND.password }, headers: { 'x-csrf-token': login.csrfToken } });
+  expect(reset.ok(), await reset.text()).toBe(true);
+}
+
+const tag = (page: Page, name: string) => page.locator(`[data-bead-tag="${name}"]`);
+const massOf = (page: Page, bead: string) => page.getByRole('row', { name: `Bead ${bead}` }).locator('[data-column="mass"]');
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+  await addSecondModeller();
+});
+
+afterAll(async () => {
+  for (const c of contexts) await c.close();
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('the live mapping editor', () => {
+  it('lets two modellers co-edit while a student watches read-only', async () => {
+    const first = await signedIn('modeller@example.org', PASSWORD);
+    const second = await signedIn(SECOND.email, SECOND.password);
+    const student = await signedIn('student@example.org', PASSWORD);
+
+    const { mappingId, model } = await first.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      const ibuprofen = molecules.find((m: { name: string }) => m.name === 'Ibuprofen');
+      const mappings = await (await fetch(`/api/molecules/${ibuprofen.id}/mappings`)).json();
+      const detail = await (await fetch(`/api/molecules/${ibuprofen.id}`)).json();
+      return { mappingId: mappings[0].id as number, model: detail.model as Molecule };
+    });
+
+    for (const page of [first, second, student]) await page.goto(`/mappings/${mappingId}`);
+    await first.locator('[data-connection="live"]').waitFor();
+    await second.locator('[data-connection="live"]').waitFor();
+    await student.locator('[data-connection="read-only"]').waitFor();
+    const people = first.getByRole('list', { name: 'People in this mapping' });
+    for (const name of [/Tomas Brenn \(you\)/, /Noor Halden/, /Lea Okafor/]) await people.getByRole('listitem', { name }).waitFor();
+
+    // The first modeller takes atom 0 out of its bead and makes a bead of it alone.
+    await first.locator('[data-atom="0"]').click();
+    await first.keyboard.press('r');
+    await first.keyboard.press('b');
+    await tag(first, 'B1').waitFor();
+    // The second modeller and the student see the bead appear, and the server's mass for it.
+    const a0 = model.atoms[0];
+    const expected = WEIGHT[a0.element] + a0.hydrogens * WEIGHT.H;
+    for (const page of [second, student]) {
+      await tag(page, 'B1').waitFor();
+      await expect.poll(async () => Number(await massOf(page, 'B1').textContent()), { timeout: 10_000 }).toBeCloseTo(expected, 1);
+    }
+
+    // The second modeller does the same with atom 1; the first sees it.
+    await second.locator('[data-atom="1"]').click();
+    await second.keyboard.press('r');
+    await second.keyboard.press('b');
+    await tag(first, 'B2').waitFor();
+    await expect.poll(async () => (await massOf(first, 'B2').textContent())?.trim(), { timeout: 10_000 }).toMatch(/^\d+\.\d\d$/);
+    // Each sees the other's selection on the canvas.
+    await first.locator('[data-peer-selected="1"]').waitFor();
+
+    // The student sees all of it but cannot edit: no editing tools, and keys change nothing.
+    await tag(student, 'B2').waitFor();
+    await expect(student.getByRole('button', { name: /Make bead/ }).count()).resolves.toBe(0);
+    const beadsBefore = await first.locator('[data-bead]').count();
+    await student.locator('[data-atom="2"]').click();
+    await student.keyboard.press('r');
+    await student.keyboard.press('b');
+    await student.waitForTimeout(800);
+    expect(await student.locator('[data-bead]').count()).toBe(beadsBefore);
+    expect(await first.locator('[data-bead]').count()).toBe(beadsBefore);
+
+    // Undo is per person: the first modeller's undo removes B1 (its own), not B2.
+    await first.locator('svg[role="application"]').focus();
+    await first.keyboard.press('Control+z');
+    await first.keyboard.press('Control+z');
+    await tag(second, 'B1').waitFor({ state: 'detached' });
+    await expect(tag(second, 'B2').count()).resolves.toBe(1);
+
+    expect(pageErrors).toEqual([]);
+  });
+});
