@@ -27,26 +27,26 @@ function mentionRule(state: StateInline, silent: boolean): boolean {
   if (!silent) {
     const token = state.push('mention', '', 0);
     token.content = m[1] as string;
-    token.meta = { userId: Number(m[2]) };
+    token.info = m[2] as string;
   }
   state.pos += m[0].length;
   return true;
 }
 
-function createRenderer(): MarkdownIt {
+function createRenderer() {
   const md = new MarkdownIt('zero', { html: false, linkify: false, breaks: true });
   md.enable(['paragraph', 'list', 'code', 'fence', 'newline', 'escape', 'backticks', 'emphasis', 'strikethrough', 'link', 'entity', 'autolink']);
   md.validateLink = isSafeLink;
   md.inline.ruler.before('link', 'mention', mentionRule);
   md.renderer.rules.mention = (tokens, idx) => {
     const t = tokens[idx]!;
-    return `<span class="mention" data-user-id="${Number(t.meta.userId)}">@${md.utils.escapeHtml(t.content)}</span>`;
+    return `<span class="mention" data-user-id="${Number(t.info)}">@${md.utils.escapeHtml(t.content)}</span>`;
   };
   const defaultLinkOpen = md.renderer.rules.link_open ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens, idx, options));
   md.renderer.rules.link_open = (tokens, idx, options, env, self) => {
     const t = tokens[idx]!;
     t.attrSet('rel', 'noopener noreferrer nofollow');
-    if (/^(https?:|mailto:)/i.test(t.attrGet('href') ?? '')) t.attrSet('target', '_blank');
+    if (/^(https?:|mailto:)/i.test(String(t.attrGet('href') ?? ''))) t.attrSet('target', '_blank');
     return defaultLinkOpen(tokens, idx, options, env, self);
   };
   return md;
