@@ -5,6 +5,10 @@ import * as m003 from './20261201_003_projects';
 import * as m004 from './20261201_004_password_tokens';
 import * as m005 from './20261201_005_dev_mail';
 import * as m006 from './20261201_006_molecules';
+import * as m007 from './20261202_007_molecule_models';
+import * as m008 from './20261202_008_mappings';
+import * as m009 from './20261202_009_mapping_drafts';
+import * as m010 from './20261202_010_bead_types';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -15,6 +19,10 @@ const migrations: Record<string, Knex.Migration> = {
   '20261201_004_password_tokens': m004,
   '20261201_005_dev_mail': m005,
   '20261201_006_molecules': m006,
+  '20261202_007_molecule_models': m007,
+  '20261202_008_mappings': m008,
+  '20261202_009_mapping_drafts': m009,
+  '20261202_010_bead_types': m010,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -33,3 +33,41 @@ export const DEMO_MOLECULES = [
     notes: 'Small aromatic solute.',
   },
 ] as const;
+
+/** One mapping in progress per demo molecule (atom indices follow the chemistry core's order). */
+export const DEMO_MAPPINGS: Record<(typeof DEMO_MOLECULES)[number]['name'], { name: string; resolution: '4:1' | '3:1' | '2:1'; description: string; beads: { id: string; name: string; type?: string; atoms: [number, number][] }[] }> = {
+  'Tetraethylene glycol monododecyl ether (C12E4)': {
+    name: 'C12E4 at 4:1',
+    resolution: '4:1',
+    description: 'Tail done; two of the four ethylene-oxide units mapped so far.',
+    beads: [
+      { id: 'demo-c12-t1', name: 'T1', type: 'L3', atoms: [[0, 1], [1, 1], [2, 1], [3, 1]] },
+      { id: 'demo-c12-t2', name: 'T2', type: 'L3', atoms: [[4, 1], [5, 1], [6, 1], [7, 1]] },
+      { id: 'demo-c12-t3', name: 'T3', atoms: [[8, 1], [9, 1], [10, 1], [11, 1]] },
+      { id: 'demo-c12-e1', name: 'E1', atoms: [[12, 1], [13, 1], [14, 1]] },
+      { id: 'demo-c12-e2', name: 'E2', atoms: [[15, 1], [16, 1], [17, 1]] },
+    ],
+  },
+  Ibuprofen: {
+    name: 'Ibuprofen, ring first',
+    resolution: '3:1',
+    description: 'Isobutyl and ring beads placed; the propionic acid is still open.',
+    beads: [
+      { id: 'demo-ibu-tail', name: 'TL', atoms: [[0, 1], [1, 1], [2, 1], [3, 1]] },
+      { id: 'demo-ibu-r1', name: 'R1', atoms: [[4, 1], [5, 1], [6, 1]] },
+      { id: 'demo-ibu-r2', name: 'R2', atoms: [[7, 1], [8, 1], [9, 1]] },
+    ],
+  },
+  Anisole: {
+    name: 'Anisole at 2:1',
+    resolution: '2:1',
+    description: 'The ipso carbon is shared half-and-half between the methoxy and the first ring bead.',
+    beads: [
+      { id: 'demo-ani-m', name: 'OM', atoms: [[0, 1], [1, 1], [2, 0.5]] },
+      { id: 'demo-ani-r1', name: 'R1', atoms: [[2, 0.5], [3, 1], [4, 1]] },
+      { id: 'demo-ani-r2', name: 'R2', atoms: [[5, 1], [6, 1], [7, 1]] },
+    ],
+  },
+};
+
+export const DEMO_LIBRARY_NOTE = 'Illustrative only: invented for the Beadloom demo, not any published force field’s bead types.';

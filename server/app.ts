@@ -17,6 +17,13 @@ import { projectRoutes } from './projects/projects.routes';
 import { moleculeRoutes } from './molecules/molecules.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailRoutes } from './mail/dev-mail.routes';
+import { uploadRoutes } from './molecules/uploads.routes';
+import { ConformerQueue } from './molecules/conformer-queue';
+import { mappingRoutes } from './mappings/mappings.routes';
+import { beadTypeRoutes } from './bead-types/bead-types.routes';
+import { createCollab, type Collab } from './collab/collab-server';
+import type { CollabOptions } from './collab/room';
+import { chemRoutes } from './chem-api/chem.routes';
 
 export interface BuiltApp {
   app: Express;
@@ -25,12 +32,16 @@ export interface BuiltApp {
   /** The session middleware, reused to authenticate WebSocket upgrades. */
   session: express.RequestHandler;
   passport: ReturnType<typeof configurePassport>;
+  /** The live-collaboration socket: attach `collab.handleUpgrade` to the HTTP server's 'upgrade'. */
+  collab: Collab;
+  /** Background 3D conformer jobs. */
+  conformers: ConformerQueue;
   close(): Promise<void>;
 }
 
 const UPLOAD_PATHS = /\/upload$/;
 
-export function createApp(ctx: AppContext): BuiltApp {
+export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions> = {}): BuiltApp {
   const app = express();
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
@@ -59,12 +70,20 @@ export function createApp(ctx: AppContext): BuiltApp {
   app.use(cookieParser(), session, passport.initialize(), passport.session());
   app.use(csrf.protect);
 
+  const conformers = new ConformerQueue(ctx.db, ctx.log);
+  const collab = createCollab(ctx, [cookieParser(), session, passport.initialize(), passport.session()], collabOptions);
+  conformers.on('settled', (moleculeId: number) => collab.refresh({ moleculeId }));
+
   const routes = new RouteTable();
   healthRoutes(routes, ctx);
   authRoutes(routes, ctx, { csrf, passport });
   userRoutes(routes, ctx);
   projectRoutes(routes, ctx);
-  moleculeRoutes(routes, ctx);
+  uploadRoutes(routes, ctx, conformers);
+  moleculeRoutes(routes, ctx, conformers);
+  mappingRoutes(routes, ctx, collab);
+  beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
+  chemRoutes(routes, ctx);
   if (ctx.mailSinkInUse) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);
@@ -78,7 +97,13 @@ export function createApp(ctx: AppContext): BuiltApp {
     routes: routes.entries,
     session,
     passport,
-    close: () => store.close(),
+    collab,
+    conformers,
+    async close() {
+      await conformers.close();
+      await collab.close();
+      await store.close();
+    },
   };
 }
 

@@ -29,6 +29,8 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
   const ctx: AppContext = { config, db, log, mailer, mailSinkInUse: sink !== null };
   const built = createApp(ctx);
   const server = createServer(built.app);
+  server.on('upgrade', built.collab.handleUpgrade);
+  await built.conformers.resume();
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
     server.listen(config.port, host, () => resolve());
@@ -40,6 +42,7 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
     ctx,
     url: `http://localhost:${port}`,
     async stop() {
+      await built.collab.close();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await built.close();

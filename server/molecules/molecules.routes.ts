@@ -2,16 +2,64 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
-import { authorizeProject } from '../auth/access';
+import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
+import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody, type CreateMoleculeBody, type ListMoleculesQuery } from '../../src/shared/molecules';
+import { parseMolecule } from '../chem/index';
+import { withChemErrors } from './chem-errors';
+import { authorizeMolecule } from './molecule-access';
+import { toDetail, toSummary } from './molecule-view';
+import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, updateMolecule } from './molecules.service';
+import type { ConformerQueue } from './conformer-queue';
 
-const projectParams = z.object({ id: idParam });
+const params = z.object({ id: idParam });
 
-export function moleculeRoutes(r: RouteTable, ctx: AppContext): void {
-  r.get('/api/projects/:id/molecules', validate({ params: projectParams }), async (req, res) => {
+export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: ConformerQueue): void {
+  const detail = async (id: number) => toDetail(await findMolecule(ctx.db, id, true), conformers.position(id));
+
+  r.get('/api/projects/:id/molecules', validate({ params, query: listMoleculesQuery }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeProject(ctx.db, req, id, 'molecule:read');
-    const rows = await ctx.db('molecules').where({ project_id: id }).orderBy('name').select('id', 'name', 'smiles', 'created_at');
-    res.json(rows.map((m) => ({ id: m.id, name: m.name, smiles: m.smiles, createdAt: new Date(m.created_at).toISOString() })));
+    const rows = await listMolecules(ctx.db, id, req.query as unknown as ListMoleculesQuery);
+    res.json(rows.map((row) => toSummary(row, conformers.position(row.id))));
+  });
+
+  r.post('/api/projects/:id/molecules', validate({ params, body: createMoleculeBody }), async (req, res) => {
+    const projectId = Number(req.params.id);
+    await authorizeProject(ctx.db, req, projectId, 'molecule:create');
+    const body = req.body as CreateMoleculeBody;
+    const model = await withChemErrors(() => parseMolecule(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! }));
+    const id = await insertMolecule(ctx.db, {
+      projectId,
+      userId: requireUser(req).id,
+      name: body.name,
+      notes: body.notes,
+      tags: body.tags,
+      source: body.smiles !== undefined ? 'smiles' : 'molfile',
+      smiles: body.smiles,
+      model,
+    });
+    if (!model.coordinates) conformers.enqueue(id);
+    res.status(201).json(await detail(id));
+  });
+
+  r.get('/api/molecules/:id', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMolecule(ctx.db, req, id, 'molecule:read');
+    res.json(await detail(id));
+  });
+
+  r.patch('/api/molecules/:id', validate({ params, body: updateMoleculeBody }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMolecule(ctx.db, req, id, 'molecule:update');
+    await updateMolecule(ctx.db, id, req.body);
+    res.json(await detail(id));
+  });
+
+  r.delete('/api/molecules/:id', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMolecule(ctx.db, req, id, 'molecule:delete');
+    if ((await deleteOrArchive(ctx.db, id)) === 'deleted') return void res.status(204).end();
+    res.json({ archived: true, molecule: toSummary(await findMolecule(ctx.db, id), null) });
   });
 }

@@ -27,6 +27,13 @@ export const putBeadTypesBody = z
   .refine((b) => new Set(b.types.map((t) => t.name)).size === b.types.length, { message: 'Bead type names must be unique.', path: ['types'] });
 export type PutBeadTypesBody = z.infer<typeof putBeadTypesBody>;
 
+/** CSV import: `PUT /api/projects/:id/bead-types` with `{ csv }` instead of `{ types }` (same columns as export). */
+export const importBeadTypesCsvBody = z.strictObject({ csv: z.string().min(1, 'The CSV is empty.').max(1_000_000, 'A CSV file is at most 1 MB.') });
+export type ImportBeadTypesCsvBody = z.infer<typeof importBeadTypesCsvBody>;
+
+/** `GET /api/projects/:id/bead-types?format=csv` answers text/csv; JSON otherwise. */
+export const beadTypesQuery = z.strictObject({ format: z.enum(['json', 'csv']).default('json') });
+
 export interface BeadTypeLibrary {
   projectId: number;
   types: BeadTypeRow[];

@@ -1,5 +1,5 @@
 import type { Db } from '../../server/db/knex';
-import { createAccount, demoProjectId, userId } from '../helpers/fixtures';
+import { createAccount, createMolecule, demoMappingId, demoMoleculeId, demoProjectId, userId } from '../helpers/fixtures';
 
 // The route × role table: for every route of the app, what each kind of caller
 // gets. The permission test fails when the app has a route that is not here.
@@ -116,6 +116,66 @@ export const ROUTE_CASES: RouteCase[] = [
     expect: inProject(204, []),
   },
   { method: 'get', path: '/api/projects/:id/molecules', request: project('/molecules'), expect: inProject(200, EVERYONE) },
+  {
+    method: 'post',
+    path: '/api/chem/molecule',
+    request: async () => ({ url: '/api/chem/molecule', body: { smiles: 'CCO' } }),
+    expect: signedIn(200),
+  },
+  {
+    method: 'post',
+    path: '/api/chem/evaluate',
+    request: async () => ({
+      url: '/api/chem/evaluate',
+      body: { smiles: 'CCO', mapping: { beads: [{ id: 'b1', name: 'E', centre: 'mass', atoms: [{ index: 0, weight: 1 }, { index: 1, weight: 1 }, { index: 2, weight: 1 }] }] } },
+    }),
+    expect: signedIn(200),
+  },
+  {
+    method: 'post',
+    path: '/api/projects/:id/molecules',
+    request: async (env, c) => ({ url: `/api/projects/${env.projectId}/molecules`, body: { name: `Methanol of ${c}`, smiles: 'CO' } }),
+    expect: inProject(201, EDITORS),
+  },
+  // A JSON body is not an upload: callers who may upload get 400 (no file), the rest are refused first.
+  { method: 'post', path: '/api/projects/:id/molecules/upload', request: project('/molecules/upload'), expect: inProject(400, EDITORS) },
+  { method: 'get', path: '/api/molecules/:id', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}` }), expect: inProject(200, EVERYONE) },
+  {
+    method: 'patch',
+    path: '/api/molecules/:id',
+    request: async (env, c) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}`, body: { notes: `Edited by ${c}.` } }),
+    expect: inProject(200, EDITORS),
+  },
+  {
+    method: 'delete',
+    path: '/api/molecules/:id',
+    request: async (env, c) => ({ url: `/api/molecules/${await createMolecule(env.db, env.projectId, `Doomed ${unique(c)}`)}` }),
+    expect: inProject(204, EDITORS),
+  },
+  { method: 'get', path: '/api/molecules/:id/mappings', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}/mappings` }), expect: inProject(200, EVERYONE) },
+  {
+    method: 'post',
+    path: '/api/molecules/:id/mappings',
+    request: async (env, c) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}/mappings`, body: { name: `Mapping of ${c}`, resolution: '2:1' } }),
+    expect: inProject(201, EDITORS),
+  },
+  { method: 'get', path: '/api/mappings/:id', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}` }), expect: inProject(200, EVERYONE) },
+  {
+    method: 'patch',
+    path: '/api/mappings/:id',
+    request: async (env, c) => ({ url: `/api/mappings/${await demoMappingId(env.db)}`, body: { description: `Notes by ${c}.` } }),
+    expect: inProject(200, EDITORS),
+  },
+  { method: 'get', path: '/api/projects/:id/bead-types', request: project('/bead-types'), expect: inProject(200, EVERYONE) },
+  {
+    method: 'put',
+    path: '/api/projects/:id/bead-types',
+    request: async (env, c) => ({
+      url: `/api/projects/${env.projectId}/bead-types`,
+      body: { types: [{ name: `X-${c}`, sizeClass: 'regular', charge: 0, deltaGMin: -5, deltaGMax: 5 }] },
+    }),
+    expect: inProject(200, EDITORS),
+  },
   { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: all(200) },
   { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: all(200) },
 ];

@@ -27,3 +27,21 @@ export async function snapshot(db: Db, tables = ['users', 'projects', 'project_m
   for (const t of tables) parts.push(JSON.stringify(await db(t).select('*').orderBy(1)));
   return parts.join('\n');
 }
+
+/** The first demo molecule and its demo mapping. */
+export async function demoMoleculeId(db: Db): Promise<number> {
+  const row = await db('molecules').orderBy('id').first('id');
+  return row.id;
+}
+
+export async function demoMappingId(db: Db): Promise<number> {
+  const row = await db('mappings').orderBy('id').first('id');
+  return row.id;
+}
+
+/** A fresh molecule (ethanol unless told) in a project, stored with its canonical model like the app does. */
+export async function createMolecule(db: Db, projectId: number, name = 'Fixture molecule', smiles = 'CCO'): Promise<number> {
+  const { parseMolecule } = await import('../../server/chem/index');
+  const { insertMolecule } = await import('../../server/molecules/molecules.service');
+  return insertMolecule(db, { projectId, userId: null, name, source: 'smiles', smiles, model: await parseMolecule({ smiles }) });
+}

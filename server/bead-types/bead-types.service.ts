@@ -1,0 +1,35 @@
+import type { Db } from '../db/knex';
+import type { BeadTypeRow } from '../../src/shared/bead-types';
+
+// Knex for `bead_types`: a project's library is read in order and replaced as a whole.
+
+export async function libraryFor(db: Db, projectId: number): Promise<BeadTypeRow[]> {
+  const rows = await db('bead_types').where({ project_id: projectId }).orderBy('position');
+  return rows.map((r) => ({ name: r.name, sizeClass: r.size_class, charge: r.charge, deltaGMin: r.delta_g_min, deltaGMax: r.delta_g_max, description: r.description }));
+}
+
+export async function lastChange(db: Db, projectId: number): Promise<string | null> {
+  const row = await db('bead_type_libraries').where({ project_id: projectId }).first('updated_at');
+  return row ? new Date(row.updated_at).toISOString() : null;
+}
+
+export async function replaceLibrary(db: Db, projectId: number, types: BeadTypeRow[], userId: number | null): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx('bead_type_libraries').insert({ project_id: projectId, updated_by: userId, updated_at: trx.fn.now() }).onConflict('project_id').merge();
+    await trx('bead_types').where({ project_id: projectId }).delete();
+    if (types.length) {
+      await trx('bead_types').insert(
+        types.map((t, position) => ({
+          project_id: projectId,
+          position,
+          name: t.name,
+          size_class: t.sizeClass,
+          charge: t.charge,
+          delta_g_min: t.deltaGMin,
+          delta_g_max: t.deltaGMax,
+          description: t.description,
+        })),
+      );
+    }
+  });
+}

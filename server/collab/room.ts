@@ -1,0 +1,256 @@
+/**
+ * One mapping's live draft on this server: the Yjs document, its awareness, the connected peers.
+ *
+ * An update from a peer goes through, in order (one room-wide queue, so MariaDB's order is the
+ * document's order):
+ *   1. applied to a shadow copy and checked there (src/shared/mapping-doc-check.ts) — a refused update
+ *      gets the sender an error message, the shadow is rebuilt, the real document never sees it;
+ *   2. appended to mapping_updates (updates that arrived together go in one INSERT);
+ *   3. applied to the document and relayed to the other peers;
+ *   4. a re-evaluation is scheduled (one per burst, at most `evaluationDelayMs` later).
+ * Compaction into a snapshot runs on the same queue every `compactEvery` updates, every
+ * `compactIntervalMs` while there is something to fold, and when the last peer leaves.
+ */
+import * as Y from 'yjs';
+import * as encoding from 'lib0/encoding';
+import { Awareness, encodeAwarenessUpdate, removeAwarenessStates } from 'y-protocols/awareness';
+import { messageYjsUpdate } from 'y-protocols/sync';
+import type { AppContext } from '../context';
+import { applyChecked } from '../../src/shared/mapping-doc-check';
+import { docToMapping } from '../../src/shared/mapping-doc';
+import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage } from '../../src/shared/collab-protocol';
+import { evaluateDraft, loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
+import { touchMapping } from '../mappings/mappings.service';
+import { appendUpdates, compactDoc, loadDraft } from './draft-store';
+
+export interface CollabOptions {
+  pingIntervalMs: number;
+  evaluationDelayMs: number;
+  compactEvery: number;
+  compactIntervalMs: number;
+}
+
+export const DEFAULT_COLLAB_OPTIONS: CollabOptions = { pingIntervalMs: 10_000, evaluationDelayMs: 40, compactEvery: 500, compactIntervalMs: 60_000 };
+
+/** What a room needs of a connection. */
+export interface Peer {
+  readonly userId: number;
+  /** Awareness client ids this connection has announced. */
+  readonly controlled: Set<number>;
+  send(frame: Uint8Array): void;
+  sendError(error: CollabErrorMessage): void;
+  /** Ends this connection only (malformed input). */
+  fail(reason: string): void;
+}
+
+export class Room {
+  readonly awareness: Awareness;
+  readonly peers = new Set<Peer>();
+  closed = false;
+  /** Called once the last peer left and the draft was compacted (the registry then drops the room). */
+  onEmptied: (() => void) | null = null;
+  private shadow: Y.Doc;
+  private incoming: { peer: Peer; update: Uint8Array }[] = [];
+  private queue: Promise<unknown> = Promise.resolve();
+  private flushQueued = false;
+  private evalTimer: NodeJS.Timeout | null = null;
+  private compactTimer: NodeJS.Timeout;
+  private result: EvaluationResult | null = null;
+
+  private constructor(
+    private readonly ctx: AppContext,
+    private inputs: EvaluationInputs,
+    readonly doc: Y.Doc,
+    private lastUpdateId: number,
+    private uncompacted: number,
+    private readonly opts: CollabOptions,
+  ) {
+    this.shadow = copyOf(doc);
+    this.awareness = new Awareness(doc);
+    this.awareness.setLocalState(null);
+    this.awareness.on('update', this.onAwareness);
+    this.compactTimer = setInterval(() => void this.serial(() => this.compact()), opts.compactIntervalMs);
+    this.compactTimer.unref();
+  }
+
+  /** Loads the draft from MariaDB; null when the mapping does not exist. */
+  static async open(ctx: AppContext, mappingId: number, opts: CollabOptions): Promise<Room | null> {
+    const inputs = await loadEvaluationInputs(ctx.db, mappingId);
+    if (!inputs) return null;
+    const stored = await loadDraft(ctx.db, mappingId);
+    return new Room(ctx, inputs, stored.doc, stored.lastUpdateId, stored.pending, opts);
+  }
+
+  get id(): number {
+    return this.inputs.mappingId;
+  }
+
+  get moleculeId(): number {
+    return this.inputs.moleculeId;
+  }
+
+  get projectId(): number {
+    return this.inputs.projectId;
+  }
+
+  get locked(): boolean {
+    return this.inputs.locked;
+  }
+
+  get atomCount(): number {
+    return this.inputs.model.atoms.length;
+  }
+
+  /** Runs work on the room's queue, after everything queued before it. */
+  serial<T>(work: () => Promise<T> | T): Promise<T> {
+    const next = this.queue.then(work);
+    this.queue = next.catch((err) => this.ctx.log.error({ err, mappingId: this.id }, 'collab room task failed'));
+    return next;
+  }
+
+  join(peer: Peer): boolean {
+    if (this.closed) return false;
+    this.peers.add(peer);
+    return true;
+  }
+
+  /** Removes a peer and its awareness; resolves true when the room emptied and was compacted. */
+  leave(peer: Peer): Promise<boolean> {
+    this.peers.delete(peer);
+    removeAwarenessStates(this.awareness, [...peer.controlled], null);
+    if (this.peers.size > 0) return Promise.resolve(false);
+    return this.serial(async () => {
+      await this.compact();
+      const empty = this.peers.size === 0;
+      if (empty) this.onEmptied?.();
+      return empty;
+    });
+  }
+
+  receiveUpdate(peer: Peer, update: Uint8Array): void {
+    this.incoming.push({ peer, update });
+    if (this.flushQueued) return;
+    this.flushQueued = true;
+    void this.serial(() => this.flush());
+  }
+
+  /** The evaluation of the current draft (computed now if an edit is waiting for it). */
+  currentResult(): EvaluationResult {
+    if (!this.result || this.evalTimer) this.evaluateNow();
+    return this.result!;
+  }
+
+  draft() {
+    return docToMapping(this.doc);
+  }
+
+  evaluationFrame(): Uint8Array {
+    const r = this.currentResult();
+    const msg: EvaluationMessage = { mappingId: this.id, evaluation: r.evaluation, error: r.error, evaluatedAt: r.evaluatedAt };
+    const e = encoding.createEncoder();
+    encoding.writeVarUint(e, MESSAGE_EVALUATION);
+    encoding.writeVarString(e, JSON.stringify(msg));
+    return encoding.toUint8Array(e);
+  }
+
+  /** Re-reads resolution, lock, coordinates and library, then re-evaluates. */
+  async refresh(): Promise<void> {
+    const inputs = await loadEvaluationInputs(this.ctx.db, this.id);
+    if (!inputs || this.closed) return;
+    this.inputs = inputs;
+    this.scheduleEvaluation();
+  }
+
+  close(): void {
+    this.closed = true;
+    clearInterval(this.compactTimer);
+    if (this.evalTimer) clearTimeout(this.evalTimer);
+    this.evalTimer = null;
+    this.awareness.destroy();
+  }
+
+  private async flush(): Promise<void> {
+    this.flushQueued = false;
+    const batch = this.incoming.splice(0);
+    const accepted: { peer: Peer; update: Uint8Array }[] = [];
+    for (const item of batch) {
+      let problem;
+      try {
+        problem = applyChecked(this.shadow, item.update, this.atomCount);
+      } catch {
+        item.peer.fail('The update could not be decoded.');
+        problem = undefined;
+      }
+      if (problem === null) {
+        accepted.push(item);
+        continue;
+      }
+      if (problem) item.peer.sendError({ code: 'update_refused', message: `Update refused: ${problem.message}`, details: problem });
+      this.shadow = copyOf(this.doc, accepted.map((a) => a.update));
+    }
+    if (accepted.length === 0) return;
+    this.lastUpdateId = await appendUpdates(this.ctx.db, this.id, accepted.map((a) => ({ userId: a.peer.userId, data: a.update })));
+    this.uncompacted += accepted.length;
+    for (const { peer, update } of accepted) {
+      Y.applyUpdate(this.doc, update, peer);
+      const frame = syncUpdateFrame(update);
+      for (const other of this.peers) if (other !== peer) other.send(frame);
+    }
+    this.scheduleEvaluation();
+    if (this.uncompacted >= this.opts.compactEvery) await this.compact();
+  }
+
+  private async compact(): Promise<void> {
+    if (this.uncompacted === 0) return;
+    const upTo = this.lastUpdateId;
+    await compactDoc(this.ctx.db, this.id, this.doc, upTo);
+    this.uncompacted = 0;
+  }
+
+  private scheduleEvaluation(): void {
+    if (this.evalTimer || this.closed) return;
+    this.evalTimer = setTimeout(() => {
+      this.evaluateNow();
+      const frame = this.evaluationFrame();
+      for (const p of this.peers) p.send(frame);
+      const beads = this.result?.evaluation?.beads.length ?? this.draft().beads.length;
+      void touchMapping(this.ctx.db, this.id, beads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
+    }, this.opts.evaluationDelayMs);
+  }
+
+  private evaluateNow(): void {
+    if (this.evalTimer) clearTimeout(this.evalTimer);
+    this.evalTimer = null;
+    this.result = evaluateDraft(this.inputs, this.draft());
+  }
+
+  private onAwareness = ({ added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown) => {
+    const peer = [...this.peers].find((p) => p === origin);
+    if (peer) {
+      for (const id of added) peer.controlled.add(id);
+      for (const id of removed) peer.controlled.delete(id);
+    }
+    const changed = [...added, ...updated, ...removed];
+    if (changed.length === 0) return;
+    const e = encoding.createEncoder();
+    encoding.writeVarUint(e, MESSAGE_AWARENESS);
+    encoding.writeVarUint8Array(e, encodeAwarenessUpdate(this.awareness, changed));
+    const frame = encoding.toUint8Array(e);
+    for (const p of this.peers) p.send(frame);
+  };
+}
+
+function copyOf(doc: Y.Doc, extra: Uint8Array[] = []): Y.Doc {
+  const copy = new Y.Doc();
+  Y.applyUpdate(copy, Y.encodeStateAsUpdate(doc));
+  for (const u of extra) Y.applyUpdate(copy, u);
+  return copy;
+}
+
+export function syncUpdateFrame(update: Uint8Array): Uint8Array {
+  const e = encoding.createEncoder();
+  encoding.writeVarUint(e, MESSAGE_SYNC);
+  encoding.writeVarUint(e, messageYjsUpdate);
+  encoding.writeVarUint8Array(e, update);
+  return encoding.toUint8Array(e);
+}

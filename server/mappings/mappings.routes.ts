@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import { validate } from '../http/validate';
+import { requireUser } from '../auth/access';
+import { can } from '../auth/permissions';
+import { unprocessable } from '../http/errors';
+import { idParam } from '../../src/shared/fields';
+import { createMappingBody, updateMappingBody, type CreateMappingBody, type MappingDetail } from '../../src/shared/mappings';
+import type { Mapping } from '../../src/shared/chem';
+import { authorizeMolecule } from '../molecules/molecule-access';
+import { authorizeMapping } from './mapping-access';
+import { createMapping, findMapping, listMappings, updateMapping } from './mappings.service';
+import type { EvaluationResult } from './evaluation';
+
+const params = z.object({ id: idParam });
+
+/** The live drafts (the collab server): current state of a draft, live or from MariaDB. */
+export interface DraftAccess {
+  read(mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult }>;
+  /** The mapping's settings changed (resolution, lock): re-read them and re-evaluate if live. */
+  refresh(filter: { mappingId?: number; moleculeId?: number; projectId?: number }): void;
+}
+
+export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
+  const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
+    const summary = await findMapping(ctx.db, id);
+    const { draft, result } = await drafts.read(id);
+    return { ...summary, draft, evaluation: result.evaluation, evaluationError: result.error, canEdit: canEdit && !summary.locked };
+  };
+
+  r.get('/api/molecules/:id/mappings', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMolecule(ctx.db, req, id, 'mapping:read');
+    res.json(await listMappings(ctx.db, id));
+  });
+
+  r.post('/api/molecules/:id/mappings', validate({ params, body: createMappingBody }), async (req, res) => {
+    const moleculeId = Number(req.params.id);
+    await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
+    const body = req.body as CreateMappingBody;
+    let draft: Mapping | null = null;
+    if (body.copyOf !== undefined) {
+      const source = await ctx.db('mappings').where({ id: body.copyOf, molecule_id: moleculeId }).first('id');
+      if (!source) throw unprocessable('copy_source_invalid', `Mapping ${body.copyOf} is not a mapping of this molecule.`, { copyOf: body.copyOf });
+      draft = (await drafts.read(body.copyOf)).draft;
+    }
+    const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);
+    res.status(201).json(await detail(id, true));
+  });
+
+  r.get('/api/mappings/:id', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    const { role } = await authorizeMapping(ctx.db, req, id, 'mapping:read');
+    res.json(await detail(id, can(requireUser(req), 'mapping:edit', { role })));
+  });
+
+  r.patch('/api/mappings/:id', validate({ params, body: updateMappingBody }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:edit');
+    await updateMapping(ctx.db, id, req.body);
+    drafts.refresh({ mappingId: id });
+    res.json(await detail(id, true));
+  });
+}

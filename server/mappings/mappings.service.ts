@@ -1,0 +1,81 @@
+import * as Y from 'yjs';
+import type { Db } from '../db/knex';
+import type { Mapping } from '../../src/shared/chem';
+import type { CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
+import { mappingToDoc } from '../../src/shared/mapping-doc';
+import { notFound } from '../http/errors';
+import { writeSnapshot } from '../collab/draft-store';
+
+// Knex for `mappings`. The draft itself lives in mapping_updates / mapping_snapshots (collab/draft-store).
+
+interface MappingRow {
+  id: number;
+  molecule_id: number;
+  project_id: number;
+  name: string;
+  resolution: MappingSummary['resolution'];
+  description: string;
+  locked: number | boolean;
+  bead_count: number;
+  created_at: Date;
+  updated_at: Date;
+}
+
+const COLUMNS = ['p.id', 'p.molecule_id', 'm.project_id', 'p.name', 'p.resolution', 'p.description', 'p.locked', 'p.bead_count', 'p.created_at', 'p.updated_at'];
+
+export function toMappingSummary(row: MappingRow): MappingSummary {
+  return {
+    id: row.id,
+    moleculeId: row.molecule_id,
+    projectId: row.project_id,
+    name: row.name,
+    resolution: row.resolution,
+    description: row.description,
+    locked: !!row.locked,
+    beadCount: row.bead_count,
+    createdAt: new Date(row.created_at).toISOString(),
+    updatedAt: new Date(row.updated_at).toISOString(),
+  };
+}
+
+const base = (db: Db) => db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id');
+
+export async function listMappings(db: Db, moleculeId: number): Promise<MappingSummary[]> {
+  const rows = await base(db).where('p.molecule_id', moleculeId).orderBy('p.name').orderBy('p.id').select(COLUMNS);
+  return rows.map(toMappingSummary);
+}
+
+export async function findMapping(db: Db, id: number): Promise<MappingSummary> {
+  const row = await base(db).where('p.id', id).first(COLUMNS);
+  if (!row) throw notFound('That mapping');
+  return toMappingSummary(row);
+}
+
+/** Creates a mapping whose draft is empty or a copy of `draft` (bead ids kept). */
+export async function createMapping(db: Db, moleculeId: number, body: CreateMappingBody, userId: number, draft: Mapping | null): Promise<number> {
+  return db.transaction(async (trx) => {
+    const [id] = await trx('mappings').insert({
+      molecule_id: moleculeId,
+      name: body.name,
+      resolution: body.resolution,
+      description: body.description ?? '',
+      created_by: userId,
+      bead_count: draft?.beads.length ?? 0,
+    });
+    if (draft) {
+      const doc = new Y.Doc();
+      mappingToDoc(doc, draft);
+      await writeSnapshot(trx, id, Y.encodeStateAsUpdate(doc), 0);
+    }
+    return id;
+  });
+}
+
+export async function updateMapping(db: Db, id: number, patch: UpdateMappingBody): Promise<void> {
+  await db('mappings').where({ id }).update({ ...patch, updated_at: db.fn.now() });
+}
+
+/** Kept current by the collab server after each evaluation, for lists. */
+export async function touchMapping(db: Db, id: number, beadCount: number): Promise<void> {
+  await db('mappings').where({ id }).update({ bead_count: beadCount, updated_at: db.fn.now() });
+}

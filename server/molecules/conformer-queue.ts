@@ -1,0 +1,84 @@
+import { EventEmitter } from 'node:events';
+import type { Logger } from 'pino';
+import type { Db } from '../db/knex';
+import { generateConformer } from '../chem/index';
+import { parseModel } from './molecule-view';
+import { setXyz } from './molecules.service';
+
+// Background 3D coordinates for molecules that arrived without them: one job at a time, in process,
+// in arrival order. The state lives in the molecule row (queued → running → done | failed), so a
+// restart picks up what was waiting. An uploaded 3D structure that lands meanwhile wins.
+// Emits 'settled' (moleculeId) when a job finished either way.
+
+/** Fixed so the same molecule always gets the same conformer (see generateConformer). */
+export const CONFORMER_SEED = 1;
+
+export class ConformerQueue extends EventEmitter {
+  private waiting: number[] = [];
+  private current: Promise<void> | null = null;
+  private closed = false;
+
+  constructor(
+    private readonly db: Db,
+    private readonly log: Logger,
+  ) {
+    super();
+  }
+
+  /** Re-queues jobs that a previous process left waiting or running. */
+  async resume(): Promise<void> {
+    const rows = await this.db('molecules').whereIn('conformer_status', ['queued', 'running']).orderBy('id').select('id');
+    for (const r of rows) this.enqueue(r.id);
+  }
+
+  enqueue(moleculeId: number): void {
+    if (this.closed || this.waiting.includes(moleculeId)) return;
+    this.waiting.push(moleculeId);
+    this.pump();
+  }
+
+  /** Jobs ahead of this molecule's, or null when it is not waiting. */
+  position(moleculeId: number): number | null {
+    const i = this.waiting.indexOf(moleculeId);
+    return i < 0 ? null : i;
+  }
+
+  /** Stops taking jobs and waits for the running one. */
+  async close(): Promise<void> {
+    this.closed = true;
+    this.waiting = [];
+    await this.current;
+  }
+
+  private pump(): void {
+    if (this.current || this.closed) return;
+    const id = this.waiting[0];
+    if (id === undefined) return;
+    this.current = this.run(id).finally(() => {
+      this.waiting.shift();
+      this.current = null;
+      if (!this.closed) this.emit('settled', id);
+      this.pump();
+    });
+  }
+
+  private async run(id: number): Promise<void> {
+    try {
+      const claimed = await this.db('molecules').where({ id }).whereIn('conformer_status', ['queued', 'running']).whereNull('xyz_source').update({ conformer_status: 'running' });
+      if (!claimed) return;
+      const row = await this.db('molecules').where({ id }).first('id', 'model');
+      const xyz = await generateConformer(parseModel(row), { seed: CONFORMER_SEED });
+      if (this.closed) return;
+      // Only if no 3D upload arrived while we worked.
+      const still = await this.db('molecules').where({ id, conformer_status: 'running' }).whereNull('xyz_source').first('id');
+      if (still) await setXyz(this.db, id, xyz, 'conformer');
+    } catch (err) {
+      if (this.closed) return;
+      this.log.warn({ err, moleculeId: id }, 'conformer generation failed');
+      await this.db('molecules')
+        .where({ id })
+        .update({ conformer_status: 'failed', conformer_error: (err as Error).message?.slice(0, 1000) ?? 'unknown error' })
+        .catch(() => undefined);
+    }
+  }
+}

@@ -1,0 +1,16 @@
+import type { Request } from 'express';
+import type { Db } from '../db/knex';
+import type { ProjectAction } from '../auth/permissions';
+import { authorizeProject, requireUser } from '../auth/access';
+import { notFound } from '../http/errors';
+
+/** A molecule's project, authorised for `action`: 401 anonymous, 404 unknown or invisible, 403 not allowed. */
+export async function authorizeMolecule(db: Db, req: Request, moleculeId: number, action: ProjectAction): Promise<number> {
+  requireUser(req);
+  const row = await db('molecules').where({ id: moleculeId }).first('project_id');
+  if (!row) throw notFound('That molecule');
+  await authorizeProject(db, req, row.project_id, action).catch((err) => {
+    throw err.status === 404 ? notFound('That molecule') : err;
+  });
+  return row.project_id;
+}
