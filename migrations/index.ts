@@ -9,6 +9,8 @@ import * as m007 from './20261202_007_molecule_models';
 import * as m008 from './20261202_008_mappings';
 import * as m009 from './20261202_009_mapping_drafts';
 import * as m010 from './20261202_010_bead_types';
+import * as m021 from './20261203_021_threads';
+import * as m022 from './20261203_022_threads_notifications';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -23,6 +25,8 @@ const migrations: Record<string, Knex.Migration> = {
   '20261202_008_mappings': m008,
   '20261202_009_mapping_drafts': m009,
   '20261202_010_bead_types': m010,
+  '20261203_021_threads': m021,
+  '20261203_022_threads_notifications': m022,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
