@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { AppError } from './errors';
+import { isChemError } from '../chem/errors';
 
 export const unknownRoute: RequestHandler = (req) => {
   throw new AppError(404, 'not_found', `No route ${req.method} ${req.path}.`);
@@ -26,6 +27,7 @@ export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
 
 function toAppError(err: unknown): AppError | null {
   if (err instanceof AppError) return err;
+  if (isChemError(err)) return new AppError(err.status, err.code, err.message, err.details);
   const bp = err as BodyParserError;
   if (bp && typeof bp === 'object') {
     if (bp.type === 'entity.parse.failed') return new AppError(400, 'malformed_json', 'The request body is not valid JSON.');
