@@ -43,6 +43,11 @@ export class ConformerQueue extends EventEmitter {
     return i < 0 ? null : i;
   }
 
+  /** Resolves once no job is waiting or running. */
+  async idle(): Promise<void> {
+    while (this.current) await this.current.catch(() => undefined);
+  }
+
   /** Stops taking jobs and waits for the running one. */
   async close(): Promise<void> {
     this.closed = true;

@@ -51,7 +51,9 @@ export async function listMolecules(db: Db, projectId: number, q: ListMoleculesQ
   if (q.tag) query.whereRaw('JSON_CONTAINS(m.tags, JSON_QUOTE(?))', [q.tag]);
   if (q.q) {
     const like = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    query.where((w) => w.whereLike('m.name', like).orWhereLike('m.notes', like).orWhereLike('m.formula', like).orWhereLike('m.canonical_smiles', like).orWhereLike('m.smiles', like));
+    query.where((w) => {
+      for (const col of ['m.name', 'm.notes', 'm.formula', 'm.canonical_smiles', 'm.smiles']) w.orWhere(col, 'like', like);
+    });
   }
   return query;
 }

@@ -1,0 +1,121 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+import { signedIn, type ApiClient } from '../helpers/client';
+import { demoMappingId, demoMoleculeId, demoProjectId, snapshot } from '../helpers/fixtures';
+import type { MappingDetail } from '../../src/shared/mappings';
+
+let t: TestApp;
+let projectId: number;
+let moleculeId: number;
+let mappingId: number;
+let modeller: ApiClient;
+let student: ApiClient;
+const TABLES = ['mappings', 'mapping_snapshots', 'mapping_updates', 'bead_types', 'bead_type_libraries'];
+
+beforeAll(async () => {
+  t = await createTestApp();
+  projectId = await demoProjectId(t.ctx.db);
+  moleculeId = await demoMoleculeId(t.ctx.db);
+  mappingId = await demoMappingId(t.ctx.db);
+  modeller = await signedIn(t.app, 'modeller@example.org');
+  student = await signedIn(t.app, 'student@example.org');
+});
+afterAll(() => t.stop());
+
+describe('mappings', () => {
+  it('lists a molecule’s mappings and returns the draft with its evaluation', async () => {
+    const list = await student.get(`/api/molecules/${moleculeId}/mappings`).expect(200);
+    expect(list.body).toEqual([expect.objectContaining({ id: mappingId, name: 'C12E4 at 4:1', resolution: '4:1', beadCount: 5, locked: false })]);
+    const res = await student.get(`/api/mappings/${mappingId}`).expect(200);
+    const m: MappingDetail = res.body;
+    expect(m.canEdit).toBe(false);
+    expect(m.draft.beads.map((b) => b.name)).toEqual(['T1', 'T2', 'T3', 'E1', 'E2']);
+    expect(m.evaluation?.resolution).toBe('4:1');
+    expect(m.evaluation?.beads.map((b) => b.heavyAtoms)).toEqual([4, 4, 4, 3, 3]);
+    // The demo leaves the last ethylene-oxide units open: atoms 18–24 are reported unassigned.
+    const unassigned = m.evaluation?.checks.filter((c) => c.atoms.includes(24)) ?? [];
+    expect(unassigned.length).toBeGreaterThan(0);
+    expect((await modeller.get(`/api/mappings/${mappingId}`).expect(200)).body.canEdit).toBe(true);
+  });
+
+  it('creates an empty mapping and a copy of another mapping’s draft', async () => {
+    const empty = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'Fresh 2:1', resolution: '2:1' }).expect(201);
+    expect(empty.body).toMatchObject({ name: 'Fresh 2:1', resolution: '2:1', description: '', draft: { beads: [] }, canEdit: true });
+    const copy = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'Copy', resolution: '4:1', copyOf: mappingId }).expect(201);
+    const original = (await modeller.get(`/api/mappings/${mappingId}`).expect(200)).body;
+    expect(copy.body.draft).toEqual(original.draft);
+    expect(copy.body.beadCount).toBe(5);
+  });
+
+  it('changes name, description and resolution; the evaluation follows the resolution', async () => {
+    const created = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'To edit', resolution: '4:1', copyOf: mappingId }).expect(201);
+    const res = await modeller.patch(`/api/mappings/${created.body.id}`, { name: 'Edited', description: 'Now 2:1.', resolution: '2:1' }).expect(200);
+    expect(res.body).toMatchObject({ name: 'Edited', description: 'Now 2:1.', resolution: '2:1' });
+    expect(res.body.evaluation.resolution).toBe('2:1');
+  });
+
+  it.each([
+    ['an unknown resolution', { name: 'X', resolution: '5:1' }, 400, 'validation_failed'],
+    ['no name', { resolution: '4:1' }, 400, 'validation_failed'],
+    ['an unknown field', { name: 'X', resolution: '4:1', beads: [] }, 400, 'validation_failed'],
+    ['a copy of a mapping of another molecule', { name: 'X', resolution: '4:1', copyOf: 2 }, 422, 'copy_source_invalid'],
+    ['a copy of a mapping that does not exist', { name: 'X', resolution: '4:1', copyOf: 99999 }, 422, 'copy_source_invalid'],
+  ])('refuses %s and changes nothing', async (_what, body, status, code) => {
+    const before = await snapshot(t.ctx.db, TABLES);
+    const res = await modeller.post(`/api/molecules/${moleculeId}/mappings`, body).expect(status);
+    expect(res.body.error).toMatchObject({ code, message: expect.any(String) });
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+  });
+
+  it('refuses bad edits and changes nothing', async () => {
+    const before = await snapshot(t.ctx.db, TABLES);
+    for (const body of [{}, { resolution: '1:1' }, { name: '' }, { locked: true }]) {
+      expect((await modeller.patch(`/api/mappings/${mappingId}`, body).expect(400)).body.error.code).toBe('validation_failed');
+    }
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+  });
+});
+
+describe('bead type libraries', () => {
+  const lib = (types: unknown[]) => modeller.put(`/api/projects/${projectId}/bead-types`, { types });
+
+  it('the demo project brings an illustrative library', async () => {
+    const res = await student.get(`/api/projects/${projectId}/bead-types`).expect(200);
+    expect(res.body.types.length).toBeGreaterThan(10);
+    expect(res.body.types[0].description).toMatch(/illustrative/i);
+  });
+
+  it('exports CSV and imports it back unchanged', async () => {
+    const before = (await modeller.get(`/api/projects/${projectId}/bead-types`).expect(200)).body.types;
+    const csv = await modeller.get(`/api/projects/${projectId}/bead-types?format=csv`).expect(200);
+    expect(csv.headers['content-type']).toMatch(/text\/csv/);
+    expect(csv.text.split('\n')[0]).toBe('name,size_class,charge,delta_g_min,delta_g_max,description');
+    const res = await modeller.put(`/api/projects/${projectId}/bead-types`, { csv: csv.text }).expect(200);
+    expect(res.body.types).toEqual(before);
+  });
+
+  it('replaces the library, and suggestions come from it', async () => {
+    const res = await lib([{ name: 'ANY', sizeClass: 'regular', charge: 0, deltaGMin: -1000, deltaGMax: 1000 }]).expect(200);
+    expect(res.body.types).toEqual([{ name: 'ANY', sizeClass: 'regular', charge: 0, deltaGMin: -1000, deltaGMax: 1000, description: '' }]);
+    expect(res.body.updatedAt).toEqual(expect.any(String));
+    const m = (await modeller.get(`/api/mappings/${mappingId}`).expect(200)).body as MappingDetail;
+    const regular = m.evaluation!.beads.filter((b) => b.sizeClass === 'regular');
+    expect(regular.length).toBeGreaterThan(0);
+    for (const b of regular) expect(b.suggestedType).toBe('ANY');
+  });
+
+  it.each([
+    ['duplicate names', { types: [{ name: 'A', sizeClass: 'regular', charge: 0, deltaGMin: 0, deltaGMax: 1 }, { name: 'A', sizeClass: 'small', charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a range whose minimum exceeds its maximum', { types: [{ name: 'A', sizeClass: 'regular', charge: 0, deltaGMin: 5, deltaGMax: 1 }] }],
+    ['an unknown size class', { types: [{ name: 'A', sizeClass: 'huge', charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a fractional charge', { types: [{ name: 'A', sizeClass: 'regular', charge: 0.5, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a CSV row with a missing number', { csv: 'name,size_class,charge,delta_g_min,delta_g_max\nA,regular,0,,1\n' }],
+    ['a CSV without its header', { csv: 'A,regular,0,0,1\n' }],
+    ['neither types nor csv', { rows: [] }],
+  ])('refuses %s and changes nothing', async (_what, body) => {
+    const before = await snapshot(t.ctx.db, TABLES);
+    const res = await modeller.put(`/api/projects/${projectId}/bead-types`, body).expect(400);
+    expect(res.body.error).toMatchObject({ code: 'validation_failed', message: expect.any(String) });
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+  });
+});
