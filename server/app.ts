@@ -24,6 +24,7 @@ import { beadTypeRoutes } from './bead-types/bead-types.routes';
 import { createCollab, type Collab } from './collab/collab-server';
 import type { CollabOptions } from './collab/room';
 import { chemRoutes } from './chem-api/chem.routes';
+import { registerThreads } from './threads/register';
 
 export interface BuiltApp {
   app: Express;
@@ -84,6 +85,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   mappingRoutes(routes, ctx, collab);
   beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
   chemRoutes(routes, ctx);
+  registerThreads(routes, ctx);
   if (ctx.mailSinkInUse) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);

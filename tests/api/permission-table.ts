@@ -1,5 +1,6 @@
 import type { Db } from '../../server/db/knex';
 import { createAccount, createMolecule, demoMappingId, demoMoleculeId, demoProjectId, userId } from '../helpers/fixtures';
+import { createThreadFixture, firstBeadId, sharedThread } from './threads-fixtures';
 
 // The route × role table: for every route of the app, what each kind of caller
 // gets. The permission test fails when the app has a route that is not here.
@@ -178,6 +179,49 @@ export const ROUTE_CASES: RouteCase[] = [
   },
   { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: all(200) },
   { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: all(200) },
+  // Threads and notifications (docs/threads.md). Event streams answer 406 to a caller that does not ask
+  // for text/event-stream, after the permission check; tests/api/threads-live.test.ts reads the streams.
+  { method: 'get', path: '/api/mappings/:id/threads', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/threads` }), expect: inProject(200, EVERYONE) },
+  {
+    method: 'post',
+    path: '/api/mappings/:id/threads',
+    request: async (env, c) => {
+      const mappingId = await demoMappingId(env.db);
+      return { url: `/api/mappings/${mappingId}/threads`, body: { beadId: await firstBeadId(env.db, mappingId), body: `Opened by ${c}.` } };
+    },
+    expect: inProject(201, EVERYONE),
+  },
+  {
+    method: 'post',
+    path: '/api/threads/:id/comments',
+    request: async (env, c) => ({ url: `/api/threads/${(await sharedThread(env.db)).threadId}/comments`, body: { body: `Reply by ${c}.` } }),
+    expect: inProject(201, EVERYONE),
+  },
+  {
+    method: 'patch',
+    path: '/api/threads/:id',
+    request: async (env) => ({ url: `/api/threads/${(await sharedThread(env.db)).threadId}`, body: { resolved: true } }),
+    expect: inProject(200, EVERYONE),
+  },
+  // Only its author (here the modeller) edits a comment; supervisors and admins may not either.
+  {
+    method: 'patch',
+    path: '/api/comments/:id',
+    request: async (env, c) => ({ url: `/api/comments/${(await sharedThread(env.db)).commentId}`, body: { body: `Edit attempt by ${c}.` } }),
+    expect: { ...inProject(200, EDITORS), supervisor: 403, admin: 403 },
+  },
+  {
+    method: 'delete',
+    path: '/api/comments/:id',
+    request: async (env) => ({ url: `/api/comments/${(await createThreadFixture(env.db)).commentId}` }),
+    expect: inProject(204, EDITORS),
+  },
+  { method: 'get', path: '/api/mappings/:id/events', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/events` }), expect: inProject(406, EVERYONE) },
+  { method: 'get', path: '/api/notifications', request: url('/api/notifications'), expect: signedIn(200) },
+  { method: 'post', path: '/api/notifications/read', request: async () => ({ url: '/api/notifications/read', body: { all: true } }), expect: signedIn(200) },
+  { method: 'get', path: '/api/notifications/events', request: url('/api/notifications/events'), expect: signedIn(406) },
+  { method: 'get', path: '/api/me/preferences', request: url('/api/me/preferences'), expect: signedIn(200) },
+  { method: 'put', path: '/api/me/preferences', request: async () => ({ url: '/api/me/preferences', body: { emailOnMention: true, emailOnReply: false } }), expect: signedIn(200) },
 ];
 
 export async function caseEnv(db: Db): Promise<CaseEnv> {

@@ -1,0 +1,50 @@
+import type { AppContext } from '../context';
+import { wantsEmail, type NotificationEvent } from '../../src/shared/notifications';
+import { mentionedIds } from '../../src/shared/threads-mentions';
+import { threadLink } from '../../src/shared/threads';
+import { participants, projectMembers } from '../threads/threads.service';
+import { userChannel, type LiveHub } from '../threads/live-hub';
+import { recipients } from './recipients';
+import { notificationMail } from './notification-mail';
+import { getPreferences, insertNotifications, unreadCount } from './notifications.service';
+
+// After a comment is stored: notify the people it concerns (recipients.ts) in the app, live, and by
+// e-mail as their preferences say. A failing e-mail is logged; it never undoes the comment.
+
+export interface NewComment {
+  projectId: number;
+  mappingId: number;
+  threadId: number;
+  commentId: number;
+  beadId: string;
+  beadName: string;
+  author: { id: number; displayName: string };
+  body: string;
+}
+
+export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewComment): Promise<void> {
+  const members = await projectMembers(ctx.db, c.projectId);
+  const earlier = (await participants(ctx.db, c.threadId)).filter((id) => id !== c.author.id);
+  const targets = recipients({ authorId: c.author.id, mentioned: mentionedIds(c.body), participants: earlier, members: new Set(members.keys()) });
+  if (!targets.length) return;
+  await insertNotifications(ctx.db, targets.map((t) => ({ ...t, threadId: c.threadId, commentId: c.commentId, actorId: c.author.id })));
+
+  const mapping = await ctx.db('mappings').where({ id: c.mappingId }).first('name');
+  const link = threadLink(ctx.config.appUrl, c.mappingId, c.beadId, c.threadId);
+  for (const t of targets) {
+    const event: NotificationEvent = { type: 'notifications', unread: await unreadCount(ctx.db, t.userId) };
+    live.publish(userChannel(t.userId), event.type, event);
+    if (!wantsEmail(await getPreferences(ctx.db, t.userId), t.kind)) continue;
+    const to = await ctx.db('users').where({ id: t.userId }).first('email', 'display_name');
+    const mail = notificationMail({
+      to: { email: to.email, displayName: to.display_name },
+      kind: t.kind,
+      actorName: c.author.displayName,
+      mappingName: mapping?.name ?? `Mapping ${c.mappingId}`,
+      beadName: c.beadName,
+      body: c.body,
+      link,
+    });
+    await ctx.mailer.send(mail).catch((err) => ctx.log.error({ err, userId: t.userId }, 'notification e-mail failed'));
+  }
+}

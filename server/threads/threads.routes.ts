@@ -1,0 +1,112 @@
+import { z } from 'zod';
+import type { RequestHandler } from 'express';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import { validate } from '../http/validate';
+import { requireUser } from '../auth/access';
+import { AppError, forbidden, tooLarge, unprocessable } from '../http/errors';
+import { authorizeMapping } from '../mappings/mapping-access';
+import { idParam } from '../../src/shared/fields';
+import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, updateCommentBody, updateThreadBody, type ListThreadsQuery, type ThreadEvent } from '../../src/shared/threads';
+import { normaliseMentions } from '../../src/shared/threads-mentions';
+import { notifyComment } from '../notifications/notify';
+import { draftBeads } from './draft-beads';
+import { mappingChannel, wantsEventStream, type LiveHub } from './live-hub';
+import { authorizeComment, authorizeThread } from './thread-access';
+import * as threads from './threads.service';
+
+const params = z.object({ id: idParam });
+
+/** Over-long bodies answer 413 (not a 400 validation error), before anything else looks at them. */
+const bodyLimit: RequestHandler = (req, _res, next) => {
+  const body = (req.body as { body?: unknown } | undefined)?.body;
+  if (typeof body === 'string' && body.length > COMMENT_MAX) throw tooLarge(`A comment has at most ${COMMENT_MAX} characters; this one has ${body.length}.`, { max: COMMENT_MAX, length: body.length });
+  next();
+};
+
+export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): void {
+  const db = ctx.db;
+
+  /** Mentions rewritten against the project's members (threads-mentions.ts); still within the limit. */
+  const prepare = async (projectId: number, body: string) => {
+    const text = normaliseMentions(body, await threads.projectMembers(db, projectId));
+    if (text.length > COMMENT_MAX) throw tooLarge(`A comment has at most ${COMMENT_MAX} characters.`, { max: COMMENT_MAX, length: text.length });
+    return text;
+  };
+
+  /** Tells everyone viewing the mapping; returns the thread as it is now. */
+  const publish = async (threadId: number, mappingId: number) => {
+    const thread = await threads.getThread(db, threadId, await draftBeads(db, mappingId));
+    const event: ThreadEvent = { type: 'thread', thread };
+    live.publish(mappingChannel(mappingId), event.type, event);
+    return thread;
+  };
+
+  r.get('/api/mappings/:id/threads', validate({ params, query: listThreadsQuery }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(db, req, id, 'thread:read');
+    res.json(await threads.listThreads(db, id, await draftBeads(db, id), (req.query as unknown as ListThreadsQuery).status));
+  });
+
+  r.post('/api/mappings/:id/threads', bodyLimit, validate({ params, body: createThreadBody }), async (req, res) => {
+    const mappingId = Number(req.params.id);
+    const user = requireUser(req);
+    const { projectId } = await authorizeMapping(db, req, mappingId, 'comment:create');
+    const { beadId, body } = req.body as z.infer<typeof createThreadBody>;
+    const beads = await draftBeads(db, mappingId);
+    if (!beads.ever.has(beadId) && !(await threads.beadRecorded(db, mappingId, beadId))) {
+      throw unprocessable('unknown_bead', 'This mapping has never had a bead with that id.', { beadId });
+    }
+    const text = await prepare(projectId, body);
+    const { threadId, commentId } = await threads.createThread(db, { mappingId, beadId, beadName: beads.current.get(beadId) ?? null, userId: user.id, body: text });
+    const thread = await publish(threadId, mappingId);
+    await notifyComment(ctx, live, { projectId, mappingId, threadId, commentId, beadId, beadName: thread.beadName, author: user, body: text });
+    res.status(201).json(thread);
+  });
+
+  r.post('/api/threads/:id/comments', bodyLimit, validate({ params, body: createCommentBody }), async (req, res) => {
+    const user = requireUser(req);
+    const place = await authorizeThread(db, req, Number(req.params.id), 'comment:create');
+    const text = await prepare(place.projectId, (req.body as { body: string }).body);
+    const commentId = await threads.addComment(db, place.threadId, user.id, text);
+    const thread = await publish(place.threadId, place.mappingId);
+    await notifyComment(ctx, live, { ...place, commentId, beadName: thread.beadName, author: user, body: text });
+    res.status(201).json(thread.comments.find((c) => c.id === commentId));
+  });
+
+  r.patch('/api/threads/:id', validate({ params, body: updateThreadBody }), async (req, res) => {
+    const place = await authorizeThread(db, req, Number(req.params.id), 'comment:create');
+    await threads.setResolved(db, place.threadId, requireUser(req).id, (req.body as { resolved: boolean }).resolved);
+    res.json(await publish(place.threadId, place.mappingId));
+  });
+
+  r.patch('/api/comments/:id', bodyLimit, validate({ params, body: updateCommentBody }), async (req, res) => {
+    const id = Number(req.params.id);
+    const place = await authorizeComment(db, req, id, 'comment:create');
+    if (place.authorId !== requireUser(req).id) throw forbidden('Only its author may edit a comment.');
+    if (place.deleted) throw new AppError(409, 'comment_deleted', 'That comment has been deleted.');
+    await threads.editComment(db, id, await prepare(place.projectId, (req.body as { body: string }).body));
+    const thread = await publish(place.threadId, place.mappingId);
+    res.json(thread.comments.find((c) => c.id === id));
+  });
+
+  r.delete('/api/comments/:id', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    const user = requireUser(req);
+    // Authors delete their own comments; supervisors (comment:moderate) delete anyone's.
+    const own = await authorizeComment(db, req, id, 'comment:create');
+    if (own.authorId !== user.id) await authorizeComment(db, req, id, 'comment:moderate');
+    if (!own.deleted) {
+      await threads.deleteComment(db, id, user.id);
+      await publish(own.threadId, own.mappingId);
+    }
+    res.status(204).end();
+  });
+
+  r.get('/api/mappings/:id/events', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(db, req, id, 'thread:read');
+    if (!wantsEventStream(req)) throw new AppError(406, 'not_acceptable', 'This is a server-sent event stream: ask for text/event-stream.');
+    live.stream(req, res, mappingChannel(id));
+  });
+}

@@ -1,0 +1,32 @@
+import type { Db } from '../../server/db/knex';
+import { draftBeads } from '../../server/threads/draft-beads';
+import { demoMappingId, userId } from '../helpers/fixtures';
+
+// Fixtures for thread tests and the route × role table: threads and comments written straight into
+// MariaDB, on a bead the demo mapping really has.
+
+export async function firstBeadId(db: Db, mappingId: number): Promise<string> {
+  const [id] = (await draftBeads(db, mappingId)).current.keys();
+  if (!id) throw new Error(`mapping ${mappingId} has no beads`);
+  return id;
+}
+
+/** A thread on the demo mapping's first bead, opened by `email` with one comment. */
+export async function createThreadFixture(db: Db, email = 'modeller@example.org', body = 'Fixture comment.'): Promise<{ threadId: number; commentId: number; mappingId: number }> {
+  const mappingId = await demoMappingId(db);
+  const author = await userId(db, email);
+  const [threadId] = await db('threads').insert({ mapping_id: mappingId, bead_id: await firstBeadId(db, mappingId), created_by: author });
+  const [commentId] = await db('thread_comments').insert({ thread_id: threadId, author_id: author, body });
+  return { threadId: threadId as number, commentId: commentId as number, mappingId };
+}
+
+let shared: Promise<{ threadId: number; commentId: number; mappingId: number }> | null = null;
+let sharedDb: Db | null = null;
+/** One fixture thread per database, reused across callers. */
+export function sharedThread(db: Db) {
+  if (!shared || sharedDb !== db) {
+    sharedDb = db;
+    shared = createThreadFixture(db);
+  }
+  return shared;
+}
