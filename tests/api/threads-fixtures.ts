@@ -30,3 +30,26 @@ export function sharedThread(db: Db) {
   }
   return shared;
 }
+
+/** Changes the stored draft the way an accepted collab update does (draft-store append). */
+export async function editDraft(db: Db, mappingId: number, edit: (doc: import('yjs').Doc) => void): Promise<void> {
+  const Y = await import('yjs');
+  const { loadDraft, appendUpdates } = await import('../../server/collab/draft-store');
+  const { doc } = await loadDraft(db, mappingId);
+  const before = Y.encodeStateVector(doc);
+  edit(doc);
+  await appendUpdates(db, mappingId, [{ userId: null, data: Y.encodeStateAsUpdate(doc, before) }]);
+}
+
+/** A project of its own (supervisor only) with a molecule and a one-bead mapping. */
+export async function otherProjectMapping(db: Db): Promise<{ projectId: number; mappingId: number }> {
+  const { createMolecule } = await import('../helpers/fixtures');
+  const { createMapping } = await import('../../server/mappings/mappings.service');
+  const sup = await userId(db, 'supervisor@example.org');
+  const [projectId] = await db('projects').insert({ name: 'Elsewhere', description: '', created_by: sup });
+  await db('project_members').insert({ project_id: projectId, user_id: sup, role: 'supervisor' });
+  const moleculeId = await createMolecule(db, projectId as number, 'Ethanol elsewhere');
+  const draft = { beads: [{ id: 'bx1', name: 'E', centre: 'mass' as const, atoms: [0, 1, 2].map((index) => ({ index, weight: 1 })) }] };
+  const mappingId = await createMapping(db, moleculeId, { name: 'Other', resolution: '2:1' }, sup, draft);
+  return { projectId: projectId as number, mappingId };
+}
