@@ -5,6 +5,8 @@ import { queryClient } from './provider';
 import { AccountRoute } from './routes/account';
 import { AdminUsersRoute } from './routes/admin-users';
 import { MappingRoute } from './routes/mapping';
+import { MoleculeRoute } from './routes/molecule';
+import { NewMoleculeRoute } from './routes/new-molecule';
 import { ForgotPasswordRoute } from './routes/forgot-password';
 import { NotFoundRoute } from './routes/not-found';
 import { ProjectRoute } from './routes/project';
@@ -27,6 +29,8 @@ export const router = createBrowserRouter([
       { index: true, element: <Navigate to={paths.projects} replace /> },
       { path: paths.projects, element: <ProjectsRoute /> },
       { path: '/projects/:projectId', element: <ProjectRoute /> },
+      { path: '/projects/:projectId/molecules/new', element: <NewMoleculeRoute /> },
+      { path: '/molecules/:moleculeId', element: <MoleculeRoute /> },
       { path: '/mappings/:mappingId', element: <MappingRoute /> },
       { path: paths.adminUsers, element: <AdminUsersRoute /> },
       { path: paths.account, element: <AccountRoute /> },

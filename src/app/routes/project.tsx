@@ -10,7 +10,8 @@ import { useProject } from '../../features/projects/api/get-project';
 import { AddMemberForm } from '../../features/projects/components/add-member-form';
 import { EditProjectForm } from '../../features/projects/components/edit-project-form';
 import { MemberList } from '../../features/projects/components/member-list';
-import { MoleculeList } from '../../features/projects/components/molecule-list';
+import { BeadTypeLibrary } from '../../features/bead-types/components/bead-type-library';
+import { MoleculeList } from '../../features/molecules/components/molecule-list';
 import { RoleBadge } from '../../features/projects/components/role-badge';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
@@ -38,6 +39,7 @@ function ProjectPage({ projectId }: { projectId: number }) {
 
   // Mirrors the server's rule: supervisors of this project and site admins manage it.
   const canManage = me.isAdmin || project.data.role === 'supervisor';
+  const canModel = me.isAdmin || project.data.role === 'supervisor' || project.data.role === 'modeller';
 
   return (
     <>
@@ -58,7 +60,11 @@ function ProjectPage({ projectId }: { projectId: number }) {
         </Section>
       )}
       <div className="grid items-start gap-6 lg:grid-cols-2">
-        <Section title="Molecules" description="Structures this group maps to beads.">
+        <Section
+          title="Molecules"
+          description="Structures this group maps to beads."
+          actions={canModel && <TextLink to={paths.newMolecule(projectId)}>New molecule</TextLink>}
+        >
           <MoleculeList projectId={projectId} />
         </Section>
         <div className="flex flex-col gap-6">
@@ -72,6 +78,9 @@ function ProjectPage({ projectId }: { projectId: number }) {
           )}
         </div>
       </div>
+      <Section title="Bead type library" className="mt-6" description="The types bead suggestions are drawn from (ΔG_OW in kJ/mol, positive prefers octanol).">
+        <BeadTypeLibrary projectId={projectId} canEdit={canModel} />
+      </Section>
     </>
   );
 }
