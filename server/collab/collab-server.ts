@@ -108,8 +108,8 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
       });
     },
     async close() {
-      for (const ws of wss.clients) ws.terminate();
       await rooms.closeAll();
+      for (const ws of wss.clients) ws.terminate();
       wss.close();
     },
   };

@@ -118,7 +118,7 @@ export class Room {
   leave(peer: Peer): Promise<boolean> {
     this.peers.delete(peer);
     removeAwarenessStates(this.awareness, [...peer.controlled], null);
-    if (this.peers.size > 0) return Promise.resolve(false);
+    if (this.peers.size > 0 || this.closed) return Promise.resolve(false);
     return this.serial(async () => {
       await this.compact();
       const empty = this.peers.size === 0;
@@ -159,6 +159,12 @@ export class Room {
     if (!inputs || this.closed) return;
     this.inputs = inputs;
     this.scheduleEvaluation();
+  }
+
+  /** Finishes queued work, compacts, and closes (server shutdown). */
+  async shutdown(): Promise<void> {
+    await this.serial(() => this.compact());
+    this.close();
   }
 
   close(): void {

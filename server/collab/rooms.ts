@@ -43,10 +43,7 @@ export class Rooms {
 
   /** Waits for queued work (persistence, compaction) and closes every room. */
   async closeAll(): Promise<void> {
-    for (const room of await this.all()) {
-      await room.serial(() => undefined);
-      room.close();
-    }
+    for (const room of await this.all()) await room.shutdown();
     this.rooms.clear();
   }
 }

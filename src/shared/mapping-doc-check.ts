@@ -95,6 +95,10 @@ export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
  * update: the caller must throw this copy away and rebuild it from the accepted state.
  */
 export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, origin?: unknown): DocProblem | null {
+  // Typed access first: a top-level type that an update created is generic until getMap() converts
+  // it, and the transaction would then name the generic one.
+  const beads = beadsOf(doc) as Y.Map<unknown>;
+  const atoms = atomsOf(doc) as Y.Map<unknown>;
   const transactions: Y.Transaction[] = [];
   const collect = (tr: Y.Transaction) => void transactions.push(tr);
   doc.on('afterTransaction', collect);
@@ -105,8 +109,6 @@ export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, 
   }
   const top = checkTopLevel(doc);
   if (top) return top;
-  const beads = beadsOf(doc) as Y.Map<unknown>;
-  const atoms = atomsOf(doc) as Y.Map<unknown>;
   for (const tr of transactions) {
     for (const [changed, keys] of tr.changed) {
       const type = changed as unknown as Y.AbstractType<unknown>;

@@ -6,6 +6,7 @@ import { startMailSink } from '../../server/mail/sink';
 import type { AppContext } from '../../server/context';
 import { seedDemo } from '../../seeds/demo';
 import { createTestDatabase, type TestDatabase } from './db';
+import type { CollabOptions } from '../../server/collab/room';
 
 // The real Express app on a fresh, migrated and demo-seeded database, with the
 // real local SMTP sink. Tests drive it with supertest (see client.ts).
@@ -18,7 +19,7 @@ export interface TestApp extends BuiltApp {
   stop(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
+export async function createTestApp(overrides: Partial<Config> = {}, collabOptions: Partial<CollabOptions> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   await seedDemo(database.db, 12);
   const sink = await startMailSink(database.db);
@@ -30,7 +31,7 @@ export async function createTestApp(overrides: Partial<Config> = {}): Promise<Te
   };
   const mailer = createMailer(sink.url, config.mailFrom);
   const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true };
-  const built = createApp(ctx);
+  const built = createApp(ctx, collabOptions);
   return {
     ...built,
     ctx,

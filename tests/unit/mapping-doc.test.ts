@@ -135,6 +135,12 @@ describe('applyChecked', () => {
     expect(applyChecked(doc, update, ATOMS)).toBeNull();
   });
 
+  it('accepts a new bead on a copy that was built from an update alone', () => {
+    const copy = new Y.Doc();
+    Y.applyUpdate(copy, Y.encodeStateAsUpdate(base()));
+    expect(applyChecked(copy, updateOf(copy, (d) => createBead(d, [5])), ATOMS)).toBeNull();
+  });
+
   it.each([
     ['an unknown top-level name', (d: Y.Doc) => d.getMap('extra').set('k', 1), 'unknown_key'],
     ['list content at the top', (d: Y.Doc) => d.getArray('atoms').push([1]), 'wrong_type'],
