@@ -5,6 +5,7 @@ import { Section } from '../../components/ui/section';
 import { ChangePasswordForm } from '../../features/account/components/change-password-form';
 import { DisplayNameForm } from '../../features/account/components/display-name-form';
 import { useLogout } from '../../features/auth/api/logout';
+import { EmailPreferencesForm } from '../../features/notifications/components/email-preferences-form';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { paths } from '../../lib/paths';
 import { useCurrentUser } from '../shell/current-user';
@@ -21,6 +22,9 @@ export function AccountRoute() {
       <div className="flex flex-col gap-6">
         <Section title="Profile">
           <DisplayNameForm me={me} />
+        </Section>
+        <Section title="E-mail notifications" description="Mentions and replies on bead threads.">
+          <EmailPreferencesForm />
         </Section>
         <Section title="Password">
           <ChangePasswordForm />

@@ -6,6 +6,8 @@ import { useBeadTypes } from '../../features/bead-types/api/get-bead-types';
 import { LiveMapping } from '../../features/editor/components/live-mapping';
 import { useMapping } from '../../features/mappings/api/get-mapping';
 import { useMolecule } from '../../features/molecules/api/get-molecule';
+import { useEditorThreads } from '../../features/threads/hooks/use-editor-threads';
+import { useCurrentUser } from '../shell/current-user';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
@@ -40,7 +42,16 @@ function MappingPage({ mappingId }: { mappingId: number }) {
         <span className="rounded-full bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-800">{mapping.data.resolution} target</span>
         {mapping.data.locked && <span className="rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Production version locked</span>}
       </header>
-      <LiveMapping mapping={mapping.data} molecule={molecule.data.model} library={library.data.types} />
+      <MappingWithThreads mapping={mapping.data} molecule={molecule.data.model} library={library.data.types} />
     </div>
   );
+}
+
+/** The editor with comment threads on its beads (badges, the panel beside the canvas, deep links). */
+function MappingWithThreads(props: Parameters<typeof LiveMapping>[0]) {
+  const me = useCurrentUser();
+  const { projectId } = props.mapping;
+  const canModerate = me.isAdmin || me.projects.some((p) => p.projectId === projectId && p.role === 'supervisor');
+  const threads = useEditorThreads({ mappingId: props.mapping.id, projectId, me: { id: me.id, canModerate } });
+  return <LiveMapping {...props} threads={threads} />;
 }

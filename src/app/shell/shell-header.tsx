@@ -3,6 +3,7 @@ import type { Me } from '../../shared/auth';
 import { Button } from '../../components/ui/button';
 import { Logo } from '../../components/ui/logo';
 import { useLogout } from '../../features/auth/api/logout';
+import { NotificationBell } from '../../features/notifications/components/notification-bell';
 import { cn } from '../../lib/cn';
 import { paths } from '../../lib/paths';
 
@@ -33,6 +34,7 @@ export function ShellHeader({ me }: { me: Me }) {
           )}
         </nav>
         <div className="flex items-center gap-3">
+          <NotificationBell />
           <NavLink to={paths.account} className={navLink} aria-label={`Your account (${me.displayName})`}>
             <span className="inline-flex items-center gap-2">
               <span aria-hidden="true" className="grid size-6 place-items-center rounded-full bg-ink-700 text-xs text-paper-50">

@@ -5,6 +5,7 @@ import { setType } from '../../../shared/mapping-doc';
 import type { EditorContext } from '../commands/registry';
 import type { BeadView } from '../model/bead-view';
 import { formatFixed, formatMass, formatSigned } from '../model/number-format';
+import { ThreadCountButton, type EditorThreads } from './thread-badges';
 
 interface Row {
   bead: BeadView;
@@ -15,7 +16,7 @@ const col = createColumnHelper<Row>();
 const CENTRE_LABEL = { mass: 'Mass', geometry: 'Geometry', 'geometry-heavy': 'Geometry (heavy)' } as const;
 
 /** One row per bead with the server's live numbers; a row press selects the bead. */
-export function BeadTable({ ctx, evaluation, onSelectBead }: { ctx: EditorContext; evaluation: Evaluation | null; onSelectBead(id: string): void }) {
+export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: EditorContext; evaluation: Evaluation | null; onSelectBead(id: string): void; threads?: EditorThreads }) {
   const rows = useMemo(() => {
     const byId = new Map(evaluation?.beads.map((b) => [b.id, b]));
     return ctx.view.beads.map((bead) => ({ bead, ev: byId.get(bead.id) }));
@@ -30,6 +31,7 @@ export function BeadTable({ ctx, evaluation, onSelectBead }: { ctx: EditorContex
           <span className="flex items-center gap-2 font-semibold">
             <span aria-hidden="true" className="size-3 shrink-0 rounded-full" style={{ background: row.original.bead.colour }} />
             {row.original.bead.name}
+            <ThreadCountButton threads={threads} beadId={row.original.bead.id} beadName={row.original.bead.name} always />
           </span>
         ),
       }),
@@ -48,7 +50,7 @@ export function BeadTable({ ctx, evaluation, onSelectBead }: { ctx: EditorContex
       }),
       col.accessor((r) => r.bead.centre, { id: 'centre', header: 'Centre', cell: (c) => CENTRE_LABEL[c.getValue()] }),
     ],
-    [ctx],
+    [ctx, threads],
   );
 
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.bead.id });

@@ -15,6 +15,7 @@ import { Panel } from './panel';
 import { ConnectionBadge, PresenceList } from './presence-bar';
 import { ShortcutHelp } from './shortcut-help';
 import { TotalsBar } from './totals-bar';
+import type { EditorThreads } from './thread-badges';
 
 interface EditorLayoutProps {
   onKeyDown(e: KeyboardEvent): void;
@@ -29,6 +30,7 @@ interface EditorLayoutProps {
   readOnlyReason: 'role' | 'locked' | null;
   activeCheck: Check | null;
   onShowCheck(check: Check | null): void;
+  threads?: EditorThreads;
 }
 
 const READ_ONLY_TEXT = { role: 'Students watch the draft live; editing is for modellers and supervisors.', locked: 'A production version is locked, so the draft is read-only until a supervisor unlocks it.' };
@@ -65,9 +67,11 @@ export function EditorLayout(p: EditorLayoutProps) {
             onSize={state.onSize}
             gestures={state.gestures}
             readOnly={state.ctx.readOnly}
+            threads={p.threads}
           />
         </div>
         <div className="flex flex-col gap-3">
+          {p.threads?.panel(active ? { id: active.id, name: active.name } : null)}
           <Panel title={active ? 'Active bead' : 'Selection'}>
             {active ? (
               <BeadInspector
@@ -93,7 +97,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         </div>
       </div>
       <Panel title="Beads">
-        <BeadTable ctx={state.ctx} evaluation={p.evaluation} onSelectBead={(id) => state.selectBead(id, false)} />
+        <BeadTable ctx={state.ctx} evaluation={p.evaluation} onSelectBead={(id) => state.selectBead(id, false)} threads={p.threads} />
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
     </div>

@@ -5,11 +5,14 @@ import type { MappingDetail } from '../../../shared/mappings';
 import { useMappingSession, useSessionSnapshot } from '../hooks/use-mapping-session';
 import type { MappingSession } from '../collab/mapping-session';
 import { MappingEditor } from './mapping-editor';
+import type { EditorThreads } from './thread-badges';
 
 interface LiveMappingProps {
   mapping: MappingDetail;
   molecule: Molecule;
   library: readonly BeadTypeRow[];
+  /** Comment threads on beads (badges, panel, deep link), when the page has them. */
+  threads?: EditorThreads;
 }
 
 /** Opens the live draft of a mapping and shows the editor on it. */

@@ -1,4 +1,4 @@
-import { useMemo, useState, type KeyboardEvent } from 'react';
+import { useEffect, useMemo, useState, type KeyboardEvent } from 'react';
 import type { BeadTypeRow } from '../../../shared/bead-types';
 import type { Check, Molecule } from '../../../shared/chem';
 import type { MappingDetail } from '../../../shared/mappings';
@@ -11,18 +11,20 @@ import { useMappingView } from '../hooks/use-mapping-view';
 import { usePeers } from '../hooks/use-peers';
 import { unassignedAtoms } from '../model/bead-view';
 import { EditorLayout } from './editor-layout';
+import type { EditorThreads } from './thread-badges';
 
 interface MappingEditorProps {
   session: MappingSession;
   mapping: MappingDetail;
   molecule: Molecule;
   library: readonly BeadTypeRow[];
+  threads?: EditorThreads;
 }
 
 const typing = (el: EventTarget) => el instanceof HTMLElement && (el.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(el.tagName));
 
 /** The live mapping editor: wires the session, the document view and the editor state to the panels. */
-export function MappingEditor({ session, mapping, molecule, library }: MappingEditorProps) {
+export function MappingEditor({ session, mapping, molecule, library, threads }: MappingEditorProps) {
   const snapshot = useSessionSnapshot(session);
   const view = useMappingView(session.doc, molecule.bonds);
   const peers = usePeers(session, molecule.atoms.length);
@@ -31,6 +33,12 @@ export function MappingEditor({ session, mapping, molecule, library }: MappingEd
   const suggestions = useMemo(() => new Map(evaluation?.beads.map((b) => [b.id, b.suggestedType]) ?? []), [evaluation]);
   const state = useEditorState(session, molecule, view, readOnly, suggestions);
   const [activeCheck, setActiveCheck] = useState<Check | null>(null);
+  // A deep link (?bead=) selects its bead once the draft has it (once per link, not on every render).
+  const linked = threads?.selectBead ?? null;
+  const linkedPresent = !!linked && view.byId.has(linked);
+  useEffect(() => {
+    if (linked && linkedPresent) state.selectBead(linked, false);
+  }, [linked, linkedPresent]);
 
   const onKeyDown = (e: KeyboardEvent) => {
     if (typing(e.target) || state.helpOpen) return;
@@ -59,6 +67,7 @@ export function MappingEditor({ session, mapping, molecule, library }: MappingEd
       readOnlyReason={!mapping.canEdit ? (mapping.locked ? 'locked' : 'role') : (snapshot.session?.readOnlyReason ?? null)}
       activeCheck={activeCheck}
       onShowCheck={showCheck}
+      threads={threads}
     />
   );
 }

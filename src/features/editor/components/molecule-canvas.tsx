@@ -9,6 +9,7 @@ import { HighlightLayer } from './highlight-layer';
 import { BeadTags, HullLayer } from './hull-layer';
 import { PeerPointers } from './peer-pointers';
 import { AtomTargets, StructureLayer } from './structure-layer';
+import { ThreadBadgeLayer, type EditorThreads } from './thread-badges';
 
 interface MoleculeCanvasProps {
   drawing: Drawing;
@@ -25,6 +26,7 @@ interface MoleculeCanvasProps {
   onSize(size: { width: number; height: number }): void;
   gestures: GestureHandlers;
   readOnly: boolean;
+  threads?: EditorThreads;
 }
 
 const ARROWS: Record<string, Direction> = { ArrowLeft: 'left', ArrowRight: 'right', ArrowUp: 'up', ArrowDown: 'down' };
@@ -78,6 +80,7 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
         <HighlightLayer points={points} selection={props.selection} highlight={props.highlight} peers={props.peers} cursor={cursor} />
         <AtomTargets drawing={drawing} />
         <BeadTags view={view} points={points} />
+        <ThreadBadgeLayer view={view} points={points} threads={props.threads} />
       </g>
       <PeerPointers peers={props.peers} viewport={viewport} />
       {box && (

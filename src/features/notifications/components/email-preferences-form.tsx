@@ -1,0 +1,45 @@
+import { useState, type FormEvent } from 'react';
+import { preferencesBody, type Preferences } from '../../../shared/notifications';
+import { Button } from '../../../components/ui/button';
+import { CheckboxField } from '../../../components/ui/checkbox-field';
+import { ErrorAlert, Notice } from '../../../components/ui/alert';
+import { Loading } from '../../../components/ui/loading';
+import { usePreferences } from '../api/get-preferences';
+import { useUpdatePreferences } from '../api/update-preferences';
+
+/** E-mail on mentions / on replies; both off means never. The bell shows everything regardless. */
+export function EmailPreferencesForm() {
+  const prefs = usePreferences();
+  if (prefs.isError) return <ErrorAlert error={prefs.error} />;
+  if (!prefs.data) return <Loading label="Loading your settings…" />;
+  return <PreferencesForm initial={prefs.data} />;
+}
+
+function PreferencesForm({ initial }: { initial: Preferences }) {
+  const update = useUpdatePreferences();
+  const [values, setValues] = useState(initial);
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    update.mutate(preferencesBody.parse(values));
+  };
+  const never = !values.emailOnMention && !values.emailOnReply;
+  return (
+    <form noValidate onSubmit={submit} className="flex max-w-md flex-col gap-3">
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-sm font-semibold text-ink-800">E-mail me</legend>
+        <CheckboxField label="When someone mentions me" checked={values.emailOnMention} onCheckedChange={(v) => setValues({ ...values, emailOnMention: v })} />
+        <CheckboxField label="When someone replies in a thread I take part in" checked={values.emailOnReply} onCheckedChange={(v) => setValues({ ...values, emailOnReply: v })} />
+      </fieldset>
+      <p className="text-xs text-ink-600" aria-live="polite">
+        {never ? 'Never: you will get no e-mail about threads, only the bell in Beadloom.' : 'The bell in Beadloom always shows mentions and replies.'}
+      </p>
+      {update.error && <ErrorAlert error={update.error} />}
+      {update.isSuccess && <Notice>E-mail settings saved.</Notice>}
+      <div>
+        <Button type="submit" pending={update.isPending} pendingText="Saving…">
+          Save e-mail settings
+        </Button>
+      </div>
+    </form>
+  );
+}
