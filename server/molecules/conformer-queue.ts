@@ -1,12 +1,12 @@
 import { EventEmitter } from 'node:events';
 import type { Logger } from 'pino';
 import type { Db } from '../db/knex';
-import { generateConformer } from '../chem/index';
+import { conformerInThread } from './conformer-thread';
 import { parseModel } from './molecule-view';
 import { setXyz } from './molecules.service';
 
 // Background 3D coordinates for molecules that arrived without them: one job at a time, in process,
-// in arrival order. The state lives in the molecule row (queued → running → done | failed), so a
+// in arrival order, computed in a worker thread (conformer-thread.ts). The state lives in the molecule row (queued → running → done | failed), so a
 // restart picks up what was waiting. An uploaded 3D structure that lands meanwhile wins.
 // Emits 'settled' (moleculeId) when a job finished either way.
 
@@ -72,7 +72,7 @@ export class ConformerQueue extends EventEmitter {
       const claimed = await this.db('molecules').where({ id }).whereIn('conformer_status', ['queued', 'running']).whereNull('xyz_source').update({ conformer_status: 'running' });
       if (!claimed) return;
       const row = await this.db('molecules').where({ id }).first('id', 'model');
-      const xyz = await generateConformer(parseModel(row), { seed: CONFORMER_SEED });
+      const xyz = await conformerInThread(id, parseModel(row), CONFORMER_SEED);
       if (this.closed) return;
       // Only if no 3D upload arrived while we worked.
       const still = await this.db('molecules').where({ id, conformer_status: 'running' }).whereNull('xyz_source').first('id');
