@@ -9,7 +9,8 @@ import { notificationMail } from './notification-mail';
 import { getPreferences, insertNotifications, unreadCount } from './notifications.service';
 
 // After a comment is stored: notify the people it concerns (recipients.ts) in the app, live, and by
-// e-mail as their preferences say. A failing e-mail is logged; it never undoes the comment.
+// e-mail as their preferences say. An edited comment notifies only the people it newly mentions.
+// A failing e-mail is logged; it never undoes the comment.
 
 export interface NewComment {
   projectId: number;
@@ -20,12 +21,17 @@ export interface NewComment {
   beadName: string;
   author: { id: number; displayName: string };
   body: string;
+  /** Set when the comment was edited: its body before. */
+  previousBody?: string;
 }
 
 export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewComment): Promise<void> {
   const members = await projectMembers(ctx.db, c.projectId);
-  const earlier = (await participants(ctx.db, c.threadId)).filter((id) => id !== c.author.id);
-  const targets = recipients({ authorId: c.author.id, mentioned: mentionedIds(c.body), participants: earlier, members: new Set(members.keys()) });
+  const edited = c.previousBody !== undefined;
+  const before = new Set(edited ? mentionedIds(c.previousBody!) : []);
+  const earlier = edited ? [] : (await participants(ctx.db, c.threadId)).filter((id) => id !== c.author.id);
+  const mentioned = mentionedIds(c.body).filter((id) => !before.has(id));
+  const targets = recipients({ authorId: c.author.id, mentioned, participants: earlier, members: new Set(members.keys()) });
   if (!targets.length) return;
   await insertNotifications(ctx.db, targets.map((t) => ({ ...t, threadId: c.threadId, commentId: c.commentId, actorId: c.author.id })));
 

@@ -85,8 +85,11 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const place = await authorizeComment(db, req, id, 'comment:create');
     if (place.authorId !== requireUser(req).id) throw forbidden('Only its author may edit a comment.');
     if (place.deleted) throw new AppError(409, 'comment_deleted', 'That comment has been deleted.');
-    await threads.editComment(db, id, await prepare(place.projectId, (req.body as { body: string }).body));
+    const previousBody = await threads.commentBody(db, id);
+    const text = await prepare(place.projectId, (req.body as { body: string }).body);
+    await threads.editComment(db, id, text);
     const thread = await publish(place.threadId, place.mappingId);
+    await notifyComment(ctx, live, { ...place, commentId: id, beadName: thread.beadName, author: requireUser(req), body: text, previousBody });
     res.json(thread.comments.find((c) => c.id === id));
   });
 

@@ -88,6 +88,10 @@ export async function editComment(db: Db, commentId: number, body: string): Prom
   await db('thread_comments').where({ id: commentId }).update({ body, edited_at: db.fn.now(3) });
 }
 
+export async function commentBody(db: Db, commentId: number): Promise<string> {
+  return ((await db('thread_comments').where({ id: commentId }).first('body'))?.body as string | undefined) ?? '';
+}
+
 export async function deleteComment(db: Db, commentId: number, userId: number): Promise<void> {
   await db('thread_comments').where({ id: commentId }).update({ body: '', deleted_at: db.fn.now(3), deleted_by: userId });
 }

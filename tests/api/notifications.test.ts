@@ -138,3 +138,17 @@ describe('e-mail header injection through a display name', () => {
     expect(mail.html).toContain('&lt;b&gt;bold&lt;/b&gt;');
   });
 });
+
+describe('editing a comment', () => {
+  it('notifies only people it newly mentions', async () => {
+    const created = await modeller.post(`/api/mappings/${mappingId}/threads`, { beadId, body: `Hi @[S](user:${ids.student})` }).expect(201);
+    const commentId = created.body.comments[0].id;
+    const count = async (userIdValue: number) => Number((await t.ctx.db('notifications').where({ user_id: userIdValue, comment_id: commentId }).count({ n: '*' }).first())!.n);
+    expect(await count(ids.student)).toBe(1);
+    await modeller.patch(`/api/comments/${commentId}`, { body: `Hi @[S](user:${ids.student}) and @[I](user:${ids.supervisor})` }).expect(200);
+    expect(await count(ids.student)).toBe(1);
+    expect(await count(ids.supervisor)).toBe(1);
+    await modeller.patch(`/api/comments/${commentId}`, { body: `Hi @[S](user:${ids.student}) and @[I](user:${ids.supervisor}), again` }).expect(200);
+    expect(await count(ids.supervisor)).toBe(1);
+  });
+});
