@@ -4,13 +4,15 @@
  * openchemlib's ConformerGenerator (torsion-library based, seeded, bitwise reproducible for a given
  * seed) builds a collision-free conformer of the model with explicit hydrogens; openchemlib's MMFF94s+
  * force field then relaxes it with a capped number of minimiser iterations (more for small molecules,
- * fewer for large ones), so that 150 heavy atoms finish in seconds. References: T. A. Halgren,
+ * fewer for large ones). The cap bounds the minimisation; the generator's own set-up time is
+ * openchemlib's and grows with the number of rotatable bonds (see docs/benchmarks.md). References: T. A. Halgren,
  * J. Comput. Chem. 1996, 17, 490 (MMFF94); the openchemlib ConformerGenerator documentation.
  * The conformer tables load once from openchemlib's own package files (Resources.registerFromNodejs).
  */
 import { ConformerGenerator, ForceFieldMMFF94, Resources } from 'openchemlib';
 import type { Molecule } from '../../src/shared/chem';
 import { ChemError } from './errors';
+import { componentsOf } from './graph';
 import { toOcl } from './ocl-build';
 
 let registered = false;
@@ -21,10 +23,15 @@ export interface ConformerOptions {
   maxIterations?: number;
 }
 
+/**
+ * MMFF94 iterations by size. One iteration costs roughly linear-to-quadratic time in atoms (≈0.1–0.5 s
+ * at 150 heavy atoms on this project's 2-core machines), so large molecules get only a short relaxation
+ * of the generator's already collision-free geometry.
+ */
 export function defaultIterations(heavyAtoms: number): number {
-  if (heavyAtoms <= 30) return 2000;
-  if (heavyAtoms <= 80) return 500;
-  return 200;
+  if (heavyAtoms <= 30) return 500;
+  if (heavyAtoms <= 80) return 100;
+  return 20;
 }
 
 export async function generateConformer(molecule: Molecule, options: ConformerOptions): Promise<number[][]> {
@@ -36,7 +43,7 @@ export async function generateConformer(molecule: Molecule, options: ConformerOp
   const iterations = options.maxIterations ?? defaultIterations(molecule.atoms.length);
   // Each disconnected part (a salt's ions) is built on its own and the parts are set side by side with
   // a 4 Å gap along x: openchemlib's generator fails on some multi-part inputs.
-  const parts = components(molecule);
+  const parts = componentsOf(molecule.atoms.length, molecule.bonds);
   const heavy: number[][] = new Array(molecule.atoms.length);
   const hydrogens: number[][][] = molecule.atoms.map(() => []);
   let shift = 0;
@@ -72,19 +79,6 @@ function conformerOf(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number, itera
     }
   }
   return readBack(sub, generated);
-}
-
-function components(molecule: Molecule): number[][] {
-  const n = molecule.atoms.length;
-  const parent = Array.from({ length: n }, (_, i) => i);
-  const find = (i: number): number => {
-    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
-    return i;
-  };
-  for (const b of molecule.bonds) parent[find(b.a)] = find(b.b);
-  const groups = new Map<number, number[]>();
-  for (let i = 0; i < n; i++) groups.set(find(i), [...(groups.get(find(i)) ?? []), i]);
-  return [...groups.values()];
 }
 
 function subModel(molecule: Molecule, members: number[]): Pick<Molecule, 'atoms' | 'bonds'> {

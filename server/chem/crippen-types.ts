@@ -19,7 +19,26 @@ export interface CrippenRow {
   type: string;
   smarts: string;
   logP: number;
+  /**
+   * H rows only: the same condition written from the hydrogen's heavy atom, for matching on a molecule
+   * whose hydrogens are implicit. `[#1]X…` holds for a hydrogen on X exactly when X satisfies the
+   * rewritten query; the one case where a condition could be met by another hydrogen on the same atom
+   * (`[#1]O[!#6;!#7;!#8;!#16]`, water) is spelled out as "O with two or more H".
+   */
+  parentSmarts?: string;
 }
+
+const PARENT_SMARTS: Record<string, string> = {
+  '[#1][#6,#1]': '[#6,#1]',
+  '[#1]O[CX4,c]': '[$(O[CX4,c])]',
+  '[#1]O[!#6;!#7;!#8;!#16]': '[$(O[!#6;!#7;!#8;!#16]),$([O;!H0;!H1])]',
+  '[#1][!#6;!#7;!#8]': '[!#6;!#7;!#8]',
+  '[#1][#7]': '[#7]',
+  '[#1]O[#7]': '[$(O[#7])]',
+  '[#1]OC=[#6,#7,O,S]': '[$(OC=[#6,#7,O,S])]',
+  '[#1]O[O,S]': '[$(O[O,S])]',
+  '[#1]': '[*]',
+};
 
 const rows: [string, string, number][] = [
   ['C1', '[CH4]', 0.1441],
@@ -134,4 +153,6 @@ const rows: [string, string, number][] = [
   ['Me2', '[#72,#73,#74,#75,#76,#77,#78,#79,#80]', -0.0025],
 ];
 
-export const CRIPPEN_TYPES: readonly CrippenRow[] = rows.map(([type, smarts, logP]) => ({ type, smarts, logP }));
+export const CRIPPEN_TYPES: readonly CrippenRow[] = rows.map(([type, smarts, logP]) =>
+  smarts.startsWith('[#1]') ? { type, smarts, logP, parentSmarts: PARENT_SMARTS[smarts] } : { type, smarts, logP },
+);

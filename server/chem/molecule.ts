@@ -6,6 +6,7 @@
 import type { Molecule } from '../../src/shared/chem';
 import { typeAtoms } from './crippen';
 import { hillFormula } from './formula';
+import { componentsOf } from './graph';
 import { molecularWeight } from './masses';
 import { buildModel } from './model';
 import { layout2d } from './ocl-build';
@@ -32,7 +33,7 @@ export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
   if (model.foldedExplicitH > 0) {
     warnings.push(`${model.foldedExplicitH} explicit hydrogen atom(s) were folded into their heavy atoms.`);
   }
-  const components = countComponents(atoms.length, bonds);
+  const components = componentsOf(atoms.length, bonds).length;
   if (components > 1) warnings.push(`The structure has ${components} disconnected parts (a salt or mixture).`);
   for (const a of atoms) {
     if (a.radical > 0) warnings.push(`Atom ${a.index} (${a.element}) carries ${a.radical} unpaired electron(s).`);
@@ -59,21 +60,4 @@ export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
 function hasDepth(mol: OclMolecule): boolean {
   for (let i = 0; i < mol.getAllAtoms(); i++) if (Math.abs(mol.getAtomZ(i)) > 1e-4) return true;
   return false;
-}
-
-function countComponents(n: number, bonds: { a: number; b: number }[]): number {
-  const parent = Array.from({ length: n }, (_, i) => i);
-  const find = (i: number): number => {
-    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
-    return i;
-  };
-  let count = n;
-  for (const { a, b } of bonds) {
-    const [ra, rb] = [find(a), find(b)];
-    if (ra !== rb) {
-      parent[ra] = rb;
-      count--;
-    }
-  }
-  return count;
 }
