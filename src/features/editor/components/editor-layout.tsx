@@ -89,7 +89,7 @@ export function EditorLayout(p: EditorLayoutProps) {
             )}
           </Panel>
           <Panel title="Bead graph" className="h-64 p-0">
-            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={(id) => state.selectBead(id, false)} />
+            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={(id) => state.selectBead(id, false)} threads={p.threads} />
           </Panel>
           <Panel title="Checks">
             <ChecksPanel checks={p.evaluation?.checks ?? null} active={p.activeCheck} onShow={p.onShowCheck} />

@@ -10,6 +10,7 @@ import { useSessionSnapshot } from '../hooks/use-mapping-session';
 import { useMappingView } from '../hooks/use-mapping-view';
 import { usePeers } from '../hooks/use-peers';
 import { unassignedAtoms } from '../model/bead-view';
+import { markEditorReady, measureCommand } from '../model/perf-marks';
 import { EditorLayout } from './editor-layout';
 import type { EditorThreads } from './thread-badges';
 
@@ -33,6 +34,9 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
   const suggestions = useMemo(() => new Map(evaluation?.beads.map((b) => [b.id, b.suggestedType]) ?? []), [evaluation]);
   const state = useEditorState(session, molecule, view, readOnly, suggestions);
   const [activeCheck, setActiveCheck] = useState<Check | null>(null);
+  useEffect(() => {
+    if (snapshot.synced) markEditorReady();
+  }, [snapshot.synced]);
   // A deep link (?bead=) selects its bead once the draft has it (once per link, not on every render).
   const linked = threads?.selectBead ?? null;
   const linkedPresent = !!linked && view.byId.has(linked);
@@ -45,7 +49,7 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
     const command = commandForKey(editorCommands, e);
     if (!command) return;
     e.preventDefault();
-    run(command, state.ctx);
+    if (run(command, state.ctx)) measureCommand(command.name);
   };
 
   const showCheck = (check: Check | null) => {

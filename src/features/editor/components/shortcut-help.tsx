@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef } from 'react';
+import { createPortal } from 'react-dom';
 import { editorCommands } from '../commands';
 import type { CommandGroup } from '../commands/registry';
 import { Kbd } from './kbd';
@@ -26,7 +27,8 @@ export function ShortcutHelp({ onClose }: { onClose: () => void }) {
   }, []);
   const groups = (Object.keys(TITLES) as CommandGroup[]).map((g) => ({ g, commands: editorCommands.filter((c) => c.group === g && c.shortcut) }));
 
-  return (
+  // Portalled to <body>: the editor's full-width wrapper is transformed, which would trap `fixed`.
+  return createPortal(
     <div className="fixed inset-0 z-50 flex items-center justify-center bg-ink-950/30 p-4" onMouseDown={(e) => e.target === e.currentTarget && onClose()}>
       <div
         role="dialog"
@@ -51,7 +53,8 @@ export function ShortcutHelp({ onClose }: { onClose: () => void }) {
           <ShortcutList title="On the drawing" rows={CANVAS_KEYS} />
         </div>
       </div>
-    </div>
+    </div>,
+    document.body,
   );
 }
 
