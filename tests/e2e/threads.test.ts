@@ -92,6 +92,7 @@ describe('threads on beads', () => {
     const id = (await drawingBadge.first().getAttribute('data-thread-badge'))!;
     await expect(modeller.locator(`svg [data-thread-badge="${id}"]`).textContent()).resolves.toBe('1');
     await row.getByRole('button', { name: `1 open thread on bead ${BEAD_NAME}` }).waitFor();
+    await modeller.getByRole('region', { name: 'Bead graph' }).getByRole('button', { name: `1 open thread on bead ${BEAD_NAME}` }).waitFor();
 
     // The supervisor, on the projects page, sees the bell count arrive without reloading.
     await supervisor.getByRole('button', { name: 'Notifications, 1 unread' }).waitFor({ timeout: 5_000 });
@@ -126,6 +127,7 @@ describe('threads on beads', () => {
     await supThread.getByRole('button', { name: 'Resolve' }).click();
     await supThread.getByText('Resolved by Dr Ines Marlow').waitFor();
     await modeller.locator(`svg [data-thread-badge="${id}"]`).waitFor({ state: 'detached', timeout: 5_000 });
+    await expect(modeller.getByRole('region', { name: 'Bead graph' }).locator('[data-thread-badge]').count()).resolves.toBe(0);
     await row.getByRole('button', { name: `Start a thread on bead ${BEAD_NAME}` }).waitFor({ timeout: 5_000 });
     await panel.getByRole('listitem', { name: 'Open thread' }).getByText(/^Resolved/).waitFor();
 
