@@ -33,6 +33,14 @@ const NODE = 44;
 
 /** The CG bead graph: one node per bead at its atoms' 2D centroid, an edge per bead–bead bond. */
 export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: { view: MappingView; points: readonly Point[]; activeBead: string | null; onSelectBead(id: string): void; threads?: EditorThreads }) {
+  // Centroids are scaled so the whole graph spans a few hundred units: nodes stay legible for a
+  // long chain and do not pile up for a compact ring system.
+  const scale = useMemo(() => {
+    const xs = points.map((p) => p.x);
+    const ys = points.map((p) => p.y);
+    const extent = Math.max(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys), 1);
+    return Math.min(1.8, Math.max(0.5, 360 / extent));
+  }, [points]);
   const nodes = useMemo<BeadNode[]>(
     () =>
       view.beads
@@ -42,13 +50,13 @@ export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: {
           return {
             id: b.id,
             type: 'bead',
-            position: { x: c.x * 1.6 - NODE / 2, y: c.y * 1.6 - NODE / 2 },
+            position: { x: c.x * scale - NODE / 2, y: c.y * scale - NODE / 2 },
             data: { id: b.id, name: b.name, colour: b.colour, active: b.id === activeBead, threads },
             selected: b.id === activeBead,
             ariaLabel: `Bead ${b.name}`,
           };
         }),
-    [view, points, activeBead, threads],
+    [view, points, activeBead, scale, threads],
   );
   const edges = useMemo<Edge[]>(
     () => view.links.map(([p, q]) => ({ id: `${p}-${q}`, source: p, target: q, type: 'straight', style: { stroke: '#174c4a', strokeWidth: 2.5 }, zIndex: -1 })),
