@@ -11,7 +11,7 @@ let acetate: Molecule;
 beforeAll(async () => {
   anisole = await parseMolecule({ smiles: 'COc1ccccc1' });
   acetate = await parseMolecule({ smiles: 'CC(=O)[O-]' });
-});
+}, 60_000); // the first parse loads RDKit's WebAssembly
 
 describe('layoutMolecule', () => {
   it('labels hetero atoms, leaves ring carbons bare and circles the aromatic ring', () => {
