@@ -11,6 +11,9 @@ import * as m009 from './20261202_009_mapping_drafts';
 import * as m010 from './20261202_010_bead_types';
 import * as m021 from './20261203_021_threads';
 import * as m022 from './20261203_022_threads_notifications';
+import * as m031 from './20261204_031_mapping_versions';
+import * as m032 from './20261204_032_mapping_locks';
+import * as m033 from './20261204_033_mapping_audit';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -27,6 +30,9 @@ const migrations: Record<string, Knex.Migration> = {
   '20261202_010_bead_types': m010,
   '20261203_021_threads': m021,
   '20261203_022_threads_notifications': m022,
+  '20261204_031_mapping_versions': m031,
+  '20261204_032_mapping_locks': m032,
+  '20261204_033_mapping_audit': m033,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -25,6 +25,8 @@ import { createCollab, type Collab } from './collab/collab-server';
 import type { CollabOptions } from './collab/room';
 import { chemRoutes } from './chem-api/chem.routes';
 import { registerThreads } from './threads/register';
+import { registerVersions } from './versions/register';
+import { LARGE_JSON_PATHS } from './exports/exports.routes';
 
 export interface BuiltApp {
   app: Express;
@@ -62,7 +64,9 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
     }),
   );
   app.use(pinoHttp({ logger: ctx.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
-  app.use(express.json({ limit: '1mb' }));
+  const json = express.json({ limit: '1mb' });
+  // Imports parse their own (larger) bodies in the route.
+  app.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) ? next() : json(req, res, next)));
   app.use(requireJson((path) => UPLOAD_PATHS.test(path)));
 
   const { middleware: session, store } = createSessionMiddleware(ctx.config);
@@ -86,6 +90,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
   chemRoutes(routes, ctx);
   registerThreads(routes, ctx);
+  registerVersions(routes, ctx, collab);
   if (ctx.mailSinkInUse) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);

@@ -52,6 +52,12 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     },
   };
   const readOnly = () => info.roleReadOnly || !!room?.locked;
+  const sendSession = (r: Room) =>
+    peer.send(stringFrame(MESSAGE_SESSION, JSON.stringify({ ...info.session, readOnly: readOnly(), readOnlyReason: info.roleReadOnly ? 'role' : r.locked ? 'locked' : null } satisfies SessionMessage)));
+  peer.sessionChanged = () => {
+    warnedReadOnly = false;
+    if (room) sendSession(room);
+  };
 
   const ready = (async () => {
     for (let attempt = 0; attempt < 3 && !room; attempt++) {
@@ -60,7 +66,7 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
       if (r.join(peer)) room = r;
     }
     if (!room) throw new Error('room kept closing');
-    peer.send(stringFrame(MESSAGE_SESSION, JSON.stringify({ ...info.session, readOnly: readOnly(), readOnlyReason: info.roleReadOnly ? 'role' : room.locked ? 'locked' : null } satisfies SessionMessage)));
+    sendSession(room);
     const e = encoding.createEncoder();
     encoding.writeVarUint(e, MESSAGE_SYNC);
     writeSyncStep1(e, room.doc);

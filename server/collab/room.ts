@@ -17,7 +17,8 @@ import { Awareness, encodeAwarenessUpdate, removeAwarenessStates } from 'y-proto
 import { messageYjsUpdate } from 'y-protocols/sync';
 import type { AppContext } from '../context';
 import { applyChecked } from '../../src/shared/mapping-doc-check';
-import { docToMapping } from '../../src/shared/mapping-doc';
+import { docToMapping, mappingToDoc } from '../../src/shared/mapping-doc';
+import type { Mapping } from '../../src/shared/chem';
 import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage } from '../../src/shared/collab-protocol';
 import { evaluateDraft, loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
 import { touchMapping } from '../mappings/mappings.service';
@@ -41,6 +42,8 @@ export interface Peer {
   sendError(error: CollabErrorMessage): void;
   /** Ends this connection only (malformed input). */
   fail(reason: string): void;
+  /** The mapping was locked or unlocked: tell the client whether it may edit now. */
+  sessionChanged?(): void;
 }
 
 export class Room {
@@ -118,13 +121,7 @@ export class Room {
   leave(peer: Peer): Promise<boolean> {
     this.peers.delete(peer);
     removeAwarenessStates(this.awareness, [...peer.controlled], null);
-    if (this.peers.size > 0 || this.closed) return Promise.resolve(false);
-    return this.serial(async () => {
-      await this.compact();
-      const empty = this.peers.size === 0;
-      if (empty) this.onEmptied?.();
-      return empty;
-    });
+    return this.releaseIfIdle();
   }
 
   receiveUpdate(peer: Peer, update: Uint8Array): void {
@@ -157,8 +154,43 @@ export class Room {
   async refresh(): Promise<void> {
     const inputs = await loadEvaluationInputs(this.ctx.db, this.id);
     if (!inputs || this.closed) return;
+    const lockChanged = inputs.locked !== this.inputs.locked;
     this.inputs = inputs;
+    if (lockChanged) for (const p of this.peers) p.sessionChanged?.();
     this.scheduleEvaluation();
+  }
+
+  /**
+   * Replaces the whole draft with `mapping` as ONE server-made Yjs transaction (a restore): stored in
+   * mapping_updates like any accepted update, applied, and sent to every peer at once. `guard` runs
+   * first on the room's queue and may refuse (throw) — e.g. when the mapping got locked meanwhile.
+   */
+  replaceDraft(mapping: Mapping, userId: number, guard?: () => Promise<void>): Promise<void> {
+    return this.serial(async () => {
+      await guard?.();
+      const next = copyOf(this.doc);
+      mappingToDoc(next, mapping);
+      const update = Y.encodeStateAsUpdate(next, Y.encodeStateVector(this.doc));
+      next.destroy();
+      this.lastUpdateId = await appendUpdates(this.ctx.db, this.id, [{ userId, data: update }]);
+      this.uncompacted += 1;
+      Y.applyUpdate(this.doc, update, 'server');
+      Y.applyUpdate(this.shadow, update);
+      const frame = syncUpdateFrame(update);
+      for (const p of this.peers) p.send(frame);
+      this.scheduleEvaluation();
+    });
+  }
+
+  /** A room the server opened for its own work, with nobody in it, compacts and closes as if its last peer left. */
+  releaseIfIdle(): Promise<boolean> {
+    if (this.peers.size > 0 || this.closed) return Promise.resolve(false);
+    return this.serial(async () => {
+      await this.compact();
+      const empty = this.peers.size === 0;
+      if (empty) this.onEmptied?.();
+      return empty;
+    });
   }
 
   /** Finishes queued work, compacts, and closes (server shutdown). */

@@ -12,6 +12,7 @@ import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
 import { createMapping, findMapping, listMappings, updateMapping } from './mappings.service';
 import type { EvaluationResult } from './evaluation';
+import { assertUnlocked } from '../lock/lock.service';
 
 const params = z.object({ id: idParam });
 
@@ -58,6 +59,7 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
   r.patch('/api/mappings/:id', validate({ params, body: updateMappingBody }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeMapping(ctx.db, req, id, 'mapping:edit');
+    await assertUnlocked(ctx.db, id);
     await updateMapping(ctx.db, id, req.body);
     drafts.refresh({ mappingId: id });
     res.json(await detail(id, true));

@@ -9,8 +9,8 @@
  *   101 error      an update of this connection was refused: a varstring of JSON `CollabErrorMessage`.
  *                  The server's document is unchanged; the client should drop its local change
  *                  (the editor reloads the draft).
- *   102 session    sent once after connecting: a varstring of JSON `SessionMessage` (who you are, whether
- *                  you may edit).
+ *   102 session    sent after connecting, and again when the mapping is locked or unlocked: a varstring
+ *                  of JSON `SessionMessage` (who you are, whether you may edit).
  *
  * Close codes (4400–4499 tell y-websocket not to reconnect): 4401 not signed in, 4404 no such mapping
  * or not a member, 4400 malformed frame.

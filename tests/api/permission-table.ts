@@ -1,6 +1,7 @@
 import type { Db } from '../../server/db/knex';
 import { createAccount, createMolecule, demoMappingId, demoMoleculeId, demoProjectId, userId } from '../helpers/fixtures';
 import { createThreadFixture, firstBeadId, sharedThread } from './threads-fixtures';
+import { importBodyFor, lockedMapping, versionedMapping } from './versions-fixtures';
 
 // The route × role table: for every route of the app, what each kind of caller
 // gets. The permission test fails when the app has a route that is not here.
@@ -222,7 +223,36 @@ export const ROUTE_CASES: RouteCase[] = [
   { method: 'get', path: '/api/notifications/events', request: url('/api/notifications/events'), expect: signedIn(406) },
   { method: 'get', path: '/api/me/preferences', request: url('/api/me/preferences'), expect: signedIn(200) },
   { method: 'put', path: '/api/me/preferences', request: async () => ({ url: '/api/me/preferences', body: { emailOnMention: true, emailOnReply: false } }), expect: signedIn(200) },
+  // Versions, compare, restore, the production lock, the audit trail, exports and import (docs/exports.md).
+  { method: 'get', path: '/api/mappings/:id/versions', request: async (env) => ({ url: `/api/mappings/${await shared(env).then((m) => m.mappingId)}/versions` }), expect: inProject(200, EVERYONE) },
+  { method: 'post', path: '/api/mappings/:id/versions', request: async (env, c) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions`, body: { message: `Saved by ${c}` } }), expect: inProject(201, EDITORS) },
+  { method: 'get', path: '/api/mappings/:id/versions/:n', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1` }), expect: inProject(200, EVERYONE) },
+  { method: 'post', path: '/api/mappings/:id/versions/:n/restore', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1/restore` }), expect: inProject(200, EDITORS) },
+  { method: 'get', path: '/api/mappings/:id/compare', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/compare?from=1&to=draft` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id/lock', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/lock` }), expect: inProject(200, EVERYONE) },
+  // Each caller locks (or unlocks) a mapping of its own, so one success cannot turn the next into a 409.
+  { method: 'post', path: '/api/mappings/:id/lock', request: async (env, c) => ({ url: `/api/mappings/${(await versionedMapping(env.db, `Lock ${unique(c)}`)).mappingId}/lock`, body: { version: 1 } }), expect: inProject(200, []) },
+  { method: 'post', path: '/api/mappings/:id/unlock', request: async (env, c) => ({ url: `/api/mappings/${await lockedMapping(env.db, `Unlock ${unique(c)}`)}/unlock`, body: { reason: `Unlocked by ${c}` } }), expect: inProject(200, []) },
+  { method: 'get', path: '/api/mappings/:id/audit', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/audit` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id/export', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/export?format=csv&version=1` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/projects/:id/export.zip', request: project('/export.zip'), expect: inProject(200, EVERYONE) },
+  {
+    method: 'post',
+    path: '/api/molecules/:id/mappings/import',
+    request: async (env) => {
+      const { moleculeId } = await shared(env);
+      return { url: `/api/molecules/${moleculeId}/mappings/import`, body: await importBodyFor(env.db, moleculeId) };
+    },
+    expect: inProject(201, EDITORS),
+  },
 ];
+
+/** One versioned mapping shared by the read-only version rows (made on first use). */
+const versioned = new WeakMap<Db, Promise<{ moleculeId: number; mappingId: number }>>();
+function shared(env: CaseEnv) {
+  if (!versioned.has(env.db)) versioned.set(env.db, versionedMapping(env.db, 'Permission walk'));
+  return versioned.get(env.db)!;
+}
 
 export async function caseEnv(db: Db): Promise<CaseEnv> {
   await userId(db, 'supervisor@example.org');

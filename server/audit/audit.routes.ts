@@ -1,0 +1,17 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import { validate } from '../http/validate';
+import { idParam } from '../../src/shared/fields';
+import { authorizeMapping } from '../mappings/mapping-access';
+import { listAudit } from './audit.service';
+
+const params = z.object({ id: idParam });
+
+export function auditRoutes(r: RouteTable, ctx: AppContext): void {
+  r.get('/api/mappings/:id/audit', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:read');
+    res.json(await listAudit(ctx.db, id));
+  });
+}

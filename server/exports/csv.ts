@@ -1,0 +1,41 @@
+import type { ExportSource } from './export-source';
+import { stateLabel } from './export-source';
+
+// The mapping table as RFC 4180 CSV (comma, CRLF, fields with a comma, quote, line break or a
+// leading '#' quoted). Lines starting with '#' before the header carry the mapping, version and
+// SHA-256; standard readers skip them with a comment option (papaparse: `comments: '#'`).
+
+export const CSV_COLUMNS = [
+  'bead', 'type', 'atoms', 'weights', 'mass', 'charge', 'logP', 'fragment_logP', 'dG_OW_kJ_per_mol', 'centre_rule', 'centre_x', 'centre_y', 'centre_z',
+] as const;
+
+const field = (v: string) => (/[",\r\n]|^#/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
+const num = (v: number | null | undefined, digits: number) => (typeof v === 'number' && Number.isFinite(v) ? v.toFixed(digits) : '');
+
+export function headerLines(s: ExportSource): string[] {
+  return [`Beadloom mapping table`, `mapping: ${s.mappingName}`, `molecule: ${s.moleculeName}`, `version: ${stateLabel(s)}${s.production ? ' (production)' : ''}`, `sha256: ${s.sha256}`];
+}
+
+export function toCsv(s: ExportSource): string {
+  const evals = new Map(s.evaluation?.beads.map((b) => [b.id, b]) ?? []);
+  const rows = s.draft.beads.map((b) => {
+    const e = evals.get(b.id);
+    return [
+      b.name,
+      b.type ?? '',
+      b.atoms.map((a) => a.index + 1).join(' '),
+      b.atoms.map((a) => String(a.weight)).join(' '),
+      num(e?.mass, 4),
+      e ? String(e.charge) : '',
+      num(e?.logP, 3),
+      num(e?.fragmentLogP, 3),
+      num(e?.deltaG, 2),
+      b.centre,
+      num(e?.centre?.[0], 3),
+      num(e?.centre?.[1], 3),
+      num(e?.centre?.[2], 3),
+    ];
+  });
+  const comments = headerLines(s).map((l) => `# ${l.replace(/[\r\n]+/g, ' ')}`);
+  return [...comments, CSV_COLUMNS.join(','), ...rows.map((r) => r.map(field).join(','))].join('\r\n') + '\r\n';
+}

@@ -1,0 +1,48 @@
+import type { Db } from '../db/knex';
+import type { Evaluation, Mapping, Molecule, Resolution } from '../../src/shared/chem';
+import type { VersionRef } from '../../src/shared/versions';
+import type { DraftAccess } from '../mappings/mappings.routes';
+import { conflict, notFound } from '../http/errors';
+import { parseModel } from '../molecules/molecule-view';
+import { getVersion } from '../versions/versions.service';
+import { lockState } from '../lock/lock.service';
+import { contentSha256 } from './content-hash';
+
+// Everything an export file is written from: one state of a mapping (the draft, a version, or the
+// locked production version) with its evaluation, the molecule and the content's SHA-256.
+
+export interface ExportSource {
+  mappingId: number;
+  mappingName: string;
+  moleculeName: string;
+  resolution: Resolution;
+  /** Version number, or null for the draft. */
+  version: number | null;
+  production: boolean;
+  canonicalSmiles: string;
+  draft: Mapping;
+  evaluation: Evaluation | null;
+  model: Molecule;
+  sha256: string;
+}
+
+/** "v2", "draft": how file names and headers name the state. */
+export const stateLabel = (s: Pick<ExportSource, 'version'>) => (s.version === null ? 'draft' : `v${s.version}`);
+
+export async function exportSource(db: Db, drafts: DraftAccess, mappingId: number, ref: VersionRef): Promise<ExportSource> {
+  const row = await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('p.name', 'p.resolution', 'm.id as molecule_id', 'm.name as molecule_name', 'm.model', 'm.canonical_smiles');
+  if (!row) throw notFound('That mapping');
+  const base = { mappingId, mappingName: row.name as string, moleculeName: row.molecule_name as string, model: parseModel({ id: row.molecule_id, model: row.model }) };
+  const lock = await lockState(db, mappingId);
+  let number: number;
+  if (ref === 'draft') {
+    const { draft, result } = await drafts.read(mappingId);
+    const smiles = row.canonical_smiles as string;
+    return { ...base, resolution: row.resolution, version: null, production: false, canonicalSmiles: smiles, draft, evaluation: result.evaluation, sha256: contentSha256(smiles, draft) };
+  } else if (ref === 'production') {
+    if (!lock.locked || lock.version === null) throw conflict('no_production_version', 'This mapping has no locked production version to export.');
+    number = lock.version;
+  } else number = ref;
+  const v = await getVersion(db, mappingId, number);
+  return { ...base, resolution: v.resolution, version: v.number, production: lock.version === v.number, canonicalSmiles: v.canonicalSmiles, draft: v.draft, evaluation: v.evaluation, sha256: v.sha256 };
+}

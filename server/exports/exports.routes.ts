@@ -1,0 +1,59 @@
+import express from 'express';
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import type { DraftAccess } from '../mappings/mappings.routes';
+import { validate } from '../http/validate';
+import { authorizeProject, requireUser } from '../auth/access';
+import { idParam } from '../../src/shared/fields';
+import { exportQuery, importBody, IMPORT_MAX_BYTES, type ExportQuery, type ImportBody } from '../../src/shared/exports';
+import { authorizeMapping } from '../mappings/mapping-access';
+import { authorizeMolecule } from '../molecules/molecule-access';
+import { findMapping } from '../mappings/mappings.service';
+import { exportSource } from './export-source';
+import { renderExport } from './render';
+import { writeProjectZip } from './project-zip';
+import { importMapping } from './import.service';
+import { slug } from './render';
+
+const params = z.object({ id: idParam });
+
+/** Paths whose JSON bodies may be larger than the app's 1 MB default; app.ts leaves them to the route. */
+export const LARGE_JSON_PATHS = /^\/api\/molecules\/[^/]+\/mappings\/import\/?$/;
+
+export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
+  r.get('/api/mappings/:id/export', validate({ params, query: exportQuery }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:export');
+    const q = req.query as unknown as ExportQuery;
+    const source = await exportSource(ctx.db, drafts, id, q.version);
+    const highlight = q.highlight?.split(',').map((n) => Number(n) - 1);
+    const file = renderExport(source, q.format, { highlight });
+    res.setHeader('Content-Type', file.mime);
+    res.setHeader('Content-Disposition', `attachment; filename="${file.name}"`);
+    res.setHeader('X-Content-SHA256', source.sha256);
+    res.setHeader('Cache-Control', 'no-store');
+    res.send(file.body);
+  });
+
+  r.get('/api/projects/:id/export.zip', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeProject(ctx.db, req, id, 'mapping:export');
+    const project = await ctx.db('projects').where({ id }).first('name');
+    res.setHeader('Content-Type', 'application/zip');
+    res.setHeader('Content-Disposition', `attachment; filename="${slug(project.name)}-production.zip"`);
+    await writeProjectZip(ctx.db, drafts, id, res);
+  });
+
+  r.post(
+    '/api/molecules/:id/mappings/import',
+    express.json({ limit: IMPORT_MAX_BYTES }),
+    validate({ params, body: importBody }),
+    async (req, res) => {
+      const moleculeId = Number(req.params.id);
+      await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
+      const id = await importMapping(ctx.db, moleculeId, req.body as ImportBody, requireUser(req).id);
+      res.status(201).json(await findMapping(ctx.db, id));
+    },
+  );
+}

@@ -1,0 +1,65 @@
+import type { Vec3 } from '../../src/shared/chem';
+import type { ExportSource } from './export-source';
+import { headerLines } from './csv';
+
+// The CG structure in the wwPDB format (Atomic Coordinate Entry Format v3.3): one HETATM pseudo-atom
+// per bead at its centre (residue CGM, chain A, residue 1), CONECT records for bead–bead bonds (both
+// directions, at most four partners a record), REMARK 1 lines naming the mapping, version and
+// SHA-256, and REMARK 2 lines giving each serial's full bead name (the atom-name field holds four
+// characters). Columns follow the format's fixed positions; every line is at most 80 characters.
+// Centres are the evaluation's 3D centres in Å; without 3D coordinates the file falls back to the
+// drawing's 2D layout (z = 0), and REMARK 1 says so.
+
+const pad = (v: string | number, n: number) => String(v).padStart(n).slice(-n);
+const left = (v: string, n: number) => v.padEnd(n).slice(0, n);
+/** The drawing's bonds are 1 unit long; the 2D fallback scales them to a typical C–C bond. */
+const BOND_ANGSTROM = 1.5;
+const coord = (v: number) => pad(v.toFixed(3), 8);
+
+function centres(s: ExportSource): { points: Map<string, Vec3>; threeD: boolean } {
+  const points = new Map<string, Vec3>();
+  const evals = new Map(s.evaluation?.beads.map((b) => [b.id, b.centre]) ?? []);
+  const threeD = s.draft.beads.every((b) => !!evals.get(b.id));
+  for (const b of s.draft.beads) {
+    if (threeD) points.set(b.id, evals.get(b.id)!);
+    else {
+      const total = b.atoms.reduce((t, a) => t + a.weight, 0) || 1;
+      const x = (BOND_ANGSTROM * b.atoms.reduce((t, a) => t + a.weight * s.model.atoms[a.index].x, 0)) / total;
+      const y = (BOND_ANGSTROM * b.atoms.reduce((t, a) => t + a.weight * s.model.atoms[a.index].y, 0)) / total;
+      points.set(b.id, [x, y, 0]);
+    }
+  }
+  return { points, threeD };
+}
+
+export function toPdb(s: ExportSource): string {
+  const { points, threeD } = centres(s);
+  const lines: string[] = [];
+  const remark = (n: number, text: string) => lines.push(`REMARK ${pad(n, 3)} ${text}`.slice(0, 80));
+  for (const l of headerLines(s)) remark(1, l.replace(/[\r\n]+/g, ' '));
+  remark(1, threeD ? 'centres: bead centres from 3D coordinates, angstrom' : 'centres: no 3D coordinates yet; 2D drawing layout at 1.5 A per bond, z = 0');
+  const serial = new Map<string, number>();
+  s.draft.beads.forEach((b, i) => {
+    serial.set(b.id, i + 1);
+    remark(2, `bead ${pad(i + 1, 5)} ${b.name}`);
+  });
+  s.draft.beads.forEach((b, i) => {
+    const [x, y, z] = points.get(b.id)!;
+    const name = b.name.replace(/\s+/g, '').slice(0, 4);
+    lines.push(`HETATM${pad(i + 1, 5)} ${left(name, 4)} CGM A${pad(1, 4)}    ${coord(x)}${coord(y)}${coord(z)}${pad('1.00', 6)}${pad('0.00', 6)}`);
+  });
+  const partners = new Map<number, number[]>();
+  for (const [a, b] of s.evaluation?.topology.bonds ?? []) {
+    const i = serial.get(a);
+    const j = serial.get(b);
+    if (!i || !j) continue;
+    partners.set(i, [...(partners.get(i) ?? []), j]);
+    partners.set(j, [...(partners.get(j) ?? []), i]);
+  }
+  for (const i of [...partners.keys()].sort((x, y) => x - y)) {
+    const all = partners.get(i)!.sort((x, y) => x - y);
+    for (let k = 0; k < all.length; k += 4) lines.push(`CONECT${pad(i, 5)}${all.slice(k, k + 4).map((j) => pad(j, 5)).join('')}`);
+  }
+  lines.push('END');
+  return lines.map((l) => l.trimEnd()).join('\n') + '\n';
+}

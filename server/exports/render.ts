@@ -1,0 +1,31 @@
+import { EXPORT_FILE, type ExportFormat } from '../../src/shared/exports';
+import type { ExportSource } from './export-source';
+import { stateLabel } from './export-source';
+import { toCsv } from './csv';
+import { toGroups } from './groups';
+import { toJsonExport } from './json';
+import { toPdb } from './pdb';
+import { toPng } from './png';
+import { toSvg, type SvgOptions } from './svg';
+
+/** One export file: its bytes, type and a download name such as "c12e4-at-4-1-v2.csv". */
+export interface ExportFile {
+  name: string;
+  mime: string;
+  body: Buffer;
+}
+
+export const slug = (v: string) => v.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'mapping';
+
+export function renderExport(s: ExportSource, format: ExportFormat, svg: SvgOptions = {}): ExportFile {
+  const text = (t: string) => Buffer.from(t, 'utf8');
+  const body =
+    format === 'csv' ? text(toCsv(s))
+    : format === 'json' ? text(JSON.stringify(toJsonExport(s), null, 2) + '\n')
+    : format === 'pdb' ? text(toPdb(s))
+    : format === 'groups' ? text(toGroups(s))
+    : format === 'svg' ? text(toSvg(s, svg))
+    : toPng(s);
+  const { extension, mime } = EXPORT_FILE[format];
+  return { name: `${slug(s.mappingName)}-${stateLabel(s)}.${extension}`, mime, body };
+}

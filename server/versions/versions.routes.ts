@@ -1,0 +1,60 @@
+import { z } from 'zod';
+import type { AppContext } from '../context';
+import type { RouteTable } from '../http/route-table';
+import type { Collab } from '../collab/collab-server';
+import { validate } from '../http/validate';
+import { requireUser } from '../auth/access';
+import { idParam } from '../../src/shared/fields';
+import { compareQuery, saveVersionBody, versionNumber, type SaveVersionBody } from '../../src/shared/versions';
+import { authorizeMapping } from '../mappings/mapping-access';
+import { getVersion, listVersions, saveVersion } from './versions.service';
+import { restoreVersion } from './restore';
+import { compareStates, type MappingState } from './compare';
+
+const params = z.object({ id: idParam });
+const versionParams = z.object({ id: idParam, n: versionNumber });
+
+export function versionRoutes(r: RouteTable, ctx: AppContext, collab: Collab): void {
+  const state = async (mappingId: number, ref: number | 'draft'): Promise<MappingState> => {
+    if (ref === 'draft') {
+      const { draft, result } = await collab.read(mappingId);
+      return { ref, draft, evaluation: result.evaluation };
+    }
+    const v = await getVersion(ctx.db, mappingId, ref);
+    return { ref, draft: v.draft, evaluation: v.evaluation };
+  };
+
+  r.get('/api/mappings/:id/versions', validate({ params }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:read');
+    res.json(await listVersions(ctx.db, id));
+  });
+
+  r.post('/api/mappings/:id/versions', validate({ params, body: saveVersionBody }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'version:save');
+    res.status(201).json(await saveVersion(ctx.db, collab, id, requireUser(req).id, (req.body as SaveVersionBody).message ?? ''));
+  });
+
+  r.get('/api/mappings/:id/versions/:n', validate({ params: versionParams }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:read');
+    const { id: _rowId, ...version } = await getVersion(ctx.db, id, Number(req.params.n));
+    res.json(version);
+  });
+
+  r.post('/api/mappings/:id/versions/:n/restore', validate({ params: versionParams }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'version:restore');
+    await restoreVersion(ctx.db, collab.rooms, id, Number(req.params.n), requireUser(req).id);
+    const { draft } = await collab.read(id);
+    res.json({ restored: Number(req.params.n), draft });
+  });
+
+  r.get('/api/mappings/:id/compare', validate({ params, query: compareQuery }), async (req, res) => {
+    const id = Number(req.params.id);
+    await authorizeMapping(ctx.db, req, id, 'mapping:read');
+    const { from, to } = req.query as unknown as z.infer<typeof compareQuery>;
+    res.json(compareStates(await state(id, from), await state(id, to)));
+  });
+}

@@ -1,0 +1,16 @@
+// The append-only audit trail of a mapping: every save, restore, lock and unlock, with who, when,
+// which version and why. Read with GET /api/mappings/:id/audit, newest first.
+
+export const AUDIT_ACTIONS = ['save', 'restore', 'lock', 'unlock'] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+export interface AuditEntry {
+  id: number;
+  action: AuditAction;
+  actor: { id: number; displayName: string } | null;
+  /** The version saved, restored or locked; for an unlock, the version that was production. */
+  version: number | null;
+  /** The save's message, the lock's note or the unlock's reason ('' when none). */
+  reason: string;
+  at: string;
+}

@@ -1,0 +1,89 @@
+import { z } from 'zod';
+import type { CentreRule, Mapping } from './chem';
+import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES } from './mapping-doc';
+import { versionRef } from './versions';
+
+// Export formats of a mapping (docs/exports.md) and the JSON export's shape, which is also what
+// POST /api/molecules/:id/mappings/import reads back. The JSON Schema of the JSON export is
+// published at /schemas/beadloom-mapping-v1.json (public/schemas/).
+
+export const EXPORT_FORMATS = ['csv', 'json', 'pdb', 'groups', 'svg', 'png'] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+
+export const exportQuery = z.strictObject({
+  format: z.enum(EXPORT_FORMATS, `The format is one of ${EXPORT_FORMATS.join(', ')}.`),
+  version: versionRef.default('draft'),
+  /** SVG only: 1-based atom numbers to ring, comma-separated (the compare screen's moved atoms). */
+  highlight: z.string().regex(/^[1-9][0-9]{0,5}(,[1-9][0-9]{0,5}){0,999}$/, 'highlight lists 1-based atom numbers separated by commas.').optional(),
+});
+export type ExportQuery = z.infer<typeof exportQuery>;
+
+export const EXPORT_FILE: Record<ExportFormat, { extension: string; mime: string }> = {
+  csv: { extension: 'csv', mime: 'text/csv; charset=utf-8' },
+  json: { extension: 'json', mime: 'application/json; charset=utf-8' },
+  pdb: { extension: 'pdb', mime: 'chemical/x-pdb' },
+  groups: { extension: 'groups.txt', mime: 'text/plain; charset=utf-8' },
+  svg: { extension: 'svg', mime: 'image/svg+xml' },
+  png: { extension: 'png', mime: 'image/png' },
+};
+
+export const IMPORT_MAX_BYTES = 5 * 1024 * 1024;
+export const JSON_SCHEMA_PATH = '/schemas/beadloom-mapping-v1.json';
+
+/** One bead of the hashed content: atoms as [1-based atom number, weight] pairs, in number order. */
+export interface ContentBead {
+  id: string;
+  name: string;
+  type: string | null;
+  centre: CentreRule;
+  atoms: [number, number][];
+}
+
+/** What a version's SHA-256 covers: the molecule (canonical SMILES) and the beads, nothing else. */
+export interface VersionContent {
+  canonicalSmiles: string;
+  beads: ContentBead[];
+}
+
+/** The content of a mapping, keys in the documented order (the hash depends on that order). */
+export function versionContent(canonicalSmiles: string, mapping: Mapping): VersionContent {
+  return {
+    canonicalSmiles,
+    beads: mapping.beads.map((b) => ({
+      id: b.id,
+      name: b.name,
+      type: b.type ?? null,
+      centre: b.centre,
+      atoms: b.atoms.map((a): [number, number] => [a.index + 1, a.weight]),
+    })),
+  };
+}
+
+/** The exact text whose UTF-8 bytes are hashed: compact JSON of the content (JSON.stringify). */
+export const contentText = (content: VersionContent): string => JSON.stringify(content);
+
+export function contentToMapping(content: VersionContent): Mapping {
+  return {
+    beads: content.beads.map((b) => ({ id: b.id, name: b.name, ...(b.type ? { type: b.type } : {}), centre: b.centre, atoms: b.atoms.map(([n, weight]) => ({ index: n - 1, weight })) })),
+  };
+}
+
+const contentBead = z.strictObject({
+  id: z.string().min(1).max(BEAD_ID_MAX),
+  name: z.string().trim().min(1).max(BEAD_NAME_MAX),
+  type: z.string().max(BEAD_TYPE_MAX).nullable(),
+  centre: z.enum(CENTRE_RULES as [CentreRule, ...CentreRule[]]),
+  atoms: z.array(z.tuple([z.number().int().min(1, 'Atom numbers start at 1.'), z.number().gt(0).lte(1)])).min(1),
+});
+
+/** What an import needs of a JSON export; anything else in the file is ignored. */
+export const importBody = z.looseObject({
+  format: z.literal('beadloom-mapping', 'This is not a Beadloom mapping export (format must be "beadloom-mapping").'),
+  formatVersion: z.literal(1, 'Only formatVersion 1 can be imported.'),
+  mapping: z.looseObject({ name: z.string().trim().min(1).max(200), resolution: z.enum(['4:1', '3:1', '2:1']) }),
+  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000) }),
+  sha256: z.string().regex(/^[0-9a-f]{64}$/, 'sha256 is 64 lower-case hex digits.'),
+  /** Name for the new mapping; defaults to the exported mapping's name. */
+  name: z.string().trim().min(1).max(200).optional(),
+});
+export type ImportBody = z.infer<typeof importBody>;
