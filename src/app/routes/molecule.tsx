@@ -7,6 +7,7 @@ import { TextLink } from '../../components/ui/text-link';
 import { MappingList } from '../../features/mappings/components/mapping-list';
 import { NewMappingForm } from '../../features/mappings/components/new-mapping-form';
 import { useMolecule } from '../../features/molecules/api/get-molecule';
+import { MoleculeActions } from '../../features/molecules/components/molecule-actions';
 import { MoleculeFacts } from '../../features/molecules/components/molecule-facts';
 import { MoleculeThumbnail } from '../../features/molecules/components/molecule-thumbnail';
 import { useProject } from '../../features/projects/api/get-project';
@@ -35,6 +36,7 @@ function MoleculePage({ moleculeId }: { moleculeId: number }) {
         eyebrow={<TextLink to={paths.project(m.projectId)}>{project.data?.name ?? 'Project'}</TextLink>}
         title={m.name}
         description={m.notes || undefined}
+        actions={canEdit && <MoleculeActions molecule={m} />}
       />
       <div className="grid items-start gap-6 lg:grid-cols-[3fr_2fr]">
         <Section title="Structure">

@@ -23,6 +23,10 @@ export function useDeleteMolecule(projectId: number, moleculeId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => deleteMolecule(moleculeId),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+    onSuccess: (archived) =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+        archived ? queryClient.invalidateQueries({ queryKey: moleculeQueryOptions(moleculeId).queryKey }) : undefined,
+      ]),
   });
 }
