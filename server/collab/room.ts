@@ -7,7 +7,8 @@
  *      gets the sender an error message, the shadow is rebuilt, the real document never sees it;
  *   2. appended to mapping_updates (updates that arrived together go in one INSERT);
  *   3. applied to the document and relayed to the other peers;
- *   4. a re-evaluation is scheduled (one per burst, at most `evaluationDelayMs` later).
+ *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts), at most
+ *      `evaluationDelayMs` later; its results go to every peer.
  * Compaction into a snapshot runs on the same queue every `compactEvery` updates, every
  * `compactIntervalMs` while there is something to fold, and when the last peer leaves.
  */
@@ -20,7 +21,8 @@ import { applyChecked } from '../../src/shared/mapping-doc-check';
 import { docToMapping, mappingToDoc } from '../../src/shared/mapping-doc';
 import type { Mapping } from '../../src/shared/chem';
 import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage } from '../../src/shared/collab-protocol';
-import { evaluateDraft, loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
+import { loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
+import { RoomEvaluator } from './room-evaluator';
 import { touchMapping } from '../mappings/mappings.service';
 import { appendUpdates, compactDoc, loadDraft } from './draft-store';
 
@@ -56,9 +58,8 @@ export class Room {
   private incoming: { peer: Peer; update: Uint8Array }[] = [];
   private queue: Promise<unknown> = Promise.resolve();
   private flushQueued = false;
-  private evalTimer: NodeJS.Timeout | null = null;
   private compactTimer: NodeJS.Timeout;
-  private result: EvaluationResult | null = null;
+  private readonly evaluator: RoomEvaluator;
 
   private constructor(
     private readonly ctx: AppContext,
@@ -74,6 +75,7 @@ export class Room {
     this.awareness.on('update', this.onAwareness);
     this.compactTimer = setInterval(() => void this.serial(() => this.compact()), opts.compactIntervalMs);
     this.compactTimer.unref();
+    this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r) => this.publishEvaluation(r), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs);
   }
 
   /** Loads the draft from MariaDB; null when the mapping does not exist. */
@@ -133,16 +135,14 @@ export class Room {
 
   /** The evaluation of the current draft (computed now if an edit is waiting for it). */
   currentResult(): EvaluationResult {
-    if (!this.result || this.evalTimer) this.evaluateNow();
-    return this.result!;
+    return this.evaluator.current();
   }
 
   draft() {
     return docToMapping(this.doc);
   }
 
-  evaluationFrame(): Uint8Array {
-    const r = this.currentResult();
+  evaluationFrame(r: EvaluationResult = this.currentResult()): Uint8Array {
     const msg: EvaluationMessage = { mappingId: this.id, evaluation: r.evaluation, error: r.error, evaluatedAt: r.evaluatedAt };
     const e = encoding.createEncoder();
     encoding.writeVarUint(e, MESSAGE_EVALUATION);
@@ -157,7 +157,7 @@ export class Room {
     const lockChanged = inputs.locked !== this.inputs.locked;
     this.inputs = inputs;
     if (lockChanged) for (const p of this.peers) p.sessionChanged?.();
-    this.scheduleEvaluation();
+    this.evaluator.changed(inputs);
   }
 
   /**
@@ -202,8 +202,7 @@ export class Room {
   close(): void {
     this.closed = true;
     clearInterval(this.compactTimer);
-    if (this.evalTimer) clearTimeout(this.evalTimer);
-    this.evalTimer = null;
+    this.evaluator.close();
     this.awareness.destroy();
   }
 
@@ -246,20 +245,14 @@ export class Room {
   }
 
   private scheduleEvaluation(): void {
-    if (this.evalTimer || this.closed) return;
-    this.evalTimer = setTimeout(() => {
-      this.evaluateNow();
-      const frame = this.evaluationFrame();
-      for (const p of this.peers) p.send(frame);
-      const beads = this.result?.evaluation?.beads.length ?? this.draft().beads.length;
-      void touchMapping(this.ctx.db, this.id, beads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
-    }, this.opts.evaluationDelayMs);
+    this.evaluator.changed();
   }
 
-  private evaluateNow(): void {
-    if (this.evalTimer) clearTimeout(this.evalTimer);
-    this.evalTimer = null;
-    this.result = evaluateDraft(this.inputs, this.draft());
+  private publishEvaluation(result: EvaluationResult): void {
+    const frame = this.evaluationFrame(result);
+    for (const p of this.peers) p.send(frame);
+    const beads = result.evaluation?.beads.length ?? this.draft().beads.length;
+    void touchMapping(this.ctx.db, this.id, beads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
   }
 
   private onAwareness = ({ added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown) => {

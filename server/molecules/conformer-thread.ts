@@ -1,19 +1,16 @@
-import { Worker } from 'node:worker_threads';
+import type { Worker } from 'node:worker_threads';
+import { startTsWorker } from '../workers/ts-worker';
 import type { Molecule } from '../../src/shared/chem';
 
-// One worker thread for conformer jobs, started on first use and reused. It loads the TypeScript
-// worker through tsx (the way the server itself runs). Jobs are sent one at a time by the queue.
+// One worker thread for conformer jobs, started on first use and reused. Jobs are sent one at a
+// time by the queue.
 
 let worker: Worker | null = null;
 let pending: { id: number; resolve(xyz: number[][]): void; reject(err: Error): void } | null = null;
 
 function thread(): Worker {
   if (worker) return worker;
-  const url = new URL('./conformer-worker.ts', import.meta.url).href;
-  // tsx's ESM hooks are registered inside the thread, whatever loader (tsx, vitest) runs the parent.
-  const boot = `import('tsx/esm/api').then((m) => { m.register(); return import(${JSON.stringify(url)}); })`;
-  const w = new Worker(boot, { eval: true });
-  w.unref();
+  const w = startTsWorker(new URL('./conformer-worker.ts', import.meta.url));
   w.on('message', (msg: { id: number; xyz?: number[][]; error?: string }) => {
     const job = pending;
     pending = null;
