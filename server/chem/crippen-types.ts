@@ -3,7 +3,7 @@
  *
  * Source: S. A. Wildman and G. M. Crippen, "Prediction of Physicochemical Parameters by Atomic
  * Contributions", J. Chem. Inf. Comput. Sci. 1999, 39, 868–873, Table 1 (SMARTS definitions and logP
- * contributions per type). Transcribed row by row from RDKit's transcription of that table
+ * contributions per type). Copied row by row from RDKit's copy of that table
  * (rdkit/rdkit, Data/Crippen.txt and the identical built-in table in
  * Code/GraphMol/Descriptors/Crippen.cpp), including RDKit's deliberate order changes (O12 before O7,
  * S2 before S1, so the more specific pattern is tried first) and its extra S2 row for S=O/S=N. Where
