@@ -4,7 +4,7 @@
  * Source: IUPAC Commission on Isotopic Abundances and Atomic Weights (CIAAW), "Standard atomic weights of
  * the elements 2021 (IUPAC Technical Report)", T. Prohaska et al., Pure Appl. Chem. 2022, 94, 573–600,
  * as listed on ciaaw.org. Where the standard atomic weight is an interval (H, Li, B, C, N, O, Mg, Si, S,
- * Cl, Ar, Br, Tl, Pb) the table holds CIAAW's conventional value. Values were transcribed by hand from
+ * Cl, Ar, Br, Tl, Pb) the table holds CIAAW's conventional value. Values were copied by hand from
  * the published table (from memory of it where noted in docs/chemistry.md); the unit test checks the
  * common ones against the same source.
  *
