@@ -8,9 +8,9 @@ import { loadDraft } from '../collab/draft-store';
  *   1. a bead in the draft now, or
  *   2. a key the draft's `beads` map has ever held: the stored draft (compacted snapshot plus the
  *      appended updates, collab/draft-store.ts) keeps a deleted map entry as a tombstone item that
- *      still carries its key, so decoding the stored state lists every bead id it ever had; versions
- *      are snapshots of the draft, so their beads are in that history too; or
- *   3. a bead id in Beadloom's own record, `thread_beads` (every bead a thread was started on).
+ *      still carries its key, so decoding the stored state lists every bead id it ever had; or
+ *   3. a bead of any saved version of the mapping (mapping_versions, threads.service.ts); or
+ *   4. a bead id in Beadloom's own record, `thread_beads` (every bead a thread was started on).
  * Every accepted update is stored before it is relayed, so MariaDB's draft is the live one.
  */
 export interface DraftBeads {

@@ -6,6 +6,7 @@ import { validate } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { AppError, forbidden, tooLarge, unprocessable } from '../http/errors';
 import { authorizeMapping } from '../mappings/mapping-access';
+import { getVersion } from '../versions/versions.service';
 import { idParam } from '../../src/shared/fields';
 import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, updateCommentBody, updateThreadBody, type ListThreadsQuery, type ThreadEvent } from '../../src/shared/threads';
 import { normaliseMentions } from '../../src/shared/threads-mentions';
@@ -45,7 +46,12 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
   r.get('/api/mappings/:id/threads', validate({ params, query: listThreadsQuery }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeMapping(db, req, id, 'thread:read');
-    res.json(await threads.listThreads(db, id, await draftBeads(db, id), (req.query as unknown as ListThreadsQuery).status));
+    const query = req.query as unknown as ListThreadsQuery;
+    const list = await threads.listThreads(db, id, await draftBeads(db, id), query.status);
+    if (query.version === undefined) return void res.json(list);
+    // Viewing a version: the threads of the beads it contains.
+    const inVersion = new Set((await getVersion(db, id, query.version)).draft.beads.map((b) => b.id));
+    res.json(list.filter((t) => inVersion.has(t.beadId)));
   });
 
   r.post('/api/mappings/:id/threads', bodyLimit, validate({ params, body: createThreadBody }), async (req, res) => {
@@ -54,7 +60,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const { projectId } = await authorizeMapping(db, req, mappingId, 'comment:create');
     const { beadId, body } = req.body as z.infer<typeof createThreadBody>;
     const beads = await draftBeads(db, mappingId);
-    if (!beads.ever.has(beadId) && !(await threads.beadRecorded(db, mappingId, beadId))) {
+    if (!beads.ever.has(beadId) && !(await threads.beadInVersions(db, mappingId, beadId)) && !(await threads.beadRecorded(db, mappingId, beadId))) {
       throw unprocessable('unknown_bead', 'This mapping has never had a bead with that id.', { beadId });
     }
     const text = await prepare(projectId, body);

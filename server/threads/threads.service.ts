@@ -58,7 +58,16 @@ async function recordBeadNames(db: Db, mappingId: number, beadIds: string[], bea
   return stored;
 }
 
-/** Whether Beadloom itself has a record of this bead id on this mapping (rule 3 in draft-beads.ts). */
+/**
+ * Whether a saved version of the mapping holds this bead (mapping_versions.draft is the version's
+ * Mapping as JSON). Bead ids are [A-Za-z0-9_-]; LIKE narrows the rows, the parse decides exactly.
+ */
+export async function beadInVersions(db: Db, mappingId: number, beadId: string): Promise<boolean> {
+  const rows = await db('mapping_versions').where({ mapping_id: mappingId }).andWhere('draft', 'like', `%${beadId}%`).select('draft');
+  return rows.some((r) => (JSON.parse(r.draft) as { beads: { id: string }[] }).beads.some((b) => b.id === beadId));
+}
+
+/** Whether Beadloom itself has a record of this bead id on this mapping (rule 4 in draft-beads.ts). */
 export async function beadRecorded(db: Db, mappingId: number, beadId: string): Promise<boolean> {
   return !!(await db('thread_beads').where({ mapping_id: mappingId, bead_id: beadId }).first('bead_id'));
 }

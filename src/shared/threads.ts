@@ -34,7 +34,11 @@ export type UpdateThreadBody = z.infer<typeof updateThreadBody>;
 
 export const THREAD_STATUSES = ['all', 'open', 'resolved'] as const;
 export type ThreadStatus = (typeof THREAD_STATUSES)[number];
-export const listThreadsQuery = z.strictObject({ status: z.enum(THREAD_STATUSES).default('all') });
+export const listThreadsQuery = z.strictObject({
+  status: z.enum(THREAD_STATUSES).default('all'),
+  /** Only threads on beads that this saved version of the mapping contains. */
+  version: z.coerce.number().int().positive().max(2 ** 31 - 1).optional(),
+});
 export type ListThreadsQuery = z.infer<typeof listThreadsQuery>;
 
 export interface PersonRef {

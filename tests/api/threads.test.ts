@@ -171,3 +171,35 @@ describe('Beadloom’s own record of bead ids', () => {
     await sup.post(`/api/mappings/${other.mappingId}/threads`, { beadId: 'bx2', body: 'Never was.' }).expect(422);
   });
 });
+
+describe('threads and saved versions', () => {
+  it('a bead only a saved version still has takes threads', async () => {
+    const { writeSnapshot } = await import('../../server/collab/draft-store');
+    const other = await otherProjectMapping(t.ctx.db);
+    const sup = await signedIn(t.app, 'supervisor@example.org');
+    await sup.post(`/api/mappings/${other.mappingId}/versions`, { message: 'First cut.' }).expect(201);
+    await writeSnapshot(t.ctx.db, other.mappingId, Y.encodeStateAsUpdate(new Y.Doc()), 0);
+    await sup.post(`/api/mappings/${other.mappingId}/threads`, { beadId: 'bx1', body: 'On the saved bead.' }).expect(201);
+  });
+
+  it('viewing a version lists the threads of the beads it contains', async () => {
+    const other = await otherProjectMapping(t.ctx.db);
+    const sup = await signedIn(t.app, 'supervisor@example.org');
+    const saved = await sup.post(`/api/mappings/${other.mappingId}/versions`, {}).expect(201);
+    const onSaved = await sup.post(`/api/mappings/${other.mappingId}/threads`, { beadId: 'bx1', body: 'Saved bead.' }).expect(201);
+    await editDraft(t.ctx.db, other.mappingId, (doc) => {
+      const m = new Y.Map<unknown>();
+      m.set('name', 'New');
+      m.set('type', null);
+      m.set('centre', 'mass');
+      beadsOf(doc).set('bnew', m);
+    });
+    const onNew = await sup.post(`/api/mappings/${other.mappingId}/threads`, { beadId: 'bnew', body: 'Later bead.' }).expect(201);
+    const ids = async (q: string) => ((await sup.get(`/api/mappings/${other.mappingId}/threads${q}`).expect(200)).body as Thread[]).map((x) => x.id);
+    expect(await ids(`?version=${saved.body.number}`)).toEqual([onSaved.body.id]);
+    expect(await ids('')).toEqual([onSaved.body.id, onNew.body.id]);
+    const missing = await sup.get(`/api/mappings/${other.mappingId}/threads?version=999`).expect(404);
+    expect(missing.body.error.code).toBe('not_found');
+    await sup.get(`/api/mappings/${other.mappingId}/threads?version=zero`).expect(400);
+  });
+});
