@@ -53,7 +53,11 @@ export function CommentComposer({ projectId, label, submitText, initial = '', pe
           setValue(e.target.value);
           mentions.track();
         }}
-        onKeyDown={mentions.onKeyDown}
+        onKeyDown={(e) => {
+          // Ctrl/Cmd+Enter sends; Enter alone is a new line (or picks a mention).
+          if (e.key === 'Enter' && (e.ctrlKey || e.metaKey)) return void (e.preventDefault(), e.currentTarget.form?.requestSubmit());
+          mentions.onKeyDown(e);
+        }}
         onKeyUp={mentions.track}
         onClick={mentions.track}
         aria-invalid={problem ? true : undefined}
@@ -64,7 +68,7 @@ export function CommentComposer({ projectId, label, submitText, initial = '', pe
       />
       <MentionOptions id={`${id}-mentions`} options={mentions.options} active={mentions.active} onPick={mentions.pick} />
       <p id={`${id}-hint`} className="text-xs text-ink-600">
-        *emphasis*, lists, `code` and [links](https://…) work; type @ to mention someone.
+        *emphasis*, lists, `code` and [links](https://…) work; type @ to mention someone; Ctrl+Enter sends.
       </p>
       {problem && <ErrorAlert>{problem}</ErrorAlert>}
       {!!error && <ErrorAlert error={error} />}

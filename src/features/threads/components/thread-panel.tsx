@@ -15,6 +15,9 @@ interface ThreadPanelProps {
   beadId: string;
   /** The bead's name in the live draft, when it is there. */
   beadName: string | null;
+  /** The bead selected in the editor, which may be another one. */
+  active: { id: string; name: string } | null;
+  onShowBead(beadId: string): void;
   threads: UseQueryResult<Thread[]>;
   openThread: number | null;
   onOpenThread(id: number | null): void;
@@ -40,6 +43,11 @@ export function ThreadPanel(p: ThreadPanelProps) {
           Close
         </Button>
       </div>
+      {p.active && p.active.id !== p.beadId && (
+        <Button size="sm" variant="secondary" onClick={() => p.onShowBead(p.active!.id)}>
+          Show threads on {p.active.name}
+        </Button>
+      )}
       {removed && <p className="rounded bg-paper-200 px-2 py-1 text-xs text-ink-700">This bead has been removed from the draft; its threads stay readable.</p>}
       <ThreadFilter value={filter} onChange={setFilter} />
       {p.threads.isError && <ErrorAlert error={p.threads.error} />}

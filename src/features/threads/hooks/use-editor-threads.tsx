@@ -50,6 +50,8 @@ export function useEditorThreads({ mappingId, projectId, me }: Options) {
         me={me}
         beadId={bead}
         beadName={active?.id === bead ? active.name : null}
+        active={active}
+        onShowBead={onOpen}
         threads={threads}
         openThread={thread}
         onOpenThread={(id) => show({ bead, thread: id })}
