@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { CentreRule, Mapping } from './chem';
 import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES } from './mapping-doc';
-import { versionRef } from './versions';
+import { versionRef, type VersionRef } from './versions';
 
 // Export formats of a mapping (docs/exports.md) and the JSON export's shape, which is also what
 // POST /api/molecules/:id/mappings/import reads back. The JSON Schema of the JSON export is
@@ -87,3 +87,12 @@ export const importBody = z.looseObject({
   name: z.string().trim().min(1).max(200).optional(),
 });
 export type ImportBody = z.infer<typeof importBody>;
+
+/** The download (or picture) URL of one state of a mapping. */
+export function exportUrl(mappingId: number, format: ExportFormat, version: VersionRef = 'draft', highlight: readonly number[] = []): string {
+  const q = new URLSearchParams({ format, version: String(version) });
+  if (highlight.length) q.set('highlight', highlight.join(','));
+  return `/api/mappings/${mappingId}/export?${q}`;
+}
+
+export const projectZipUrl = (projectId: number) => `/api/projects/${projectId}/export.zip`;

@@ -5,6 +5,7 @@ import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import JSZip from 'jszip';
+import type { Test } from 'supertest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { contentText } from '../../src/shared/exports';
@@ -15,7 +16,7 @@ let student: ApiClient;
 let supervisor: ApiClient;
 let mappingId: number;
 
-const binary = (res: import('supertest').Request) =>
+const binary = (res: Test): Test =>
   res.buffer(true).parse((r, cb) => {
     const chunks: Buffer[] = [];
     r.on('data', (c: Buffer) => chunks.push(c));
@@ -66,7 +67,7 @@ describe('exports', () => {
 
   it('writes a wwPDB file that an independent PDB parser (3Dmol.js) reads back', async () => {
     const text = (await get('pdb').expect(200)).body.toString('utf8');
-    expect(text.split('\n').every((l) => l.length <= 80)).toBe(true);
+    expect(text.split('\n').every((l: string) => l.length <= 80)).toBe(true);
     expect(text).toMatch(/^REMARK   1 mapping: Export test$/m);
     expect(text).toMatch(/^REMARK   1 version: v2 \(production\)$/m);
     // 3Dmol.js's parsers only need a few browser globals to load in Node.

@@ -1,4 +1,4 @@
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 
 // Debian's chromium driven by playwright-core (never a downloaded browser).
 // Playwright gives every launch a fresh temporary profile directory.
@@ -17,4 +17,19 @@ export function launchBrowser(): Promise<Browser> {
       '--disable-sync',
     ],
   });
+}
+
+/** A fresh context signed in through the real sign-in page; page errors and console errors go to `errors`. */
+export async function signedInPage(browser: Browser, baseURL: string, email: string, password: string, errors: string[]): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ baseURL, viewport: { width: 1440, height: 1000 }, acceptDownloads: true });
+  const page = await context.newPage();
+  page.setDefaultTimeout(15_000);
+  page.on('pageerror', (e) => errors.push(`${email}: ${e.message}`));
+  page.on('console', (m) => m.type() === 'error' && errors.push(`${email}: ${m.text()}`));
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+  return { context, page };
 }

@@ -7,6 +7,8 @@ import { LiveMapping } from '../../features/editor/components/live-mapping';
 import { useMapping } from '../../features/mappings/api/get-mapping';
 import { useMolecule } from '../../features/molecules/api/get-molecule';
 import { useEditorThreads } from '../../features/threads/hooks/use-editor-threads';
+import { MappingHistory } from '../../features/versions/components/mapping-history';
+import { ExportMenu } from '../../features/exports/components/export-menu';
 import { useCurrentUser } from '../shell/current-user';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
@@ -43,6 +45,7 @@ function MappingPage({ mappingId }: { mappingId: number }) {
         {mapping.data.locked && <span className="rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Production version locked</span>}
       </header>
       <MappingWithThreads mapping={mapping.data} molecule={molecule.data.model} library={library.data.types} />
+      <HistoryAndExports mapping={mapping.data} />
     </div>
   );
 }
@@ -54,4 +57,19 @@ function MappingWithThreads(props: Parameters<typeof LiveMapping>[0]) {
   const canModerate = me.isAdmin || me.projects.some((p) => p.projectId === projectId && p.role === 'supervisor');
   const threads = useEditorThreads({ mappingId: props.mapping.id, projectId, me: { id: me.id, canModerate } });
   return <LiveMapping {...props} threads={threads} />;
+}
+
+/** Versions, the production lock, the audit trail and exports, with the caller's rights in this project. */
+function HistoryAndExports({ mapping }: { mapping: NonNullable<ReturnType<typeof useMapping>['data']> }) {
+  const me = useCurrentUser();
+  const role = me.projects.find((p) => p.projectId === mapping.projectId)?.role;
+  const canLock = me.isAdmin || role === 'supervisor';
+  return (
+    <MappingHistory
+      mapping={mapping}
+      canEdit={canLock || role === 'modeller'}
+      canLock={canLock}
+      exportMenu={(states) => <ExportMenu mappingId={mapping.id} projectId={mapping.projectId} states={states} />}
+    />
+  );
 }

@@ -1,0 +1,103 @@
+import { useState } from 'react';
+import { Badge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { ErrorAlert } from '../../../components/ui/alert';
+import { Loading } from '../../../components/ui/loading';
+import { Section } from '../../../components/ui/section';
+import type { MappingDetail } from '../../../shared/mappings';
+import { useVersions } from '../api/get-versions';
+import { useLock } from '../api/get-lock';
+import { useRestoreVersion } from '../api/restore-version';
+import type { StateRef } from '../api/get-compare';
+import { AuditTrail } from './audit-trail';
+import { CompareView } from './compare-view';
+import { LockControls } from './lock-controls';
+import { SaveVersionForm } from './save-version-form';
+import { VersionList } from './version-list';
+import { VersionView } from './version-view';
+
+type Open = { kind: 'view'; n: number } | { kind: 'compare'; from: StateRef; to: StateRef } | null;
+
+interface MappingHistoryProps {
+  mapping: MappingDetail;
+  /** The caller's role may save and restore. */
+  canEdit: boolean;
+  /** The caller may lock and unlock (supervisors, admins). */
+  canLock: boolean;
+  /** Where the export menu goes (it lives in its own feature). */
+  exportMenu?: (states: { ref: number | 'draft' | 'production'; label: string }[]) => React.ReactNode;
+}
+
+const refOf = (v: string): StateRef => (v === 'draft' ? 'draft' : Number(v));
+
+/** History of a mapping: save, the version list, view, compare, restore, the lock and the audit trail. */
+export function MappingHistory({ mapping, canEdit, canLock, exportMenu }: MappingHistoryProps) {
+  const versions = useVersions(mapping.id);
+  const lock = useLock(mapping.id);
+  const restore = useRestoreVersion(mapping.id);
+  const [open, setOpen] = useState<Open>(null);
+  const [pick, setPick] = useState<{ from: string; to: string }>({ from: '', to: 'draft' });
+  const names = new Map(mapping.draft.beads.map((b) => [b.id, b.name]));
+  if (versions.isError || lock.isError) return <ErrorAlert error={versions.error ?? lock.error} />;
+  if (!versions.data || !lock.data) return <Loading label="Loading the history…" />;
+  const list = versions.data;
+  const locked = lock.data.locked;
+  const options = [...list.map((v) => ({ value: String(v.number), label: `Version ${v.number}` })), { value: 'draft', label: 'Draft' }];
+  const from = pick.from || (list[1] ? String(list[1].number) : list[0] ? String(list[0].number) : 'draft');
+  const states = [{ ref: 'draft' as const, label: 'The draft' }, ...(locked ? [{ ref: 'production' as const, label: `Production (version ${lock.data.version})` }] : [])];
+
+  return (
+    <Section
+      title="History"
+      description={locked ? `Version ${lock.data.version} is locked for production; the draft is read-only.` : 'Versions are immutable snapshots the server takes of the draft.'}
+      actions={<div className="flex items-center gap-2">{locked && <Badge tone="ok">Production: version {lock.data.version}</Badge>}{exportMenu?.(states)}</div>}
+    >
+      <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="flex flex-col gap-3">
+          {canEdit && !locked && <SaveVersionForm mappingId={mapping.id} />}
+          <ErrorAlert error={restore.error} />
+          <VersionList
+            mappingId={mapping.id}
+            versions={list}
+            canRestore={canEdit && !locked}
+            restoring={restore.isPending ? (restore.variables ?? null) : null}
+            onView={(n) => setOpen({ kind: 'view', n })}
+            onCompareWithDraft={(n) => setOpen({ kind: 'compare', from: n, to: 'draft' })}
+            onRestore={(n) => restore.mutate(n)}
+          />
+          {list.length > 0 && (
+            <form className="flex flex-wrap items-end gap-2 text-sm" onSubmit={(e) => (e.preventDefault(), setOpen({ kind: 'compare', from: refOf(from), to: refOf(pick.to) }))}>
+              {(['from', 'to'] as const).map((side) => (
+                <label key={side} className="flex flex-col gap-1 font-semibold text-ink-800">
+                  Compare {side}
+                  <select className="rounded-md border border-ink-300 bg-paper-50 px-2 py-1 font-normal" value={side === 'from' ? from : pick.to} onChange={(e) => setPick({ ...pick, from, [side]: e.target.value })}>
+                    {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+                  </select>
+                </label>
+              ))}
+              <Button type="submit" size="sm" variant="secondary">Compare</Button>
+            </form>
+          )}
+        </div>
+        <div className="flex flex-col gap-4">
+          {canLock && (
+            <div>
+              <h3 className="mb-2 font-bold text-ink-900">Production lock</h3>
+              <LockControls mappingId={mapping.id} lock={lock.data} versions={list} />
+            </div>
+          )}
+          <div>
+            <h3 className="mb-2 font-bold text-ink-900">Audit trail</h3>
+            <AuditTrail mappingId={mapping.id} />
+          </div>
+        </div>
+      </div>
+      {open && (
+        <div className="mt-5 border-t border-paper-300 pt-4">
+          <div className="mb-2 flex justify-end"><Button size="sm" variant="ghost" onClick={() => setOpen(null)}>Close</Button></div>
+          {open.kind === 'view' ? <VersionView mappingId={mapping.id} number={open.n} /> : <CompareView mappingId={mapping.id} from={open.from} to={open.to} names={names} />}
+        </div>
+      )}
+    </Section>
+  );
+}
