@@ -45,6 +45,14 @@ async function cookieFor(email: string): Promise<string> {
   return header();
 }
 
+/** Live changes must arrive within 2 s: a time-out on the wait, not a measurement. */
+const LIVE = 2_000;
+const within = <T>(ms: number, p: Promise<T>) =>
+  new Promise<T>((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error(`no event within ${ms} ms`)), ms);
+    p.then((v) => (clearTimeout(timer), resolve(v)), reject);
+  });
+
 /** Opens a stream and collects its events; `next(type)` waits for the next one of that type. */
 async function openStream(path: string, cookie: string) {
   const controller = new AbortController();
@@ -72,7 +80,8 @@ async function openStream(path: string, cookie: string) {
     }
   })();
   let seen = 0;
-  const next = async (type: string) => {
+  const next = (type: string) => within(LIVE, nextOf(type));
+  const nextOf = async (type: string) => {
     for (;;) {
       const i = events.findIndex((e, k) => k >= seen && e.type === type);
       if (i >= 0) {

@@ -9,6 +9,8 @@ import { launchBrowser } from '../helpers/browser';
 // Payloads in the comment, the bead name and the modeller's display name must stay inert text.
 
 const PASSWORD = 'beadloom-demo';
+/** Live changes must reach other viewers within 2 s (a wait's time-out, not a measurement). */
+const LIVE = 2_000;
 const BEAD_NAME = '<img src=x onerror=window.__xss=1>';
 const DISPLAY_NAME = 'Tomas <b onmouseover="window.__xss=2">Brenn</b>';
 const BODY_PAYLOADS = ' <script>window.__xss=3</script> <img src=x onerror="window.__xss=4"> [click me](javascript:window.__xss=5) **bold**';
@@ -81,6 +83,8 @@ describe('threads on beads', () => {
     await box.press('Enter');
     await box.pressSequentially(`?${BODY_PAYLOADS}`);
     await panel.getByRole('button', { name: 'Start thread' }).click();
+    // The supervisor, on the projects page, sees the bell count arrive without reloading.
+    await supervisor.getByRole('button', { name: 'Notifications, 1 unread' }).waitFor({ timeout: LIVE });
     const thread = panel.getByRole('listitem', { name: 'Open thread' });
     await thread.locator('.mention', { hasText: '@Dr Ines Marlow' }).waitFor();
     const threadId = Number(await thread.getAttribute('data-thread'));
@@ -94,8 +98,6 @@ describe('threads on beads', () => {
     await row.getByRole('button', { name: `1 open thread on bead ${BEAD_NAME}` }).waitFor();
     await modeller.getByRole('region', { name: 'Bead graph' }).getByRole('button', { name: `1 open thread on bead ${BEAD_NAME}` }).waitFor();
 
-    // The supervisor, on the projects page, sees the bell count arrive without reloading.
-    await supervisor.getByRole('button', { name: 'Notifications, 1 unread' }).waitFor({ timeout: 5_000 });
     await supervisor.getByRole('button', { name: 'Notifications, 1 unread' }).click();
     await supervisor.getByRole('link', { name: `Unread: ${DISPLAY_NAME} mentioned you in ${await mappingName(supervisor, mappingId)}` }).waitFor();
 
@@ -123,12 +125,17 @@ describe('threads on beads', () => {
     await supThread.getByText(DISPLAY_NAME).first().hover();
     for (const page of [modeller, supervisor]) expect(await xss(page)).toBeNull();
 
+    // A reply from the modeller reaches the supervisor's open thread live.
+    await thread.getByLabel('Reply').fill('Moved the carbon; have a look.');
+    await thread.getByRole('button', { name: 'Reply' }).click();
+    await supThread.getByText('Moved the carbon; have a look.').waitFor({ timeout: LIVE });
+
     // The supervisor resolves it; the modeller's badges go away live.
     await supThread.getByRole('button', { name: 'Resolve' }).click();
     await supThread.getByText('Resolved by Dr Ines Marlow').waitFor();
-    await modeller.locator(`svg [data-thread-badge="${id}"]`).waitFor({ state: 'detached', timeout: 5_000 });
+    await modeller.locator(`svg [data-thread-badge="${id}"]`).waitFor({ state: 'detached', timeout: LIVE });
     await expect(modeller.getByRole('region', { name: 'Bead graph' }).locator('[data-thread-badge]').count()).resolves.toBe(0);
-    await row.getByRole('button', { name: `Start a thread on bead ${BEAD_NAME}` }).waitFor({ timeout: 5_000 });
+    await row.getByRole('button', { name: `Start a thread on bead ${BEAD_NAME}` }).waitFor({ timeout: LIVE });
     await panel.getByRole('listitem', { name: 'Open thread' }).getByText(/^Resolved/).waitFor();
 
     expect(pageErrors).toEqual([]);
