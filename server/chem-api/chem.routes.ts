@@ -5,7 +5,8 @@ import { validate } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { tooLarge } from '../http/errors';
 import { evaluateBodySchema, moleculeBodySchema, SMILES_MAX, type EvaluateBody, type MoleculeBody } from '../../src/shared/mapping-schema';
-import { evaluateMapping, parseMolecule } from '../chem';
+import { evaluateMapping, loadRdkit } from '../chem';
+import { parseInThread } from '../workers/parse-thread';
 
 // Stateless chemistry endpoints for previews: parse a structure, or parse it and
 // evaluate a mapping on it. Nothing is stored.
@@ -24,13 +25,14 @@ const structureOf = (body: MoleculeBody) => ('smiles' in body ? { smiles: body.s
 export function chemRoutes(r: RouteTable, ctx: AppContext): void {
   r.post('/api/chem/molecule', smilesLimit, validate({ body: moleculeBodySchema }), async (req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
-    res.json(await parseMolecule(structureOf(req.body)));
+    res.json(await parseInThread(structureOf(req.body)));
   });
 
   r.post('/api/chem/evaluate', smilesLimit, validate({ body: evaluateBodySchema }), async (req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
     const body = req.body as EvaluateBody;
-    const molecule = await parseMolecule(structureOf(body));
+    const molecule = await parseInThread(structureOf(body));
+    await loadRdkit(); // fragment logP types the fragments with RDKit here
     res.json({ molecule, evaluation: evaluateMapping(molecule, body.mapping, body.options ?? {}) });
   });
 }

@@ -1,5 +1,5 @@
 import type { Mapping } from '../../src/shared/chem';
-import { evaluateDraft, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
+import { evaluateDraft, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluate-draft';
 import { evaluateInThread, forgetInputs } from '../mappings/evaluation-thread';
 
 /**

@@ -1,5 +1,4 @@
 import type { Writable } from 'node:stream';
-import { ZipArchive } from 'archiver';
 import type { Db } from '../db/knex';
 import { EXPORT_FORMATS } from '../../src/shared/exports';
 import type { DraftAccess } from '../mappings/mappings.routes';
@@ -16,6 +15,8 @@ export async function writeProjectZip(db: Db, drafts: DraftAccess, projectId: nu
     .where('m.project_id', projectId)
     .orderBy(['m.name', 'p.name', 'p.id'])
     .select('p.id', 'p.name', 'm.name as molecule_name', 'l.mapping_id as locked');
+  // Loaded on first use: the archiver package is large and most processes never build a zip.
+  const { ZipArchive } = await import('archiver');
   const zip = new ZipArchive({ zlib: { level: 6 } });
   const done = new Promise<void>((resolve, reject) => {
     zip.on('error', reject);

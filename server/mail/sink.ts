@@ -1,5 +1,5 @@
 import { SMTPServer } from 'smtp-server';
-import { simpleParser, type AddressObject } from 'mailparser';
+import type { AddressObject } from 'mailparser';
 import type { AddressInfo } from 'node:net';
 import type { Db } from '../db/knex';
 
@@ -16,6 +16,8 @@ const addresses = (a: AddressObject | AddressObject[] | undefined): string[] =>
   (Array.isArray(a) ? a : a ? [a] : []).flatMap((o) => o.value.map((v) => v.address ?? '')).filter(Boolean);
 
 export async function startMailSink(db: Db, port = 0): Promise<MailSink> {
+  // mailparser is large; only a process that runs the sink loads it.
+  const { simpleParser } = await import('mailparser');
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],

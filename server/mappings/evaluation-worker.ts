@@ -5,17 +5,17 @@
 import { parentPort } from 'node:worker_threads';
 import type { Mapping } from '../../src/shared/chem';
 import { loadRdkit } from '../chem/index';
-import { evaluateDraft, type EvaluationInputs } from './evaluation';
+import { evaluateDraft, type EvaluationInputs } from './evaluate-draft';
 import type { EvaluationJob, EvaluationReply } from './evaluation-thread';
 
 const known = new Map<number, { stamp: number; inputs: EvaluationInputs }>();
 
-parentPort!.on('message', async (job: EvaluationJob | { forget: number }) => {
+parentPort!.on('message', async (job: (EvaluationJob & { id: number }) | { forget: number }) => {
   if ('forget' in job) {
     known.delete(job.forget);
     return;
   }
-  let reply: EvaluationReply;
+  let reply: EvaluationReply & { id: number };
   try {
     await loadRdkit();
     if (job.inputs) known.set(job.mappingId, { stamp: job.stamp, inputs: job.inputs });

@@ -1,29 +1,11 @@
 import type { Db } from '../db/knex';
-import type { BeadType, Evaluation, Mapping, Molecule, Resolution } from '../../src/shared/chem';
-import { evaluateMapping, isChemError, loadRdkit } from '../chem/index';
+import { loadRdkit } from '../chem/index';
+import type { EvaluationInputs } from './evaluate-draft';
 import { parseModel } from '../molecules/molecule-view';
 import { libraryFor } from '../bead-types/bead-types.service';
 
-// What the chemistry core needs to evaluate one mapping's draft, read from the database, and the
-// evaluation itself with the core's refusals turned into data (a draft mid-edit may be unevaluable).
-
-export interface EvaluationInputs {
-  mappingId: number;
-  moleculeId: number;
-  projectId: number;
-  locked: boolean;
-  resolution: Resolution;
-  model: Molecule;
-  xyz: number[][] | null;
-  /** The project's library, or undefined for the core's illustrative default when the project has none. */
-  library: BeadType[] | undefined;
-}
-
-export interface EvaluationResult {
-  evaluation: Evaluation | null;
-  error: { code: string; message: string } | null;
-  evaluatedAt: string;
-}
+// What the chemistry core needs to evaluate one mapping's draft, read from the database.
+// The evaluation itself is in evaluate-draft.ts (no database, so the evaluation thread can load it).
 
 export async function loadEvaluationInputs(db: Db, mappingId: number): Promise<EvaluationInputs | null> {
   const row = await db('mappings as p')
@@ -46,17 +28,4 @@ export async function loadEvaluationInputs(db: Db, mappingId: number): Promise<E
   };
 }
 
-export function evaluateDraft(inputs: EvaluationInputs, mapping: Mapping): EvaluationResult {
-  const evaluatedAt = new Date().toISOString();
-  try {
-    const evaluation = evaluateMapping(inputs.model, mapping, {
-      resolution: inputs.resolution,
-      ...(inputs.xyz ? { coordinates: inputs.xyz } : {}),
-      ...(inputs.library ? { library: inputs.library } : {}),
-    });
-    return { evaluation, error: null, evaluatedAt };
-  } catch (err) {
-    if (!isChemError(err)) throw err;
-    return { evaluation: null, error: { code: err.code, message: err.message }, evaluatedAt };
-  }
-}
+export { evaluateDraft, type EvaluationInputs, type EvaluationResult } from './evaluate-draft';

@@ -5,7 +5,7 @@ import { validate } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
 import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody, type CreateMoleculeBody, type ListMoleculesQuery } from '../../src/shared/molecules';
-import { parseMolecule } from '../chem/index';
+import { parseInThread } from '../workers/parse-thread';
 import { withChemErrors } from './chem-errors';
 import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
@@ -28,7 +28,7 @@ export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Confo
     const projectId = Number(req.params.id);
     await authorizeProject(ctx.db, req, projectId, 'molecule:create');
     const body = req.body as CreateMoleculeBody;
-    const model = await withChemErrors(() => parseMolecule(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! }));
+    const model = await withChemErrors(() => parseInThread(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! }));
     const id = await insertMolecule(ctx.db, {
       projectId,
       userId: requireUser(req).id,

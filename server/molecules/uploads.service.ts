@@ -1,7 +1,7 @@
 import type { Db } from '../db/knex';
 import type { Molecule } from '../../src/shared/chem';
 import type { UploadRecordResult } from '../../src/shared/molecules';
-import { parseMolecule } from '../chem/index';
+import { parseInThread } from '../workers/parse-thread';
 import { AppError, unprocessable } from '../http/errors';
 import { chemToAppError } from './chem-errors';
 import { parseModel, toSummary } from './molecule-view';
@@ -38,7 +38,7 @@ export async function importRecords(db: Db, projectId: number, userId: number, f
   for (const r of records) {
     const recordName = (records.length === 1 && name) || r.data.name || r.data.Name || r.title || `${base} #${r.record}`;
     try {
-      const model = await parseMolecule({ molfile: r.molfile });
+      const model = await parseInThread({ molfile: r.molfile });
       const id = await insertMolecule(db, { projectId, userId, name: recordName.slice(0, 200), source: 'molfile', model });
       results.push({ record: r.record, name: recordName, ok: true, molecule: toSummary(await findMolecule(db, id), null) });
     } catch (err) {
@@ -71,7 +71,7 @@ export async function attachCoordinates(db: Db, moleculeId: number, text: string
   const row = await findMolecule(db, moleculeId);
   let file: Molecule;
   try {
-    file = await parseMolecule({ molfile: records[0].molfile });
+    file = await parseInThread({ molfile: records[0].molfile });
   } catch (err) {
     throw chemToAppError(err);
   }
