@@ -138,6 +138,15 @@ describe('threads on beads', () => {
     await row.getByRole('button', { name: `Start a thread on bead ${BEAD_NAME}` }).waitFor({ timeout: LIVE });
     await panel.getByRole('listitem', { name: 'Open thread' }).getByText(/^Resolved/).waitFor();
 
+    // A saved version lists the threads of the beads it contains.
+    await supervisor.getByLabel('Version message').fill('After the ring discussion.');
+    await supervisor.getByRole('button', { name: 'Save version' }).click();
+    await supervisor.getByRole('list', { name: 'Versions' }).getByRole('listitem', { name: 'Version 1' }).getByRole('button', { name: 'View' }).click();
+    const versionThreads = supervisor.getByRole('region', { name: 'Threads on the beads of version 1' });
+    await versionThreads.getByRole('link', { name: new RegExp(`Resolved.*Is this right`) }).waitFor();
+    await expect(versionThreads.getByText(BEAD_NAME).count()).resolves.toBe(1);
+    for (const page of [modeller, supervisor]) expect(await xss(page)).toBeNull();
+
     expect(pageErrors).toEqual([]);
   });
 });

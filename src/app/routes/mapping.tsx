@@ -7,6 +7,7 @@ import { LiveMapping } from '../../features/editor/components/live-mapping';
 import { useMapping } from '../../features/mappings/api/get-mapping';
 import { useMolecule } from '../../features/molecules/api/get-molecule';
 import { useEditorThreads } from '../../features/threads/hooks/use-editor-threads';
+import { VersionThreads } from '../../features/threads/components/version-threads';
 import { MappingHistory } from '../../features/versions/components/mapping-history';
 import { ExportMenu } from '../../features/exports/components/export-menu';
 import { useCurrentUser } from '../shell/current-user';
@@ -70,6 +71,7 @@ function HistoryAndExports({ mapping }: { mapping: NonNullable<ReturnType<typeof
       canEdit={canLock || role === 'modeller'}
       canLock={canLock}
       exportMenu={(states) => <ExportMenu mappingId={mapping.id} projectId={mapping.projectId} states={states} />}
+      versionThreads={(n) => <VersionThreads mappingId={mapping.id} version={n} />}
     />
   );
 }

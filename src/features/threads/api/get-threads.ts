@@ -21,3 +21,11 @@ export function upsertThread(queryClient: QueryClient, thread: Thread): void {
     return at < 0 ? [...list, thread] : list.map((t) => (t.id === thread.id ? thread : t));
   });
 }
+
+/** The threads on the beads a saved version contains (GET …/threads?version=N). */
+export const versionThreadsQueryOptions = (mappingId: number, version: number) =>
+  queryOptions({ queryKey: ['mappings', mappingId, 'threads', { version }], queryFn: () => api.get<Thread[]>(`/api/mappings/${mappingId}/threads?version=${version}`) });
+
+export function useVersionThreads(mappingId: number, version: number) {
+  return useQuery(versionThreadsQueryOptions(mappingId, version));
+}

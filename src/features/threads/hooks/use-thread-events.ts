@@ -12,7 +12,11 @@ export function useThreadEvents(mappingId: number): void {
   useEffect(() => {
     const source = new EventSource(`/api/mappings/${mappingId}/events`);
     source.addEventListener('open', () => void queryClient.invalidateQueries({ queryKey: threadsQueryOptions(mappingId).queryKey }));
-    source.addEventListener('thread', (e) => upsertThread(queryClient, (JSON.parse((e as MessageEvent<string>).data) as ThreadEvent).thread));
+    source.addEventListener('thread', (e) => {
+      upsertThread(queryClient, (JSON.parse((e as MessageEvent<string>).data) as ThreadEvent).thread);
+      // Lists of a version's threads (longer keys under the same prefix) refetch.
+      void queryClient.invalidateQueries({ queryKey: threadsQueryOptions(mappingId).queryKey, predicate: (q) => q.queryKey.length > 3 });
+    });
     return () => source.close();
   }, [mappingId, queryClient]);
 }

@@ -26,12 +26,14 @@ interface MappingHistoryProps {
   canLock: boolean;
   /** Where the export menu goes (it lives in its own feature). */
   exportMenu?: (states: { ref: number | 'draft' | 'production'; label: string }[]) => React.ReactNode;
+  /** The threads of a version's beads, shown with the version (they live in their own feature). */
+  versionThreads?: (number: number) => React.ReactNode;
 }
 
 const refOf = (v: string): StateRef => (v === 'draft' ? 'draft' : Number(v));
 
 /** History of a mapping: save, the version list, view, compare, restore, the lock and the audit trail. */
-export function MappingHistory({ mapping, canEdit, canLock, exportMenu }: MappingHistoryProps) {
+export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionThreads }: MappingHistoryProps) {
   const versions = useVersions(mapping.id);
   const lock = useLock(mapping.id);
   const restore = useRestoreVersion(mapping.id);
@@ -95,7 +97,10 @@ export function MappingHistory({ mapping, canEdit, canLock, exportMenu }: Mappin
       {open && (
         <div className="mt-5 border-t border-paper-300 pt-4">
           <div className="mb-2 flex justify-end"><Button size="sm" variant="ghost" onClick={() => setOpen(null)}>Close</Button></div>
-          {open.kind === 'view' ? <VersionView mappingId={mapping.id} number={open.n} /> : <CompareView mappingId={mapping.id} from={open.from} to={open.to} names={names} />}
+          {open.kind === 'view' ? <>
+              <VersionView mappingId={mapping.id} number={open.n} />
+              {versionThreads?.(open.n)}
+            </> : <CompareView mappingId={mapping.id} from={open.from} to={open.to} names={names} />}
         </div>
       )}
     </Section>
