@@ -76,8 +76,9 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
     >
       <g transform={`translate(${viewport.x},${viewport.y}) scale(${viewport.k})`}>
         <HullLayer view={view} points={points} activeBead={props.activeBead} />
-        <StructureLayer drawing={drawing} />
+        {/* Highlights sit under the structure so element labels stay readable on selected atoms. */}
         <HighlightLayer points={points} selection={props.selection} highlight={props.highlight} peers={props.peers} cursor={cursor} />
+        <StructureLayer drawing={drawing} />
         <AtomTargets drawing={drawing} />
         <BeadTags view={view} points={points} />
         <ThreadBadgeLayer view={view} points={points} threads={props.threads} />
