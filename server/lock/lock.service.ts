@@ -46,6 +46,9 @@ export async function lockVersion(db: Db, rooms: Rooms, mappingId: number, numbe
   if (!version) throw unprocessable('unknown_version', `This mapping has no version ${number}.`, { version: number });
   await onRoomQueue(rooms, mappingId, () =>
     db.transaction(async (trx) => {
+      // The mapping's row lock first: the lock row's foreign key would otherwise take a shared lock on
+      // it, and two lockers upgrading to the UPDATE below would deadlock instead of one getting a 409.
+      await trx('mappings').where({ id: mappingId }).forUpdate().first('id');
       await trx('mapping_locks')
         .insert({ mapping_id: mappingId, version_id: version.id, locked_by: actorId, note })
         .catch((err: { code?: string }) => {
@@ -62,6 +65,7 @@ export async function lockVersion(db: Db, rooms: Rooms, mappingId: number, numbe
 export async function unlockMapping(db: Db, rooms: Rooms, mappingId: number, actorId: number, reason: string): Promise<LockState> {
   await onRoomQueue(rooms, mappingId, () =>
     db.transaction(async (trx) => {
+      await trx('mappings').where({ id: mappingId }).forUpdate().first('id');
       const lock = await trx('mapping_locks as l').join('mapping_versions as v', 'v.id', 'l.version_id').where('l.mapping_id', mappingId).forUpdate().first('v.number');
       if (!lock) throw conflict('not_locked', 'This mapping is not locked.');
       await trx('mapping_locks').where({ mapping_id: mappingId }).delete();
