@@ -5,7 +5,7 @@
 // (compared by a hash of package-lock.json), then hands over to the
 // TypeScript script named by the first argument, run with tsx.
 import { createHash } from 'node:crypto';
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { spawn, spawnSync } from 'node:child_process';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -19,10 +19,39 @@ function lockHash() {
   return createHash('sha256').update(lock).update(readFileSync(join(root, 'package.json'))).digest('hex');
 }
 
+const upToDate = (wanted) =>
+  existsSync(join(root, 'node_modules', '.bin', 'tsx')) && existsSync(stamp) && readFileSync(stamp, 'utf8').trim() === wanted;
+
+// Two commands started at once in one checkout (npm start and npm test) must not both run npm ci:
+// the second would empty node_modules under the first. A directory is the lock (mkdir is atomic);
+// one older than ten minutes is left over from a killed run and is taken over.
+const installLock = join(root, '.install-lock');
+function withInstallLock(work) {
+  for (;;) {
+    try {
+      mkdirSync(installLock);
+      break;
+    } catch {
+      if (Date.now() - statSync(installLock, { throwIfNoEntry: false })?.mtimeMs > 10 * 60_000) rmSync(installLock, { recursive: true, force: true });
+      else Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 500);
+    }
+  }
+  try {
+    work();
+  } finally {
+    rmSync(installLock, { recursive: true, force: true });
+  }
+}
+
 function ensureDependencies() {
   const wanted = lockHash();
-  const current = existsSync(stamp) ? readFileSync(stamp, 'utf8').trim() : '';
-  if (existsSync(join(root, 'node_modules', '.bin', 'tsx')) && current === wanted) return;
+  if (upToDate(wanted)) return;
+  withInstallLock(() => {
+    if (!upToDate(wanted)) install(wanted);
+  });
+}
+
+function install(wanted) {
   const args = existsSync(lockFile) ? ['ci', '--no-audit', '--no-fund'] : ['install', '--no-audit', '--no-fund'];
   console.log(`[beadloom] installing npm dependencies (npm ${args[0]})…`);
   const result = spawnSync('npm', args, { cwd: root, stdio: 'inherit' });
