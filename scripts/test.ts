@@ -1,6 +1,6 @@
 // `npm test`: a throwaway MariaDB on a free port in a temp dir, the client
-// build (the browser tests serve it), then every suite (unit, API, collab,
-// browser) with vitest. MariaDB stops and the temp dir goes, pass or fail.
+// build (the browser tests serve it), then every suite with vitest: unit, API and collab
+// first, then the browser tests. MariaDB stops and the temp dir goes, pass or fail.
 // Extra arguments go to vitest, e.g. `npm test -- --project unit`.
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -32,12 +32,16 @@ try {
     code = await run(bin('vite'), ['build', '--logLevel', 'warn']);
     if (code !== 0) throw new Error('The client build failed.');
   }
-  code = await run(bin('vitest'), ['run', ...args], {
-    ...process.env,
-    TEST_DATABASE_URL: mariadb.url,
-    CHROMIUM_PATH: chromium,
-    NODE_ENV: 'test',
-  });
+  const env = { ...process.env, TEST_DATABASE_URL: mariadb.url, CHROMIUM_PATH: chromium, NODE_ENV: 'test' };
+  if (args.length > 0) {
+    code = await run(bin('vitest'), ['run', ...args], env);
+  } else {
+    // The browser tests run after the rest, with the machine to themselves: beside the API suites
+    // on two cores their waits for the page would race the CPU, not the code.
+    const first = await run(bin('vitest'), ['run', '--project', 'unit', '--project', 'api'], env);
+    const browser = await run(bin('vitest'), ['run', '--project', 'e2e'], env);
+    code = first !== 0 ? first : browser;
+  }
 } catch (err) {
   console.error(`[beadloom] ${(err as Error).message}`);
 }
