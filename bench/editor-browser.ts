@@ -1,4 +1,4 @@
-// `npm run bench:editor-browser`: the mapping editor in Chromium on a 2,000-heavy-atom molecule.
+// `npm run bench:editor`: the mapping editor in Chromium on a 2,000-heavy-atom molecule.
 // Reads the editor's own performance marks (src/features/editor/model/perf-marks.ts):
 //   editor ready (navigation → live draft synced and painted), target < 2 s;
 //   select-and-assign → repaint (a make-bead command on 4 selected atoms), target < 100 ms.
