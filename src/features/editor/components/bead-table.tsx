@@ -49,6 +49,15 @@ export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: Edi
         cell: ({ row }) => <Suggestion ctx={ctx} row={row.original} />,
       }),
       col.accessor((r) => r.bead.centre, { id: 'centre', header: 'Centre', cell: (c) => CENTRE_LABEL[c.getValue()] }),
+      col.accessor((r) => r.ev?.centre ?? null, {
+        id: 'centre-xyz',
+        header: 'Centre x, y, z (Å)',
+        // Null until the molecule has 3D coordinates (an uploaded structure or the background conformer).
+        cell: (c) => {
+          const xyz = c.getValue();
+          return xyz ? <span className="font-mono whitespace-nowrap">{xyz.map((v) => v.toFixed(2)).join(', ')}</span> : <span className="text-ink-400">no 3D yet</span>;
+        },
+      }),
     ],
     [ctx, threads],
   );
