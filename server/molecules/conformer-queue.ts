@@ -1,7 +1,7 @@
 import { EventEmitter } from 'node:events';
 import type { Logger } from 'pino';
 import type { Db } from '../db/knex';
-import { conformerInThread } from './conformer-thread';
+import { conformerInThread, stopConformerThread } from './conformer-thread';
 import { parseModel } from './molecule-view';
 import { setXyz } from './molecules.service';
 
@@ -48,11 +48,17 @@ export class ConformerQueue extends EventEmitter {
     while (this.current) await this.current.catch(() => undefined);
   }
 
-  /** Stops taking jobs and waits for the running one. */
+  /**
+   * Stops taking jobs. A running job is abandoned, not awaited: a large molecule's conformer can take
+   * minutes, and shutdown (Ctrl-C) must not wait for it. Its row stays 'running', so the next start
+   * queues it again (resume()).
+   */
   async close(): Promise<void> {
     this.closed = true;
     this.waiting = [];
-    await this.current;
+    if (!this.current) return;
+    await stopConformerThread();
+    await this.current.catch(() => undefined);
   }
 
   private pump(): void {
