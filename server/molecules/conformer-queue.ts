@@ -56,9 +56,10 @@ export class ConformerQueue extends EventEmitter {
   async close(): Promise<void> {
     this.closed = true;
     this.waiting = [];
-    if (!this.current) return;
+    const running = this.current;
+    if (!running) return;
     await stopConformerThread();
-    await this.current.catch(() => undefined);
+    await running.catch(() => undefined);
   }
 
   private pump(): void {
