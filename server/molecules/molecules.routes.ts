@@ -6,7 +6,6 @@ import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
 import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody, type CreateMoleculeBody, type ListMoleculesQuery } from '../../src/shared/molecules';
 import { parseInThread } from '../workers/parse-thread';
-import { withChemErrors } from './chem-errors';
 import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
 import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, updateMolecule } from './molecules.service';
@@ -28,7 +27,7 @@ export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Confo
     const projectId = Number(req.params.id);
     await authorizeProject(ctx.db, req, projectId, 'molecule:create');
     const body = req.body as CreateMoleculeBody;
-    const model = await withChemErrors(() => parseInThread(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! }));
+    const model = await parseInThread(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! });
     const id = await insertMolecule(ctx.db, {
       projectId,
       userId: requireUser(req).id,

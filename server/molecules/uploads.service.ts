@@ -69,12 +69,8 @@ export async function attachCoordinates(db: Db, moleculeId: number, text: string
   const records = splitSdf(text);
   if (records.length !== 1) throw unprocessable('one_record_expected', `Coordinates come from a file with one structure; this one has ${records.length}.`, { records: records.length });
   const row = await findMolecule(db, moleculeId);
-  let file: Molecule;
-  try {
-    file = await parseInThread({ molfile: records[0].molfile });
-  } catch (err) {
-    throw chemToAppError(err);
-  }
+  // A ChemError propagates; the error middleware answers it in the shared shape.
+  const file: Molecule = await parseInThread({ molfile: records[0].molfile });
   const mismatch = firstMismatch(parseModel(row), file);
   if (mismatch) throw unprocessable('structure_mismatch', `The file's atoms do not match the molecule: ${mismatch.message}`, mismatch.details);
   if (!file.coordinates) {
