@@ -79,7 +79,7 @@ export class ConformerQueue extends EventEmitter {
       const claimed = await this.db('molecules').where({ id }).whereIn('conformer_status', ['queued', 'running']).whereNull('xyz_source').update({ conformer_status: 'running' });
       if (!claimed) return;
       const row = await this.db('molecules').where({ id }).first('id', 'model');
-      const xyz = await conformerInThread(id, parseModel(row), CONFORMER_SEED);
+      const xyz = await conformerInThread(parseModel(row), CONFORMER_SEED);
       if (this.closed) return;
       // Only if no 3D upload arrived while we worked.
       const still = await this.db('molecules').where({ id, conformer_status: 'running' }).whereNull('xyz_source').first('id');

@@ -1,43 +1,18 @@
-import type { Worker } from 'node:worker_threads';
-import { startTsWorker } from '../workers/ts-worker';
 import type { Molecule } from '../../src/shared/chem';
+import { JobThread } from '../workers/job-thread';
 
-// One worker thread for conformer jobs, started on first use and reused. Jobs are sent one at a
-// time by the queue.
+// The conformer worker thread (conformer-worker.ts). The queue sends one job at a time. openchemlib's
+// conformer generator holds tens of megabytes of tables, so the thread stops 30 s after its last job.
 
-let worker: Worker | null = null;
-let pending: { id: number; resolve(xyz: number[][]): void; reject(err: Error): void } | null = null;
+type ConformerReply = { xyz: number[][] } | { error: string };
 
-function thread(): Worker {
-  if (worker) return worker;
-  const w = startTsWorker(new URL('./conformer-worker.ts', import.meta.url));
-  w.on('message', (msg: { id: number; xyz?: number[][]; error?: string }) => {
-    const job = pending;
-    pending = null;
-    if (!job || job.id !== msg.id) return;
-    if (msg.xyz) job.resolve(msg.xyz);
-    else job.reject(new Error(msg.error ?? 'conformer generation failed'));
-  });
-  const fail = (err: Error) => {
-    worker = null;
-    pending?.reject(err);
-    pending = null;
-  };
-  w.on('error', fail);
-  w.on('exit', (code) => fail(new Error(`the conformer thread stopped (exit ${code})`)));
-  worker = w;
-  return w;
+const thread = new JobThread<{ model: Molecule; seed: number }, ConformerReply>(new URL('./conformer-worker.ts', import.meta.url), 30_000);
+
+export async function conformerInThread(model: Molecule, seed: number): Promise<number[][]> {
+  const reply = await thread.run({ model, seed });
+  if ('xyz' in reply) return reply.xyz;
+  throw new Error(reply.error || 'conformer generation failed');
 }
 
-export function conformerInThread(id: number, model: Molecule, seed: number): Promise<number[][]> {
-  return new Promise((resolve, reject) => {
-    pending = { id, resolve, reject };
-    thread().postMessage({ id, model, seed });
-  });
-}
-
-export async function stopConformerThread(): Promise<void> {
-  const w = worker;
-  worker = null;
-  if (w) await w.terminate();
-}
+/** Stops the thread; a job in flight is rejected. */
+export const stopConformerThread = () => thread.stop();

@@ -1,7 +1,7 @@
 // Runs generateConformer off the main thread: a conformer takes from a fraction of a second to several
 // seconds of CPU, which on the main thread would stall every live-collaboration socket meanwhile.
 import { parentPort } from 'node:worker_threads';
-import { generateConformer } from '../chem/index';
+import { generateConformer } from '../chem/conformer';
 import type { Molecule } from '../../src/shared/chem';
 
 parentPort!.on('message', async (job: { id: number; model: Molecule; seed: number }) => {

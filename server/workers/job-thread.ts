@@ -34,11 +34,16 @@ export class JobThread<Job extends object, Reply extends object> {
     this.worker?.postMessage(message);
   }
 
+  /** Stops the thread; jobs in flight are rejected (their callers must not wait for a thread that is gone). */
   async stop(): Promise<void> {
     const w = this.worker;
     this.worker = null;
     if (this.idleTimer) clearTimeout(this.idleTimer);
+    this.idleTimer = null;
     this.onRestart();
+    const stopped = new Error('the worker thread was stopped');
+    for (const p of this.pending.values()) p.reject(stopped);
+    this.pending.clear();
     if (w) await w.terminate();
   }
 
