@@ -5,8 +5,7 @@ import { validate } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { tooLarge } from '../http/errors';
 import { evaluateBodySchema, moleculeBodySchema, SMILES_MAX, type EvaluateBody, type MoleculeBody } from '../../src/shared/mapping-schema';
-import { evaluateMapping, loadRdkit } from '../chem';
-import { parseInThread } from '../workers/parse-thread';
+import { parseAndEvaluateInThread, parseInThread } from '../workers/parse-thread';
 
 // Stateless chemistry endpoints for previews: parse a structure, or parse it and
 // evaluate a mapping on it. Nothing is stored.
@@ -31,8 +30,6 @@ export function chemRoutes(r: RouteTable, ctx: AppContext): void {
   r.post('/api/chem/evaluate', smilesLimit, validate({ body: evaluateBodySchema }), async (req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
     const body = req.body as EvaluateBody;
-    const molecule = await parseInThread(structureOf(body));
-    await loadRdkit(); // fragment logP types the fragments with RDKit here
-    res.json({ molecule, evaluation: evaluateMapping(molecule, body.mapping, body.options ?? {}) });
+    res.json(await parseAndEvaluateInThread(structureOf(body), body.mapping, body.options ?? {}));
   });
 }

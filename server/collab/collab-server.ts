@@ -14,11 +14,9 @@ import { WebSocketServer } from 'ws';
 import type { AppContext } from '../context';
 import { roleInProject } from '../auth/access';
 import { can, canSee } from '../auth/permissions';
-import { docToMapping } from '../../src/shared/mapping-doc';
 import type { DraftAccess } from '../mappings/mappings.routes';
-import { evaluateDraft, loadEvaluationInputs } from '../mappings/evaluation';
+import { readStoredDraft } from '../mappings/evaluation';
 import { notFound } from '../http/errors';
-import { loadDraft } from './draft-store';
 import { serveConnection } from './connection';
 import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room';
 import { Rooms } from './rooms';
@@ -90,11 +88,14 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
     rooms,
     async read(mappingId) {
       const room = await rooms.live(mappingId);
-      if (room) return room.serial(() => ({ draft: room.draft(), result: room.currentResult() }));
-      const inputs = await loadEvaluationInputs(ctx.db, mappingId);
-      if (!inputs) throw notFound('That mapping');
-      const draft = docToMapping((await loadDraft(ctx.db, mappingId)).doc);
-      return { draft, result: evaluateDraft(inputs, draft) };
+      if (room) {
+        // After the updates queued before this read; evaluated outside the queue so edits keep flowing.
+        const { draft, result } = await room.serial(() => room.snapshot());
+        return { draft, result: await result };
+      }
+      const stored = await readStoredDraft(ctx.db, mappingId);
+      if (!stored) throw notFound('That mapping');
+      return stored;
     },
     refresh(filter) {
       void rooms.all().then((all) => {

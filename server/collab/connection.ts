@@ -73,7 +73,8 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     peer.send(encoding.toUint8Array(e));
     const states = [...room.awareness.getStates().keys()];
     if (states.length) peer.send(awarenessFrame(encodeAwarenessUpdate(room.awareness, states)));
-    peer.send(room.evaluationFrame());
+    const latest = room.latestResult();
+    if (latest) peer.send(room.evaluationFrame(latest));
   })();
   let chain: Promise<void> = ready;
 

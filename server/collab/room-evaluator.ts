@@ -1,16 +1,16 @@
 import type { Mapping } from '../../src/shared/chem';
-import { evaluateDraft, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluate-draft';
+import type { EvaluationInputs, EvaluationResult } from '../mappings/evaluate-draft';
 import { evaluateInThread, forgetInputs } from '../mappings/evaluation-thread';
 
 /**
- * Keeps one room's evaluation current without holding up its sockets.
+ * Keeps one room's evaluation current without holding up its sockets. Every evaluation runs in the
+ * evaluation thread; the main thread never loads the chemistry libraries.
  *
  * Every change to the draft or its inputs bumps `revision` through `changed()`. At most
- * `delayMs` later the draft is evaluated in the evaluation thread (one job in flight per room;
- * changes meanwhile are folded into the next job) and `publish` sends each result to the room, so
- * numbers keep arriving during a long burst of edits.
- * A caller that needs the result now (a page load, a new peer) gets the last result when it is
- * current, else one computed on the spot.
+ * `delayMs` later the draft is evaluated (one job in flight per room; changes meanwhile are folded
+ * into the next job) and `publish` sends each result to the room, so numbers keep arriving during a
+ * long burst of edits. A caller that needs the result of the draft as it is now (a page load) awaits
+ * `current()`; a new peer gets `latest()` at once and any newer result when it is published.
  */
 export class RoomEvaluator {
   private revision = 0;
@@ -25,7 +25,7 @@ export class RoomEvaluator {
   constructor(
     private inputs: EvaluationInputs,
     private readonly draft: () => Mapping,
-    private readonly publish: (result: EvaluationResult) => void,
+    private readonly publish: (result: EvaluationResult, revision: number) => void,
     private readonly onFailure: (err: unknown) => void,
     private readonly delayMs: number,
   ) {}
@@ -38,15 +38,26 @@ export class RoomEvaluator {
       this.stamp++;
     }
     this.revision++;
-    if (!this.timer && !this.running) this.timer = setTimeout(() => void this.run(), this.delayMs);
+    this.schedule();
   }
 
-  current(): EvaluationResult {
-    if (!this.result || this.resultRevision < this.revision) {
-      this.result = evaluateDraft(this.inputs, this.draft());
-      this.resultRevision = this.revision;
-    }
+  /** Evaluates the draft once now that the room opened; published to everyone in it. */
+  start(): void {
+    this.schedule();
+  }
+
+  /** The newest result, possibly of an older draft (a newer one is then on its way), or null before the first. */
+  latest(): EvaluationResult | null {
     return this.result;
+  }
+
+  /** The result for the draft as it is at the moment of the call. */
+  async current(): Promise<EvaluationResult> {
+    if (this.result && this.resultRevision >= this.revision) return this.result;
+    const revision = this.revision;
+    const result = await this.evaluate(this.draft());
+    this.keep(result, revision);
+    return result;
   }
 
   close(): void {
@@ -56,33 +67,59 @@ export class RoomEvaluator {
     forgetInputs(this.inputs.mappingId);
   }
 
+  private schedule(): void {
+    if (!this.timer && !this.running && !this.closed) this.timer = setTimeout(() => void this.run(), this.delayMs);
+  }
+
+  /** A result computed by current() meanwhile may be newer than the one arriving: keep the newest. */
+  private keep(result: EvaluationResult, revision: number): void {
+    if (revision >= this.resultRevision) {
+      this.result = result;
+      this.resultRevision = revision;
+    }
+  }
+
+  /** In the thread; a failed thread restarts on the next job, so one failure is retried once. */
+  private async evaluate(draft: Mapping): Promise<EvaluationResult> {
+    try {
+      return await evaluateInThread(this.inputs, this.stamp, draft);
+    } catch (err) {
+      if (this.closed) throw err;
+      this.onFailure(err);
+      return evaluateInThread(this.inputs, this.stamp, draft);
+    }
+  }
+
   private async run(): Promise<void> {
     this.timer = null;
     this.running = true;
     try {
       while (!this.closed && this.publishedRevision < this.revision) {
         const revision = this.revision;
-        const result = await evaluateInThread(this.inputs, this.stamp, this.draft());
+        this.keep(await this.evaluate(this.draft()), revision);
         if (this.closed) return;
-        // A result computed on the spot meanwhile (current()) may be newer: keep and send the newest.
-        if (revision >= this.resultRevision) {
-          this.result = result;
-          this.resultRevision = revision;
-        }
         if (this.publishedRevision < this.resultRevision) {
           this.publishedRevision = this.resultRevision;
-          this.publish(this.result!);
+          this.publish(this.result!, this.resultRevision);
         }
       }
     } catch (err) {
-      // The thread failed (it restarts on the next job): evaluate here so the room still gets numbers.
-      this.onFailure(err);
+      // Failed twice: say so to the room rather than leave old numbers standing as if current.
       if (!this.closed) {
-        this.publish(this.current());
-        this.publishedRevision = this.resultRevision;
+        this.onFailure(err);
+        this.publish(unavailable(), this.revision);
+        this.publishedRevision = this.revision;
       }
     } finally {
       this.running = false;
     }
   }
+}
+
+function unavailable(): EvaluationResult {
+  return {
+    evaluation: null,
+    error: { code: 'evaluation_unavailable', message: 'The server could not evaluate this draft just now; the next change tries again.' },
+    evaluatedAt: new Date().toISOString(),
+  };
 }

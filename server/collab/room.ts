@@ -8,7 +8,7 @@
  *   2. appended to mapping_updates (updates that arrived together go in one INSERT);
  *   3. applied to the document and relayed to the other peers;
  *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts), at most
- *      `evaluationDelayMs` later; its results go to every peer.
+ *      `evaluationDelayMs` later; its results go to every peer. A room evaluates once when it opens.
  * Compaction into a snapshot runs on the same queue every `compactEvery` updates, every
  * `compactIntervalMs` while there is something to fold, and when the last peer leaves.
  */
@@ -75,7 +75,8 @@ export class Room {
     this.awareness.on('update', this.onAwareness);
     this.compactTimer = setInterval(() => void this.serial(() => this.compact()), opts.compactIntervalMs);
     this.compactTimer.unref();
-    this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r) => this.publishEvaluation(r), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs);
+    this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs);
+    this.evaluator.start();
   }
 
   /** Loads the draft from MariaDB; null when the mapping does not exist. */
@@ -133,16 +134,21 @@ export class Room {
     void this.serial(() => this.flush());
   }
 
-  /** The evaluation of the current draft (computed now if an edit is waiting for it). */
-  currentResult(): EvaluationResult {
-    return this.evaluator.current();
+  /** The draft now and its evaluation (from the evaluation thread unless the last result is current). */
+  snapshot(): { draft: Mapping; result: Promise<EvaluationResult> } {
+    return { draft: this.draft(), result: this.evaluator.current() };
+  }
+
+  /** The newest evaluation for a peer that just joined, or null before the first (it is then on its way to everyone). */
+  latestResult(): EvaluationResult | null {
+    return this.evaluator.latest();
   }
 
   draft() {
     return docToMapping(this.doc);
   }
 
-  evaluationFrame(r: EvaluationResult = this.currentResult()): Uint8Array {
+  evaluationFrame(r: EvaluationResult): Uint8Array {
     const msg: EvaluationMessage = { mappingId: this.id, evaluation: r.evaluation, error: r.error, evaluatedAt: r.evaluatedAt };
     const e = encoding.createEncoder();
     encoding.writeVarUint(e, MESSAGE_EVALUATION);
@@ -248,9 +254,10 @@ export class Room {
     this.evaluator.changed();
   }
 
-  private publishEvaluation(result: EvaluationResult): void {
+  private publishEvaluation(result: EvaluationResult, revision: number): void {
     const frame = this.evaluationFrame(result);
     for (const p of this.peers) p.send(frame);
+    if (revision === 0) return; // the room's first evaluation: nothing was edited
     const beads = result.evaluation?.beads.length ?? this.draft().beads.length;
     void touchMapping(this.ctx.db, this.id, beads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
   }

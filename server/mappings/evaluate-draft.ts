@@ -1,5 +1,6 @@
 import type { BeadType, Evaluation, Mapping, Molecule, Resolution } from '../../src/shared/chem';
-import { evaluateMapping, isChemError } from '../chem/index';
+import { evaluateMapping } from '../chem/evaluate';
+import { isChemError } from '../chem/errors';
 
 // One mapping draft's evaluation with the core's refusals turned into data (a draft mid-edit may be
 // unevaluable). No database here: the evaluation thread loads this module.

@@ -1,4 +1,4 @@
-import { isChemError } from '../chem/index';
+import { isChemError } from '../chem/errors';
 import { AppError } from '../http/errors';
 
 /**

@@ -1,14 +1,21 @@
 // Parses structures off the main thread. openchemlib's 2D layout and canonical SMILES take seconds
 // to minutes for molecules of thousands of atoms; on the main thread that would stall every request
-// and live-collaboration socket meanwhile.
+// and live-collaboration socket meanwhile. Evaluations of previews (a mapping on a structure that is
+// not stored) run here too, after the parse, with RDKit for the fragments' logP.
 import { parentPort } from 'node:worker_threads';
-import { isChemError, parseMolecule, type MoleculeInput } from '../chem/index';
-import type { ParseReply } from './parse-thread';
+import { isChemError, parseMolecule, evaluateMapping, loadRdkit } from '../chem/index';
+import type { ParseJob, ParseReply } from './parse-thread';
 
-parentPort!.on('message', async (job: { id: number; input: MoleculeInput }) => {
+parentPort!.on('message', async (job: ParseJob & { id: number }) => {
   let reply: ParseReply & { id: number };
   try {
-    reply = { id: job.id, molecule: await parseMolecule(job.input) };
+    const molecule = await parseMolecule(job.input);
+    if (job.evaluate) {
+      await loadRdkit();
+      reply = { id: job.id, molecule, evaluation: evaluateMapping(molecule, job.evaluate.mapping, job.evaluate.options) };
+    } else {
+      reply = { id: job.id, molecule };
+    }
   } catch (err) {
     reply = isChemError(err)
       ? { id: job.id, chemError: { code: err.code, message: err.message, details: err.details, status: err.status } }

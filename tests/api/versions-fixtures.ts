@@ -31,13 +31,12 @@ export async function propanolMapping(db: Db, name = 'Propanol 2:1'): Promise<{ 
 
 /** The draft as the server reads it when no room is open (collab-server.ts `read`), for saving fixtures. */
 export async function storedDrafts(db: Db) {
-  const { docToMapping } = await import('../../src/shared/mapping-doc');
-  const { evaluateDraft, loadEvaluationInputs } = await import('../../server/mappings/evaluation');
+  const { readStoredDraft } = await import('../../server/mappings/evaluation');
   return {
     async read(mappingId: number) {
-      const inputs = await loadEvaluationInputs(db, mappingId);
-      const draft = docToMapping((await loadDraft(db, mappingId)).doc);
-      return { draft, result: evaluateDraft(inputs!, draft) };
+      const stored = await readStoredDraft(db, mappingId);
+      if (!stored) throw new Error(`no mapping ${mappingId}`);
+      return stored;
     },
     refresh() {},
   };
