@@ -33,6 +33,9 @@ export interface CollabOptions {
   compactIntervalMs: number;
 }
 
+/** How often at most a room rewrites its mapping row's "updated" time while the bead count stays the same. */
+const TOUCH_EVERY_MS = 2_000;
+
 export const DEFAULT_COLLAB_OPTIONS: CollabOptions = { pingIntervalMs: 10_000, evaluationDelayMs: 40, compactEvery: 500, compactIntervalMs: 60_000 };
 
 /** What a room needs of a connection. */
@@ -60,6 +63,10 @@ export class Room {
   private flushQueued = false;
   private compactTimer: NodeJS.Timeout;
   private readonly evaluator: RoomEvaluator;
+  private rowBeads = -1;
+  private touchedBeads = -1;
+  private touchedAt = 0;
+  private touchTimer: NodeJS.Timeout | null = null;
 
   private constructor(
     private readonly ctx: AppContext,
@@ -208,6 +215,11 @@ export class Room {
   close(): void {
     this.closed = true;
     clearInterval(this.compactTimer);
+    if (this.touchTimer) {
+      clearTimeout(this.touchTimer);
+      this.touchTimer = null;
+      void touchMapping(this.ctx.db, this.id, this.rowBeads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
+    }
     this.evaluator.close();
     this.awareness.destroy();
   }
@@ -258,8 +270,24 @@ export class Room {
     const frame = this.evaluationFrame(result);
     for (const p of this.peers) p.send(frame);
     if (revision === 0) return; // the room's first evaluation: nothing was edited
-    const beads = result.evaluation?.beads.length ?? this.draft().beads.length;
-    void touchMapping(this.ctx.db, this.id, beads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
+    this.touchRow(result.evaluation?.beads.length ?? this.draft().beads.length);
+  }
+
+  /**
+   * Keeps the mapping row's bead count and "updated" time current for lists: at once when the bead
+   * count changed, else at most every TOUCH_EVERY_MS (a trailing write records the last edit).
+   */
+  private touchRow(beads: number): void {
+    this.rowBeads = beads;
+    const wait = beads !== this.touchedBeads ? 0 : Math.max(0, this.touchedAt + TOUCH_EVERY_MS - Date.now());
+    if (this.touchTimer && wait > 0) return;
+    if (this.touchTimer) clearTimeout(this.touchTimer);
+    this.touchTimer = setTimeout(() => {
+      this.touchTimer = null;
+      this.touchedBeads = this.rowBeads;
+      this.touchedAt = Date.now();
+      void touchMapping(this.ctx.db, this.id, this.rowBeads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
+    }, wait);
   }
 
   private onAwareness = ({ added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown) => {
