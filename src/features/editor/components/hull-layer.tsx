@@ -1,7 +1,7 @@
 import { memo } from 'react';
 import { centroid, hullPath, type Point } from '../model/hull';
 import { BOND } from '../model/layout';
-import type { MappingView } from '../model/bead-view';
+import type { BeadView, MappingView } from '../model/bead-view';
 import { textOn } from '../model/contrast';
 
 const MARGIN = BOND * 0.42;
@@ -12,27 +12,34 @@ interface HullLayerProps {
   activeBead: string | null;
 }
 
+// One memoised element per bead: the view keeps unchanged beads' objects (model/stable-view.ts),
+// so an edit recomputes the hulls and tags of the beads it touched and no others.
+
+const beadPoints = (bead: BeadView, points: readonly Point[]) => bead.atoms.map((a) => points[a.index]).filter(Boolean);
+
 /** Beads as soft translucent hulls round their atoms, each with its name on a tag above it. */
 export const HullLayer = memo(function HullLayer({ view, points, activeBead }: HullLayerProps) {
   return (
     <g>
-      {view.beads.map((b) => {
-        const pts = b.atoms.map((a) => points[a.index]).filter(Boolean);
-        return (
-          <path
-            key={b.id}
-            d={hullPath(pts, MARGIN)}
-            fill={b.colour}
-            fillOpacity={b.id === activeBead ? 0.42 : 0.26}
-            stroke={b.colour}
-            strokeOpacity={0.9}
-            strokeWidth={b.id === activeBead ? 3.5 : 1.5}
-            strokeLinejoin="round"
-            data-bead={b.id}
-          />
-        );
-      })}
+      {view.beads.map((b) => (
+        <BeadHull key={b.id} bead={b} points={points} active={b.id === activeBead} />
+      ))}
     </g>
+  );
+});
+
+const BeadHull = memo(function BeadHull({ bead, points, active }: { bead: BeadView; points: readonly Point[]; active: boolean }) {
+  return (
+    <path
+      d={hullPath(beadPoints(bead, points), MARGIN)}
+      fill={bead.colour}
+      fillOpacity={active ? 0.42 : 0.26}
+      stroke={bead.colour}
+      strokeOpacity={0.9}
+      strokeWidth={active ? 3.5 : 1.5}
+      strokeLinejoin="round"
+      data-bead={bead.id}
+    />
   );
 });
 
@@ -40,19 +47,23 @@ export const HullLayer = memo(function HullLayer({ view, points, activeBead }: H
 export const BeadTags = memo(function BeadTags({ view, points }: Omit<HullLayerProps, 'activeBead'>) {
   return (
     <g fontSize={BOND * 0.3} fontWeight={700} textAnchor="middle" dominantBaseline="central" pointerEvents="none">
-      {view.beads.map((b) => {
-        const pts = b.atoms.map((a) => points[a.index]).filter(Boolean);
-        if (pts.length === 0) return null;
-        const c = centroid(pts);
-        const top = Math.min(...pts.map((p) => p.y)) - MARGIN - BOND * 0.12;
-        const width = Math.max(BOND * 0.7, b.name.length * BOND * 0.2 + BOND * 0.3);
-        return (
-          <g key={b.id} transform={`translate(${c.x},${top})`} data-bead-tag={b.name}>
-            <rect x={-width / 2} y={-BOND * 0.2} width={width} height={BOND * 0.4} rx={BOND * 0.2} fill={b.colour} />
-            <text fill={textOn(b.colour)}>{b.name}</text>
-          </g>
-        );
-      })}
+      {view.beads.map((b) => (
+        <BeadTag key={b.id} bead={b} points={points} />
+      ))}
+    </g>
+  );
+});
+
+const BeadTag = memo(function BeadTag({ bead, points }: { bead: BeadView; points: readonly Point[] }) {
+  const pts = beadPoints(bead, points);
+  if (pts.length === 0) return null;
+  const c = centroid(pts);
+  const top = Math.min(...pts.map((p) => p.y)) - MARGIN - BOND * 0.12;
+  const width = Math.max(BOND * 0.7, bead.name.length * BOND * 0.2 + BOND * 0.3);
+  return (
+    <g transform={`translate(${c.x},${top})`} data-bead-tag={bead.name}>
+      <rect x={-width / 2} y={-BOND * 0.2} width={width} height={BOND * 0.4} rx={BOND * 0.2} fill={bead.colour} />
+      <text fill={textOn(bead.colour)}>{bead.name}</text>
     </g>
   );
 });
