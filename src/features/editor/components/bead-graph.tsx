@@ -1,7 +1,7 @@
 import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from '@xyflow/react';
 import '@xyflow/react/dist/style.css';
-import { memo, useMemo } from 'react';
-import type { MappingView } from '../model/bead-view';
+import { memo, useMemo, useRef } from 'react';
+import type { BeadView, MappingView } from '../model/bead-view';
 import { textOn } from '../model/contrast';
 import { centroid, type Point } from '../model/hull';
 import { ThreadCountButton, type EditorThreads } from './thread-badges';
@@ -31,8 +31,29 @@ const BeadNodeView = memo(function BeadNodeView({ data }: NodeProps<BeadNode>) {
 const nodeTypes = { bead: BeadNodeView };
 const NODE = 44;
 
-/** The CG bead graph: one node per bead at its atoms' 2D centroid, an edge per bead–bead bond. */
-export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: { view: MappingView; points: readonly Point[]; activeBead: string | null; onSelectBead(id: string): void; threads?: EditorThreads }) {
+interface BeadGraphProps {
+  view: MappingView;
+  points: readonly Point[];
+  activeBead: string | null;
+  onSelectBead(id: string): void;
+  threads?: EditorThreads;
+}
+
+/** A node with what it was built from: it is reused while all of that is the same. */
+interface Cached {
+  bead: BeadView;
+  active: boolean;
+  points: readonly Point[];
+  threads: EditorThreads | undefined;
+  node: BeadNode;
+}
+
+/**
+ * The CG bead graph: one node per bead at its atoms' 2D centroid, an edge per bead–bead bond. Nodes
+ * and edges of unchanged beads stay the same objects between renders, so React Flow re-measures and
+ * redraws only the ones an edit touched.
+ */
+export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onSelectBead, threads }: BeadGraphProps) {
   // Centroids are scaled so the whole graph spans a few hundred units: nodes stay legible for a
   // long chain and do not pile up for a compact ring system.
   const scale = useMemo(() => {
@@ -41,27 +62,29 @@ export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: {
     const extent = Math.max(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys), 1);
     return Math.min(1.8, Math.max(0.5, 360 / extent));
   }, [points]);
-  const nodes = useMemo<BeadNode[]>(
-    () =>
-      view.beads
-        .filter((b) => b.atoms.length > 0)
-        .map((b) => {
-          const c = centroid(b.atoms.map((a) => points[a.index]).filter(Boolean));
-          return {
-            id: b.id,
-            type: 'bead',
-            position: { x: c.x * scale - NODE / 2, y: c.y * scale - NODE / 2 },
-            data: { id: b.id, name: b.name, colour: b.colour, active: b.id === activeBead, threads },
-            selected: b.id === activeBead,
-            ariaLabel: `Bead ${b.name}`,
-          };
-        }),
-    [view, points, activeBead, scale, threads],
-  );
-  const edges = useMemo<Edge[]>(
-    () => view.links.map(([p, q]) => ({ id: `${p}-${q}`, source: p, target: q, type: 'straight', style: { stroke: '#174c4a', strokeWidth: 2.5 }, zIndex: -1 })),
-    [view],
-  );
+  const nodeCache = useRef(new Map<string, Cached>());
+  const nodes = useMemo<BeadNode[]>(() => {
+    const next = new Map<string, Cached>();
+    for (const b of view.beads) {
+      if (b.atoms.length === 0) continue;
+      const active = b.id === activeBead;
+      const old = nodeCache.current.get(b.id);
+      const same = old && old.bead === b && old.active === active && old.points === points && old.threads === threads;
+      next.set(b.id, same ? old : { bead: b, active, points, threads, node: beadNode(b, active, points, scale, threads) });
+    }
+    nodeCache.current = next;
+    return [...next.values()].map((c) => c.node);
+  }, [view, activeBead, points, scale, threads]);
+  const edgeCache = useRef(new Map<string, Edge>());
+  const edges = useMemo<Edge[]>(() => {
+    const next = new Map<string, Edge>();
+    for (const [p, q] of view.links) {
+      const id = `${p}-${q}`;
+      next.set(id, edgeCache.current.get(id) ?? { id, source: p, target: q, type: 'straight', style: EDGE_STYLE, zIndex: -1 });
+    }
+    edgeCache.current = next;
+    return [...next.values()];
+  }, [view.links]);
 
   return (
     <div className="h-full min-h-56" aria-label="Bead graph" role="region">
@@ -72,9 +95,10 @@ export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: {
         nodesDraggable={false}
         nodesConnectable={false}
         edgesFocusable={false}
-        fitView
-        fitViewOptions={{ padding: 0.25 }}
-        key={nodes.length === 0 ? 'empty' : 'beads'}
+        // Fits once there are beads, and again whenever the graph fills up after being emptied (the
+        // prop going true queues a fit). Remounting the flow instead would force a layout of the page.
+        fitView={nodes.length > 0}
+        fitViewOptions={FIT}
         minZoom={0.2}
         onNodeClick={(_e, node) => onSelectBead(node.id)}
         onNodesChange={(changes) => {
@@ -86,4 +110,19 @@ export function BeadGraph({ view, points, activeBead, onSelectBead, threads }: {
       </ReactFlow>
     </div>
   );
+});
+
+const FIT = { padding: 0.25 };
+const EDGE_STYLE = { stroke: '#174c4a', strokeWidth: 2.5 };
+
+function beadNode(b: BeadView, active: boolean, points: readonly Point[], scale: number, threads: EditorThreads | undefined): BeadNode {
+  const c = centroid(b.atoms.map((a) => points[a.index]).filter(Boolean));
+  return {
+    id: b.id,
+    type: 'bead',
+    position: { x: c.x * scale - NODE / 2, y: c.y * scale - NODE / 2 },
+    data: { id: b.id, name: b.name, colour: b.colour, active, threads },
+    selected: active,
+    ariaLabel: `Bead ${b.name}`,
+  };
 }
