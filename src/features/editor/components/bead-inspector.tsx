@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { memo, useEffect, useRef, useState } from 'react';
 import type { BeadEvaluation, CentreRule } from '../../../shared/chem';
 import type { BeadTypeRow } from '../../../shared/bead-types';
 import { BEAD_NAME_MAX, CENTRE_RULES, renameBead, setCentre, setType } from '../../../shared/mapping-doc';
@@ -19,7 +19,7 @@ interface BeadInspectorProps {
 }
 
 /** The active bead: name, type (with the suggestion one press away), centre rule and atom weights. */
-export function BeadInspector({ ctx, bead, evaluation, library, renaming, onRenamed }: BeadInspectorProps) {
+export const BeadInspector = memo(function BeadInspector({ ctx, bead, evaluation, library, renaming, onRenamed }: BeadInspectorProps) {
   const [name, setName] = useState(bead.name);
   const nameInput = useRef<HTMLInputElement>(null);
   useEffect(() => setName(bead.name), [bead.name, bead.id]);
@@ -90,4 +90,4 @@ export function BeadInspector({ ctx, bead, evaluation, library, renaming, onRena
       <AtomWeights ctx={ctx} bead={bead} />
     </section>
   );
-}
+});

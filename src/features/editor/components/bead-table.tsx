@@ -1,9 +1,9 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { useMemo } from 'react';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type Row as TableRow } from '@tanstack/react-table';
+import { memo, useMemo } from 'react';
+import type * as Y from 'yjs';
 import type { BeadEvaluation, Evaluation } from '../../../shared/chem';
 import { setType } from '../../../shared/mapping-doc';
-import type { EditorContext } from '../commands/registry';
-import type { BeadView } from '../model/bead-view';
+import type { BeadView, MappingView } from '../model/bead-view';
 import { formatFixed, formatMass, formatSigned } from '../model/number-format';
 import { ThreadCountButton, type EditorThreads } from './thread-badges';
 
@@ -12,15 +12,35 @@ interface Row {
   ev: BeadEvaluation | undefined;
 }
 
+/** What the suggestion buttons need to write a type into the draft. */
+interface Editing {
+  doc: Y.Doc;
+  origin: unknown;
+  readOnly: boolean;
+}
+
+interface BeadTableProps extends Editing {
+  view: MappingView;
+  activeBead: string | null;
+  evaluation: Evaluation | null;
+  onSelectBead(id: string): void;
+  threads?: EditorThreads;
+}
+
 const col = createColumnHelper<Row>();
 const CENTRE_LABEL = { mass: 'Mass', geometry: 'Geometry', 'geometry-heavy': 'Geometry (heavy)' } as const;
 
-/** One row per bead with the server's live numbers; a row press selects the bead. */
-export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: EditorContext; evaluation: Evaluation | null; onSelectBead(id: string): void; threads?: EditorThreads }) {
+/**
+ * One row per bead with the server's live numbers; a row press selects the bead. The columns stay
+ * the same objects between renders and each row is memoised on its bead and its numbers, so an edit
+ * redraws the rows of the beads it changed, not every cell of the table.
+ */
+export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation, onSelectBead, threads, doc, origin, readOnly }: BeadTableProps) {
   const rows = useMemo(() => {
     const byId = new Map(evaluation?.beads.map((b) => [b.id, b]));
-    return ctx.view.beads.map((bead) => ({ bead, ev: byId.get(bead.id) }));
-  }, [ctx.view, evaluation]);
+    return view.beads.map((bead) => ({ bead, ev: byId.get(bead.id) }));
+  }, [view, evaluation]);
+  const editing = useMemo<Editing>(() => ({ doc, origin, readOnly }), [doc, origin, readOnly]);
 
   const columns = useMemo(
     () => [
@@ -46,7 +66,7 @@ export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: Edi
       col.display({
         id: 'suggested',
         header: 'Suggested type',
-        cell: ({ row }) => <Suggestion ctx={ctx} row={row.original} />,
+        cell: ({ row }) => <Suggestion editing={editing} row={row.original} />,
       }),
       col.accessor((r) => r.bead.centre, { id: 'centre', header: 'Centre', cell: (c) => CENTRE_LABEL[c.getValue()] }),
       col.accessor((r) => r.ev?.centre ?? null, {
@@ -59,7 +79,7 @@ export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: Edi
         },
       }),
     ],
-    [ctx, threads],
+    [editing, threads],
   );
 
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.bead.id });
@@ -81,40 +101,58 @@ export function BeadTable({ ctx, evaluation, onSelectBead, threads }: { ctx: Edi
         </thead>
         <tbody>
           {table.getRowModel().rows.map((r) => (
-            <tr
-              key={r.id}
-              tabIndex={0}
-              aria-current={ctx.activeBead === r.id || undefined}
-              aria-label={`Bead ${r.original.bead.name}`}
-              onClick={() => onSelectBead(r.id)}
-              onKeyDown={(e) => (e.key === 'Enter' || e.key === ' ') && (e.preventDefault(), onSelectBead(r.id))}
-              className="cursor-pointer border-b border-paper-200 tabular-nums hover:bg-ink-50 aria-[current=true]:bg-ink-100"
-            >
-              {r.getVisibleCells().map((c) => (
-                <td key={c.id} className="px-2 py-1.5 whitespace-nowrap" data-column={c.column.id}>
-                  {flexRender(c.column.columnDef.cell, c.getContext())}
-                </td>
-              ))}
-            </tr>
+            <BeadRow key={r.id} row={r} bead={r.original.bead} ev={r.original.ev} active={activeBead === r.id} columns={columns} onSelectBead={onSelectBead} />
           ))}
         </tbody>
       </table>
     </div>
   );
+});
+
+interface BeadRowProps {
+  row: TableRow<Row>;
+  // What the row shows; the memo compares these, not the table's freshly built row object.
+  bead: BeadView;
+  ev: BeadEvaluation | undefined;
+  active: boolean;
+  // Only compared: new column definitions mean every cell must render again.
+  columns: readonly unknown[];
+  onSelectBead(id: string): void;
 }
 
-function Suggestion({ ctx, row }: { ctx: EditorContext; row: Row }) {
+const sameRow = (a: BeadRowProps, b: BeadRowProps) => a.bead === b.bead && a.ev === b.ev && a.active === b.active && a.columns === b.columns && a.onSelectBead === b.onSelectBead;
+
+const BeadRow = memo(function BeadRow({ row, bead, active, onSelectBead }: BeadRowProps) {
+  return (
+    <tr
+      tabIndex={0}
+      aria-current={active || undefined}
+      aria-label={`Bead ${bead.name}`}
+      onClick={() => onSelectBead(bead.id)}
+      onKeyDown={(e) => (e.key === 'Enter' || e.key === ' ') && (e.preventDefault(), onSelectBead(bead.id))}
+      className="cursor-pointer border-b border-paper-200 tabular-nums hover:bg-ink-50 aria-[current=true]:bg-ink-100"
+    >
+      {row.getVisibleCells().map((c) => (
+        <td key={c.id} className="px-2 py-1.5 whitespace-nowrap" data-column={c.column.id}>
+          {flexRender(c.column.columnDef.cell, c.getContext())}
+        </td>
+      ))}
+    </tr>
+  );
+}, sameRow);
+
+function Suggestion({ editing, row }: { editing: Editing; row: Row }) {
   const s = row.ev?.suggestedType;
   if (!s) return <span className="text-ink-400">–</span>;
   const fits = row.ev?.suggestedTypeFits !== false;
   const label = fits ? s : `${s} (nearest)`;
-  if (ctx.readOnly || row.bead.type === s) return <span>{label}</span>;
+  if (editing.readOnly || row.bead.type === s) return <span>{label}</span>;
   return (
     <button
       type="button"
       onClick={(e) => {
         e.stopPropagation();
-        setType(ctx.doc, row.bead.id, s, ctx.origin);
+        setType(editing.doc, row.bead.id, s, editing.origin);
       }}
       className="rounded border border-ink-300 bg-paper-50 px-1.5 py-0.5 text-xs font-semibold text-ink-800 hover:bg-ink-50"
       aria-label={`Use suggested type ${s} for bead ${row.bead.name}`}

@@ -80,7 +80,7 @@ export function EditorLayout(p: EditorLayoutProps) {
                 evaluation={p.evaluation?.beads.find((b) => b.id === active.id)}
                 library={p.library}
                 renaming={state.renaming === active.id}
-                onRenamed={() => state.setRenaming(null)}
+                onRenamed={state.endRename}
               />
             ) : (
               <p className="text-sm text-ink-700">
@@ -89,7 +89,7 @@ export function EditorLayout(p: EditorLayoutProps) {
             )}
           </Panel>
           <Panel title="Bead graph" className="h-64 p-0">
-            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={(id) => state.selectBead(id, false)} threads={p.threads} />
+            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={state.selectOnly} threads={p.threads} />
           </Panel>
           <Panel title="Checks">
             <ChecksPanel checks={p.evaluation?.checks ?? null} active={p.activeCheck} onShow={p.onShowCheck} />
@@ -97,7 +97,16 @@ export function EditorLayout(p: EditorLayoutProps) {
         </div>
       </div>
       <Panel title="Beads">
-        <BeadTable ctx={state.ctx} evaluation={p.evaluation} onSelectBead={(id) => state.selectBead(id, false)} threads={p.threads} />
+        <BeadTable
+          view={view}
+          activeBead={state.activeBead}
+          evaluation={p.evaluation}
+          onSelectBead={state.selectOnly}
+          threads={p.threads}
+          doc={state.ctx.doc}
+          origin={state.ctx.origin}
+          readOnly={state.ctx.readOnly}
+        />
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
     </div>

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import { editorCommands } from '../commands';
 import { isAvailable, run, type CommandGroup, type EditorContext } from '../commands/registry';
 import { Kbd } from './kbd';
@@ -9,7 +10,7 @@ const GROUPS: { group: CommandGroup; label: string; only?: string[] }[] = [
 ];
 
 /** The toolbar: the same registered commands the keyboard runs, disabled where they would not apply. */
-export function EditorToolbar({ ctx, showHydrogens }: { ctx: EditorContext; showHydrogens: boolean }) {
+export const EditorToolbar = memo(function EditorToolbar({ ctx, showHydrogens }: { ctx: EditorContext; showHydrogens: boolean }) {
   return (
     <div role="toolbar" aria-label="Mapping tools" className="flex flex-wrap items-center gap-x-3 gap-y-2">
       {GROUPS.map(({ group, label, only }) => (
@@ -39,4 +40,4 @@ export function EditorToolbar({ ctx, showHydrogens }: { ctx: EditorContext; show
       ))}
     </div>
   );
-}
+});

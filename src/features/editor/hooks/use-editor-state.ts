@@ -1,7 +1,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { Molecule } from '../../../shared/chem';
 import type { MappingSession } from '../collab/mapping-session';
-import type { EditorContext } from '../commands/registry';
+import type { EditorContext, EditorUi } from '../commands/registry';
 import type { GestureHandlers } from './use-canvas-gestures';
 import type { MappingView } from '../model/bead-view';
 import { layoutMolecule } from '../model/layout';
@@ -53,37 +53,46 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   }, [view, activeBead]);
   useEffect(() => session.setPresence({ activeBead }), [session, activeBead]);
 
-  const ctx: EditorContext = {
+  // Memoised so that renders for other reasons (someone else's pointer moving) leave the toolbar
+  // and the inspector alone: they re-render when the context they read changes.
+  const ui = useMemo<EditorUi>(() => ({
+    toggleHydrogens: () => setShowHydrogens((v) => !v),
+    fit,
+    zoom: (factor) => size.current && setViewport((v) => zoomAt(v, { x: size.current!.width / 2, y: size.current!.height / 2 }, factor)),
+    openHelp: () => setHelpOpen(true),
+    startRename: (id) => {
+      setActiveBead(id);
+      setRenaming(id);
+    },
+  }), [fit]);
+  const atomCount = molecule.atoms.length;
+  const ctx = useMemo<EditorContext>(() => ({
     doc: session.doc,
     origin: session.origin,
     undo: session.undo,
     readOnly,
     view,
-    atomCount: molecule.atoms.length,
+    atomCount,
     selection,
     setSelection,
     activeBead,
     setActiveBead,
     suggestions,
-    ui: {
-      toggleHydrogens: () => setShowHydrogens((v) => !v),
-      fit,
-      zoom: (factor) => size.current && setViewport((v) => zoomAt(v, { x: size.current!.width / 2, y: size.current!.height / 2 }, factor)),
-      openHelp: () => setHelpOpen(true),
-      startRename: (id) => {
-        setActiveBead(id);
-        setRenaming(id);
-      },
-    },
-  };
+    ui,
+  }), [session, readOnly, view, atomCount, selection, setSelection, activeBead, suggestions, ui]);
+  const endRename = useCallback(() => setRenaming(null), []);
 
   const sendPointer = useMemo(() => throttle((p: { x: number; y: number } | null) => session.setPresence({ pointer: p }), 40), [session]);
 
-  const selectBead = (beadId: string, additive: boolean) => {
-    const atoms = view.byId.get(beadId)?.atoms.map((a) => a.index) ?? [];
-    setSelection(selectMany(selection, atoms, additive));
+  // Stable for the memoised table and graph; it reads the latest view and selection when called.
+  const latest = useRef({ view, selection });
+  latest.current = { view, selection };
+  const selectBead = useCallback((beadId: string, additive: boolean) => {
+    const atoms = latest.current.view.byId.get(beadId)?.atoms.map((a) => a.index) ?? [];
+    setSelection(selectMany(latest.current.selection, atoms, additive));
     setActiveBead(beadId);
-  };
+  }, [setSelection]);
+  const selectOnly = useCallback((beadId: string) => selectBead(beadId, false), [selectBead]);
 
   const gestures: GestureHandlers = {
     onAtom(atom, additive) {
@@ -105,7 +114,7 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
 
   return {
     ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, viewport, setViewport, onSize, gestures,
-    selectBead, highlight, setHighlight, helpOpen, setHelpOpen, renaming, setRenaming,
+    selectBead, selectOnly, highlight, setHighlight, helpOpen, setHelpOpen, renaming, endRename,
   };
 }
 
