@@ -47,10 +47,14 @@ export const StructureLayer = memo(function StructureLayer({ drawing }: { drawin
   );
 });
 
-/** Invisible click targets, one per heavy atom; clicks are read from `data-atom` by the canvas. */
+/**
+ * Invisible click targets, one per heavy atom; clicks are read from `data-atom` by the canvas. They
+ * have no fill at all (pointer-events="all" still hit-tests their area), so the browser paints
+ * nothing for them: with a transparent fill it would record two thousand empty discs every frame.
+ */
 export const AtomTargets = memo(function AtomTargets({ drawing }: { drawing: Drawing }) {
   return (
-    <g fill="transparent">
+    <g fill="none" pointerEvents="all">
       {drawing.atoms.map((a) => (
         <circle key={a.index} data-atom={a.index} cx={a.x} cy={a.y} r={BOND * 0.38} className="cursor-pointer" />
       ))}
