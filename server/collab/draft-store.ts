@@ -2,7 +2,7 @@ import * as Y from 'yjs';
 import type { Db } from '../db/knex';
 
 // Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
-// (mapping_updates) and one compacted snapshot per mapping (mapping_snapshots). The draft is the
+// (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots). The draft is the
 // snapshot with every later update applied, in id order. Compaction writes the merged state and
 // deletes the updates it contains, in one transaction, so a crash at any point loses nothing.
 
@@ -31,15 +31,11 @@ export async function loadDraft(db: Db, mappingId: number): Promise<StoredDraft>
   return { doc, lastUpdateId, pending: rows.length };
 }
 
-/** Appends updates in order; returns the id of the last one. */
-export async function appendUpdates(db: Db, mappingId: number, updates: NewUpdate[]): Promise<number> {
-  // One multi-row INSERT: InnoDB gives its rows consecutive ids (innodb_autoinc_lock_mode ≤ 1 for
-  // simple inserts, and MariaDB's default is 1), and LAST_INSERT_ID() is the first of them.
-  const [first] = await db('mapping_updates').insert(updates.map((u) => ({ mapping_id: mappingId, user_id: u.userId, data: Buffer.from(u.data) })));
-  return Number(first) + updates.length - 1;
-}
-
-/** Stores `state` as the snapshot holding every update up to `lastUpdateId`, and drops those updates. */
+/**
+ * Stores `state` as the snapshot holding every update up to `lastUpdateId`, and drops those updates.
+ * READ COMMITTED: the DELETE then locks only the rows it removes, not the gap after them, so a live
+ * room's appends of newer updates (update-log.ts) never wait for a compaction.
+ */
 export async function writeSnapshot(db: Db, mappingId: number, state: Uint8Array, lastUpdateId: number): Promise<void> {
   await db.transaction(async (trx) => {
     await trx('mapping_snapshots')
@@ -47,7 +43,7 @@ export async function writeSnapshot(db: Db, mappingId: number, state: Uint8Array
       .onConflict('mapping_id')
       .merge();
     await trx('mapping_updates').where('mapping_id', mappingId).andWhere('id', '<=', lastUpdateId).delete();
-  });
+  }, { isolationLevel: 'read committed' });
 }
 
 export async function compactDoc(db: Db, mappingId: number, doc: Y.Doc, lastUpdateId: number): Promise<void> {

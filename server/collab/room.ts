@@ -9,8 +9,10 @@
  *   3. applied to the document and relayed to the other peers;
  *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts), at most
  *      `evaluationDelayMs` later; its results go to every peer. A room evaluates once when it opens.
- * Compaction into a snapshot runs on the same queue every `compactEvery` updates, every
- * `compactIntervalMs` while there is something to fold, and when the last peer leaves.
+ * Compaction into a snapshot runs every `compactEvery` updates, every `compactIntervalMs` while there is
+ * something to fold, and when the last peer leaves (then after the queued updates). It runs beside the
+ * queue, not on it: it folds the document as it is at that moment, whose updates are exactly those up
+ * to `lastUpdateId`, so updates stored meanwhile are simply left for the next compaction.
  */
 import * as Y from 'yjs';
 import * as encoding from 'lib0/encoding';
@@ -24,7 +26,8 @@ import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC, type CollabErrorMe
 import { loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
 import { RoomEvaluator } from './room-evaluator';
 import { touchMapping } from '../mappings/mappings.service';
-import { appendUpdates, compactDoc, loadDraft } from './draft-store';
+import { compactDoc, loadDraft } from './draft-store';
+import type { UpdateLog } from './update-log';
 
 export interface CollabOptions {
   pingIntervalMs: number;
@@ -62,6 +65,7 @@ export class Room {
   private queue: Promise<unknown> = Promise.resolve();
   private flushQueued = false;
   private compactTimer: NodeJS.Timeout;
+  private compaction: Promise<void> = Promise.resolve();
   private readonly evaluator: RoomEvaluator;
   private rowBeads = -1;
   private touchedBeads = -1;
@@ -70,6 +74,7 @@ export class Room {
 
   private constructor(
     private readonly ctx: AppContext,
+    private readonly log: UpdateLog,
     private inputs: EvaluationInputs,
     readonly doc: Y.Doc,
     private lastUpdateId: number,
@@ -80,18 +85,18 @@ export class Room {
     this.awareness = new Awareness(doc);
     this.awareness.setLocalState(null);
     this.awareness.on('update', this.onAwareness);
-    this.compactTimer = setInterval(() => void this.serial(() => this.compact()), opts.compactIntervalMs);
+    this.compactTimer = setInterval(() => void this.compact(), opts.compactIntervalMs);
     this.compactTimer.unref();
     this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs);
     this.evaluator.start();
   }
 
   /** Loads the draft from MariaDB; null when the mapping does not exist. */
-  static async open(ctx: AppContext, mappingId: number, opts: CollabOptions): Promise<Room | null> {
+  static async open(ctx: AppContext, log: UpdateLog, mappingId: number, opts: CollabOptions): Promise<Room | null> {
     const inputs = await loadEvaluationInputs(ctx.db, mappingId);
     if (!inputs) return null;
     const stored = await loadDraft(ctx.db, mappingId);
-    return new Room(ctx, inputs, stored.doc, stored.lastUpdateId, stored.pending, opts);
+    return new Room(ctx, log, inputs, stored.doc, stored.lastUpdateId, stored.pending, opts);
   }
 
   get id(): number {
@@ -185,7 +190,7 @@ export class Room {
       mappingToDoc(next, mapping);
       const update = Y.encodeStateAsUpdate(next, Y.encodeStateVector(this.doc));
       next.destroy();
-      this.lastUpdateId = await appendUpdates(this.ctx.db, this.id, [{ userId, data: update }]);
+      this.lastUpdateId = await this.log.append(this.id, [{ userId, data: update }]);
       this.uncompacted += 1;
       Y.applyUpdate(this.doc, update, 'server');
       Y.applyUpdate(this.shadow, update);
@@ -244,7 +249,7 @@ export class Room {
       this.shadow = copyOf(this.doc, accepted.map((a) => a.update));
     }
     if (accepted.length === 0) return;
-    this.lastUpdateId = await appendUpdates(this.ctx.db, this.id, accepted.map((a) => ({ userId: a.peer.userId, data: a.update })));
+    this.lastUpdateId = await this.log.append(this.id, accepted.map((a) => ({ userId: a.peer.userId, data: a.update })));
     this.uncompacted += accepted.length;
     for (const { peer, update } of accepted) {
       Y.applyUpdate(this.doc, update, peer);
@@ -252,14 +257,20 @@ export class Room {
       for (const other of this.peers) if (other !== peer) other.send(frame);
     }
     this.scheduleEvaluation();
-    if (this.uncompacted >= this.opts.compactEvery) await this.compact();
+    if (this.uncompacted >= this.opts.compactEvery) void this.compact();
   }
 
-  private async compact(): Promise<void> {
-    if (this.uncompacted === 0) return;
-    const upTo = this.lastUpdateId;
-    await compactDoc(this.ctx.db, this.id, this.doc, upTo);
-    this.uncompacted = 0;
+  /** Folds the stored updates into the snapshot; compactions run one after another, never two at once. */
+  private compact(): Promise<void> {
+    const next = this.compaction.then(async () => {
+      if (this.uncompacted === 0) return;
+      const upTo = this.lastUpdateId;
+      const folded = this.uncompacted;
+      await compactDoc(this.ctx.db, this.id, this.doc, upTo);
+      this.uncompacted -= folded;
+    });
+    this.compaction = next.catch((err) => this.ctx.log.error({ err, mappingId: this.id }, 'compaction failed'));
+    return next;
   }
 
   private scheduleEvaluation(): void {

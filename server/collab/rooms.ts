@@ -1,21 +1,26 @@
 import type { AppContext } from '../context';
 import { Room, type CollabOptions } from './room';
+import { UpdateLog } from './update-log';
 
 // The live rooms of this server, by mapping id. A room opens (loads from MariaDB) on the first
 // connection and closes once its last peer left and the draft was compacted.
 
 export class Rooms {
   private readonly rooms = new Map<number, Promise<Room | null>>();
+  /** Every room's accepted updates go to MariaDB through this one connection. */
+  private readonly log: UpdateLog;
 
   constructor(
     private readonly ctx: AppContext,
     private readonly opts: CollabOptions,
-  ) {}
+  ) {
+    this.log = new UpdateLog(ctx.db);
+  }
 
   open(mappingId: number): Promise<Room | null> {
     let room = this.rooms.get(mappingId);
     if (!room) {
-      room = Room.open(this.ctx, mappingId, this.opts).then((r) => {
+      room = Room.open(this.ctx, this.log, mappingId, this.opts).then((r) => {
         if (!r) this.rooms.delete(mappingId);
         else
           r.onEmptied = () => {
@@ -41,9 +46,10 @@ export class Rooms {
     return rooms.filter((r): r is Room => !!r && !r.closed);
   }
 
-  /** Waits for queued work (persistence, compaction) and closes every room. */
+  /** Waits for queued work (persistence, compaction), closes every room and the update log. */
   async closeAll(): Promise<void> {
     for (const room of await this.all()) await room.shutdown();
     this.rooms.clear();
+    await this.log.close();
   }
 }

@@ -31,15 +31,8 @@ export function sharedThread(db: Db) {
   return shared;
 }
 
-/** Changes the stored draft the way an accepted collab update does (draft-store append). */
-export async function editDraft(db: Db, mappingId: number, edit: (doc: import('yjs').Doc) => void): Promise<void> {
-  const Y = await import('yjs');
-  const { loadDraft, appendUpdates } = await import('../../server/collab/draft-store');
-  const { doc } = await loadDraft(db, mappingId);
-  const before = Y.encodeStateVector(doc);
-  edit(doc);
-  await appendUpdates(db, mappingId, [{ userId: null, data: Y.encodeStateAsUpdate(doc, before) }]);
-}
+/** Changes the stored draft the way an accepted collab update does. */
+export { editDraft } from './versions-fixtures';
 
 /** A project of its own (supervisor only) with a molecule and a one-bead mapping. */
 export async function otherProjectMapping(db: Db): Promise<{ projectId: number; mappingId: number }> {

@@ -1,6 +1,7 @@
 import * as Y from 'yjs';
 import type { Db } from '../../server/db/knex';
-import { appendUpdates, loadDraft } from '../../server/collab/draft-store';
+import { loadDraft } from '../../server/collab/draft-store';
+import { UpdateLog } from '../../server/collab/update-log';
 import { createMolecule, demoProjectId } from '../helpers/fixtures';
 
 // Fixtures for the versions, lock, export and import tests. Drafts are edited the way the collab
@@ -11,7 +12,13 @@ export async function editDraft(db: Db, mappingId: number, edit: (doc: Y.Doc) =>
   const updates: Uint8Array[] = [];
   doc.on('update', (u: Uint8Array) => updates.push(u));
   edit(doc);
-  if (updates.length) await appendUpdates(db, mappingId, [{ userId, data: Y.mergeUpdates(updates) }]);
+  if (!updates.length) return;
+  const log = new UpdateLog(db);
+  try {
+    await log.append(mappingId, [{ userId, data: Y.mergeUpdates(updates) }]);
+  } finally {
+    await log.close();
+  }
 }
 
 /** A fresh mapping of 1-propanol (C0–C1–C2–O3) with two beads, ids a and b. */

@@ -1,0 +1,86 @@
+import type { Connection, ResultSetHeader } from 'mysql2';
+import type { Db } from '../db/knex';
+import type { NewUpdate } from './draft-store';
+
+/**
+ * The live-collaboration write path: accepted Yjs updates appended to mapping_updates through one
+ * connection of the collab server's own (made by knex's client, so with the same settings), outside
+ * the pool and the query builder. An accepted update waits for this INSERT before it is relayed, and
+ * knex's per-query work (pool acquire, query compile, promise layers) was a large share of that wait
+ * (docs/benchmarks.md). Each append is one autocommitted statement; appends from all rooms queue in
+ * order on the connection. A lost connection is replaced, and that append retried once (a repeated
+ * Yjs update is harmless: applying it twice changes nothing).
+ */
+export class UpdateLog {
+  private conn: Promise<Connection> | null = null;
+  private closed = false;
+
+  constructor(private readonly db: Db) {}
+
+  /** Appends updates in order; returns the id of the last one. */
+  async append(mappingId: number, updates: NewUpdate[]): Promise<number> {
+    const rows = updates.map((u) => [mappingId, u.userId, Buffer.from(u.data)]);
+    let result: ResultSetHeader;
+    try {
+      result = await this.insert(rows);
+    } catch (err) {
+      if (!(err as { fatal?: boolean }).fatal || this.closed) throw err;
+      result = await this.insert(rows);
+    }
+    // One multi-row INSERT: InnoDB gives its rows consecutive ids (innodb_autoinc_lock_mode ≤ 1 for
+    // simple inserts, and MariaDB's default is 1), and insertId is the first of them.
+    return Number(result.insertId) + updates.length - 1;
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    const pending = this.conn;
+    this.conn = null;
+    const conn = await pending?.catch(() => null);
+    if (conn) await (this.db.client as RawClient).destroyRawConnection(conn);
+  }
+
+  private async insert(rows: unknown[][]): Promise<ResultSetHeader> {
+    const conn = await this.connection();
+    return new Promise((resolve, reject) =>
+      conn.query<ResultSetHeader>('INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ?', [rows], (err, res) => {
+        if (err) {
+          if ((err as { fatal?: boolean }).fatal) this.drop(conn);
+          reject(err);
+        } else resolve(res);
+      }),
+    );
+  }
+
+  private connection(): Promise<Connection> {
+    if (this.closed) return Promise.reject(new Error('The update log is closed.'));
+    if (!this.conn) {
+      const pending = (this.db.client as RawClient).acquireRawConnection();
+      this.conn = pending;
+      pending.then(
+        (conn) => {
+          conn.on('error', () => this.drop(conn));
+          conn.on('end', () => this.drop(conn));
+          // The server's listener keeps the process alive; this socket alone must not (tests, scripts).
+          (conn as unknown as { stream?: { unref?(): void } }).stream?.unref?.();
+        },
+        () => {
+          if (this.conn === pending) this.conn = null;
+        },
+      );
+    }
+    return this.conn;
+  }
+
+  /** Forgets a broken connection so the next append opens a new one. */
+  private drop(conn: Connection): void {
+    void this.conn?.then((current) => {
+      if (current === conn && !this.closed) this.conn = null;
+    });
+  }
+}
+
+interface RawClient {
+  acquireRawConnection(): Promise<Connection>;
+  destroyRawConnection(conn: Connection): Promise<void>;
+}
