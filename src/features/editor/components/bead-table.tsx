@@ -84,7 +84,8 @@ export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation,
 
   const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.bead.id });
 
-  if (rows.length === 0) return <p className="py-6 text-center text-sm text-ink-600">No beads yet. Select atoms on the drawing and press <strong>Make bead</strong> (B).</p>;
+  // The table and its header are there from the start (an empty draft shows one message row), so the
+  // first bead adds a row instead of mounting the table, its column model and its header mid-command.
   return (
     <div className="overflow-x-auto">
       <table aria-label="Beads" className="w-full border-collapse text-sm">
@@ -100,6 +101,13 @@ export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation,
           ))}
         </thead>
         <tbody>
+          {rows.length === 0 && (
+            <tr>
+              <td colSpan={columns.length} className="py-6 text-center text-sm text-ink-600">
+                No beads yet. Select atoms on the drawing and press <strong>Make bead</strong> (B).
+              </td>
+            </tr>
+          )}
           {table.getRowModel().rows.map((r) => (
             <BeadRow key={r.id} row={r} bead={r.original.bead} ev={r.original.ev} active={activeBead === r.id} columns={columns} onSelectBead={onSelectBead} />
           ))}
