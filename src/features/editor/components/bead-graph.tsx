@@ -87,7 +87,8 @@ export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onS
   }, [view.links]);
 
   return (
-    <div className="h-full min-h-56" aria-label="Bead graph" role="region">
+    // Sized by its panel, never by its nodes: React Flow measuring a new node relays out this box only.
+    <div className="h-full min-h-56 [contain:strict]" aria-label="Bead graph" role="region">
       <ReactFlow
         nodes={nodes}
         edges={edges}
