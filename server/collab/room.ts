@@ -6,7 +6,7 @@
  *   1. applied to a shadow copy and checked there (src/shared/mapping-doc-check.ts) — a refused update
  *      gets the sender an error message, the shadow is rebuilt, the real document never sees it;
  *   2. appended to mapping_updates (updates that arrived together go in one INSERT);
- *   3. applied to the document and relayed to the other peers;
+ *   3. relayed to the other peers and applied to the document;
  *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts), at most
  *      `evaluationDelayMs` later; its results go to every peer. A room evaluates once when it opens.
  * Compaction into a snapshot runs every `compactEvery` updates, every `compactIntervalMs` while there is
@@ -251,11 +251,13 @@ export class Room {
     if (accepted.length === 0) return;
     this.lastUpdateId = await this.log.append(this.id, accepted.map((a) => ({ userId: a.peer.userId, data: a.update })));
     this.uncompacted += accepted.length;
+    // Relay first, then apply: the frames do not depend on the document, and the shadow has already
+    // shown that these updates apply. Nothing else runs between the two loops.
     for (const { peer, update } of accepted) {
-      Y.applyUpdate(this.doc, update, peer);
       const frame = syncUpdateFrame(update);
       for (const other of this.peers) if (other !== peer) other.send(frame);
     }
+    for (const { peer, update } of accepted) Y.applyUpdate(this.doc, update, peer);
     this.scheduleEvaluation();
     if (this.uncompacted >= this.opts.compactEvery) void this.compact();
   }
