@@ -10,6 +10,7 @@ import { BeadInspector } from './bead-inspector';
 import { BeadTable } from './bead-table';
 import { ChecksPanel } from './checks-panel';
 import { EditorToolbar } from './editor-toolbar';
+import { FontPrimer } from './font-primer';
 import { MoleculeCanvas } from './molecule-canvas';
 import { Panel } from './panel';
 import { ConnectionBadge, PresenceList } from './presence-bar';
@@ -110,6 +111,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         />
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
+      <FontPrimer />
     </div>
   );
 }
