@@ -17,6 +17,17 @@ interface HullLayerProps {
 
 const beadPoints = (bead: BeadView, points: readonly Point[]) => bead.atoms.map((a) => points[a.index]).filter(Boolean);
 
+// Each bead's outline is drawn twice (painted, and as a click target), so it is computed once per
+// bead object: the view keeps an unchanged bead's object, so the cache holds until an edit touches it.
+const outlines = new WeakMap<BeadView, { points: readonly Point[]; d: string }>();
+function outline(bead: BeadView, points: readonly Point[]): string {
+  const hit = outlines.get(bead);
+  if (hit?.points === points) return hit.d;
+  const d = hullPath(beadPoints(bead, points), MARGIN);
+  outlines.set(bead, { points, d });
+  return d;
+}
+
 /** Beads as soft translucent hulls round their atoms, each with its name on a tag above it. */
 export const HullLayer = memo(function HullLayer({ view, points, activeBead }: HullLayerProps) {
   return (
@@ -31,16 +42,33 @@ export const HullLayer = memo(function HullLayer({ view, points, activeBead }: H
 const BeadHull = memo(function BeadHull({ bead, points, active }: { bead: BeadView; points: readonly Point[]; active: boolean }) {
   return (
     <path
-      d={hullPath(beadPoints(bead, points), MARGIN)}
+      d={outline(bead, points)}
       fill={bead.colour}
       fillOpacity={active ? 0.42 : 0.26}
       stroke={bead.colour}
       strokeOpacity={0.9}
       strokeWidth={active ? 3.5 : 1.5}
       strokeLinejoin="round"
-      data-bead={bead.id}
     />
   );
+});
+
+/**
+ * The hulls again, unpainted (pointer-events all still hit-tests their area), in the canvas's top
+ * layer: the painted hulls sit under the structure drawing, in a layer that takes no pointer events.
+ */
+export const HullTargets = memo(function HullTargets({ view, points }: Omit<HullLayerProps, 'activeBead'>) {
+  return (
+    <g fill="none" pointerEvents="all">
+      {view.beads.map((b) => (
+        <HullTarget key={b.id} bead={b} points={points} />
+      ))}
+    </g>
+  );
+});
+
+const HullTarget = memo(function HullTarget({ bead, points }: { bead: BeadView; points: readonly Point[] }) {
+  return <path d={outline(bead, points)} data-bead={bead.id} />;
 });
 
 /** Bead names, drawn above the structure so labels are never hidden under bonds. */

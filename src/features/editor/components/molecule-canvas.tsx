@@ -6,7 +6,7 @@ import type { Drawing } from '../model/layout';
 import type { Peer } from '../model/presence';
 import type { Viewport } from '../model/viewport';
 import { HighlightLayer } from './highlight-layer';
-import { BeadTags, HullLayer } from './hull-layer';
+import { BeadTags, HullLayer, HullTargets } from './hull-layer';
 import { PeerPointers } from './peer-pointers';
 import { AtomTargets, StructureLayer } from './structure-layer';
 import { ThreadBadgeLayer, type EditorThreads } from './thread-badges';
@@ -63,39 +63,56 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
   };
 
   const cursorAtom = cursor === null ? null : drawing.atoms[cursor];
+  const transform = `translate(${viewport.x},${viewport.y}) scale(${viewport.k})`;
+  // Three stacked drawings. The molecule's structure (thousands of bonds and labels) has an svg of
+  // its own, which an edit never touches, so the browser keeps its layout and paint; hulls and
+  // highlights are drawn under it, and the interactive layer on top holds the click targets, tags
+  // and badges. The two lower layers take no pointer events: clicks reach the targets above.
   return (
-    <svg
-      ref={svg}
-      role="application"
-      aria-label={`Molecule drawing${props.readOnly ? ' (read-only)' : ''}. Arrow keys move between atoms, Space selects, Shift+Space adds.`}
-      aria-describedby="canvas-cursor"
-      tabIndex={0}
-      onKeyDown={onKeyDown}
-      className="block size-full touch-none select-none rounded-md bg-paper-50 focus-visible:outline-offset-[-3px]"
-      {...bind}
-    >
-      <g transform={`translate(${viewport.x},${viewport.y}) scale(${viewport.k})`}>
-        <HullLayer view={view} points={points} activeBead={props.activeBead} />
-        {/* Highlights sit under the structure so element labels stay readable on selected atoms. */}
-        <HighlightLayer points={points} selection={props.selection} highlight={props.highlight} peers={props.peers} cursor={cursor} />
-        <StructureLayer drawing={drawing} />
-        <AtomTargets drawing={drawing} />
-        <BeadTags view={view} points={points} />
-        <ThreadBadgeLayer view={view} points={points} threads={props.threads} />
-      </g>
-      <PeerPointers peers={props.peers} viewport={viewport} />
-      {box && (
-        <rect
-          x={Math.min(box.x1, box.x2) * viewport.k + viewport.x}
-          y={Math.min(box.y1, box.y2) * viewport.k + viewport.y}
-          width={Math.abs(box.x2 - box.x1) * viewport.k}
-          height={Math.abs(box.y2 - box.y1) * viewport.k}
-          className="fill-ink-300/15 stroke-ink-600"
-          strokeDasharray="4 3"
-          pointerEvents="none"
-        />
-      )}
-      <desc id="canvas-cursor">{cursorAtom ? `Cursor on atom ${cursorAtom.index + 1}, ${cursorAtom.element}.` : 'No atom under the keyboard cursor.'}</desc>
-    </svg>
+    <div className="relative size-full rounded-md bg-paper-50">
+      <svg aria-hidden="true" className="pointer-events-none absolute inset-0 size-full">
+        <g transform={transform}>
+          <HullLayer view={view} points={points} activeBead={props.activeBead} />
+          {/* Highlights sit under the structure so element labels stay readable on selected atoms. */}
+          <HighlightLayer points={points} selection={props.selection} highlight={props.highlight} peers={props.peers} cursor={cursor} />
+        </g>
+      </svg>
+      {/* A compositor layer of its own: edits around it re-raster the layers above and below only. */}
+      <svg aria-hidden="true" className="pointer-events-none absolute inset-0 size-full will-change-transform">
+        <g transform={transform}>
+          <StructureLayer drawing={drawing} />
+        </g>
+      </svg>
+      <svg
+        ref={svg}
+        role="application"
+        aria-label={`Molecule drawing${props.readOnly ? ' (read-only)' : ''}. Arrow keys move between atoms, Space selects, Shift+Space adds.`}
+        aria-describedby="canvas-cursor"
+        tabIndex={0}
+        onKeyDown={onKeyDown}
+        className="absolute inset-0 block size-full touch-none select-none rounded-md focus-visible:outline-offset-[-3px]"
+        {...bind}
+      >
+        <g transform={transform}>
+          <HullTargets view={view} points={points} />
+          <AtomTargets drawing={drawing} />
+          <BeadTags view={view} points={points} />
+          <ThreadBadgeLayer view={view} points={points} threads={props.threads} />
+        </g>
+        <PeerPointers peers={props.peers} viewport={viewport} />
+        {box && (
+          <rect
+            x={Math.min(box.x1, box.x2) * viewport.k + viewport.x}
+            y={Math.min(box.y1, box.y2) * viewport.k + viewport.y}
+            width={Math.abs(box.x2 - box.x1) * viewport.k}
+            height={Math.abs(box.y2 - box.y1) * viewport.k}
+            className="fill-ink-300/15 stroke-ink-600"
+            strokeDasharray="4 3"
+            pointerEvents="none"
+          />
+        )}
+        <desc id="canvas-cursor">{cursorAtom ? `Cursor on atom ${cursorAtom.index + 1}, ${cursorAtom.element}.` : 'No atom under the keyboard cursor.'}</desc>
+      </svg>
+    </div>
   );
 }
