@@ -3,6 +3,11 @@
 import { parentPort } from 'node:worker_threads';
 import { generateConformer } from '../chem/conformer';
 import type { Molecule } from '../../src/shared/chem';
+import { lowerThreadPriority } from '../workers/background-priority';
+
+// A conformer of a large molecule keeps a core busy for minutes; nobody waits on it (the editor
+// works without it), so it gets what the rest of the machine leaves.
+lowerThreadPriority();
 
 parentPort!.on('message', async (job: { id: number; model: Molecule; seed: number }) => {
   try {
