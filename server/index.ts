@@ -7,6 +7,7 @@ import { createMailer } from './mail/mailer';
 import { startMailSink, type MailSink } from './mail/sink';
 import { createApp } from './app';
 import type { AppContext } from './context';
+import { backfillModels } from './molecules/model-backfill';
 
 // Starts Beadloom: database pool, mail (real SMTP or the local sink), the
 // Express app, and the HTTP server. `npm start` and `npm run dev` call this
@@ -30,6 +31,8 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
   const built = createApp(ctx);
   const server = createServer(built.app);
   server.on('upgrade', built.collab.handleUpgrade);
+  const filled = await backfillModels(db, log);
+  if (filled) log.info({ molecules: filled }, 'stored models for molecules from before canonical models');
   await built.conformers.resume();
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
