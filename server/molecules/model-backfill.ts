@@ -9,8 +9,11 @@ import { parseInThread } from '../workers/parse-thread';
  * molecule gets, and a queued conformer. Such rows never have mappings (mappings came later), so
  * no atom index can change under anyone. Their SMILES passed the parser when they were created; one
  * that no longer parses is logged and left as it is. Returns how many rows were filled.
+ * Migration 007 also left such rows' `tags` empty (MySQL-family TEXT columns take no default), which
+ * is not JSON: they get an empty list.
  */
 export async function backfillModels(db: Db, log: Logger): Promise<number> {
+  await db('molecules').where({ tags: '' }).update({ tags: '[]' });
   const rows = await db('molecules').whereNull('model').select('id', 'smiles');
   let filled = 0;
   for (const row of rows) {

@@ -21,7 +21,7 @@ afterAll(() => t.stop());
 
 describe('models for molecules stored before canonical models', () => {
   it('fills the model and derived columns from the stored SMILES, and the list works again', async () => {
-    const [id] = await t.ctx.db('molecules').insert({ project_id: projectId, name: 'Old ethanol', smiles: 'OCC', notes: '', canonical_smiles: '', tags: '[]' }); // as migration 007 left such rows
+    const [id] = await t.ctx.db('molecules').insert({ project_id: projectId, name: 'Old ethanol', smiles: 'OCC', notes: '', canonical_smiles: '', tags: '' }); // as migration 007 left such rows
     expect((await modeller.get(`/api/projects/${projectId}/molecules`)).status).toBe(500);
 
     expect(await backfillModels(t.ctx.db, t.ctx.log)).toBe(1);
@@ -29,7 +29,7 @@ describe('models for molecules stored before canonical models', () => {
     expect(list.status).toBe(200);
     const old = (list.body as MoleculeSummary[]).find((m) => m.id === id)!;
     // Ethanol C2H6O, 46.07 g/mol (CIAAW 2021 conventional weights: 2 × 12.011 + 6 × 1.008 + 15.999 = 46.069).
-    expect(old).toMatchObject({ name: 'Old ethanol', smiles: 'OCC', formula: 'C2H6O', heavyAtoms: 3 });
+    expect(old).toMatchObject({ name: 'Old ethanol', smiles: 'OCC', formula: 'C2H6O', heavyAtoms: 3, tags: [] });
     expect(old.molecularWeight).toBeCloseTo(46.069, 2);
     expect((await t.ctx.db('molecules').where({ id }).first('conformer_status')).conformer_status).toMatch(/queued|running|done/);
 
