@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { APIRequestContext, Browser, BrowserContext, Page } from 'playwright-core';
 import type { Molecule } from '../../src/shared/chem';
 import { startTestServer } from '../helpers/app-server';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signedInPage } from '../helpers/browser';
 
 // Issue 4's browser test, through the real client, server, collab socket and MariaDB: two
 // modellers (the demo's, and a second one the supervisor adds) edit one live mapping and each sees
@@ -30,17 +30,8 @@ async function api(request: APIRequestContext) {
 }
 
 async function signedIn(email: string, password: string): Promise<Page> {
-  const context = await browser.newContext({ baseURL: server.url, viewport: { width: 1440, height: 1000 } });
+  const { context, page } = await signedInPage(browser, server.url, email, password, pageErrors);
   contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(15_000);
-  page.on('pageerror', (e) => pageErrors.push(`${email}: ${e.message}`));
-  page.on('console', (m) => m.type() === 'error' && pageErrors.push(`${email}: ${m.text()}`));
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
   return page;
 }
 

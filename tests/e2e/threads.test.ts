@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { startTestServer } from '../helpers/app-server';
-import { launchBrowser } from '../helpers/browser';
+import { launchBrowser, signedInPage } from '../helpers/browser';
 
 // A thread on a bead, end to end in Chromium: the modeller mentions the supervisor on a bead; the
 // supervisor's bell shows it live; the e-mail's link (read from the SMTP sink) opens the editor on
@@ -21,16 +21,8 @@ const contexts: BrowserContext[] = [];
 const pageErrors: string[] = [];
 
 async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ baseURL: server.url });
+  const { context, page } = await signedInPage(browser, server.url, email, PASSWORD, pageErrors);
   contexts.push(context);
-  const page = await context.newPage();
-  page.setDefaultTimeout(15_000);
-  page.on('pageerror', (error) => pageErrors.push(error.message));
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
   return page;
 }
 
