@@ -40,19 +40,11 @@ function child(args: string[], env: NodeJS.ProcessEnv): Promise<{ proc: ChildPro
 
 const rssMb = (pid: number) => Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))![1]) / 1024;
 
-async function until(check: () => boolean, ms = 30_000) {
-  const end = Date.now() + ms;
-  while (!check()) {
-    if (Date.now() > end) throw new Error('timed out');
-    await sleep(5);
-  }
-}
-
-async function untilAsync(check: () => Promise<boolean>, ms: number) {
+async function until(check: () => boolean | Promise<boolean>, ms = 30_000, everyMs = 5) {
   const end = Date.now() + ms;
   while (!(await check())) {
     if (Date.now() > end) throw new Error('timed out');
-    await sleep(250);
+    await sleep(everyMs);
   }
 }
 
@@ -116,7 +108,7 @@ try {
   // The server starts conformer jobs for the demo molecules: measure once they are done (CPU), and
   // the memory once the conformer thread has stopped after its idle time (conformer-thread.ts).
   console.log('waiting for the background conformer jobs…');
-  await untilAsync(async () => !(await db('molecules').whereIn('conformer_status', ['queued', 'running']).first('id')), 300_000);
+  await until(async () => !(await db('molecules').whereIn('conformer_status', ['queued', 'running']).first('id')), 300_000, 250);
   const conformersDone = Date.now();
 
   // Warm both up once (first evaluation, JIT), then measure each in turn.

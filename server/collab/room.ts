@@ -220,11 +220,7 @@ export class Room {
   close(): void {
     this.closed = true;
     clearInterval(this.compactTimer);
-    if (this.touchTimer) {
-      clearTimeout(this.touchTimer);
-      this.touchTimer = null;
-      void touchMapping(this.ctx.db, this.id, this.rowBeads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
-    }
+    if (this.touchTimer) this.writeRow(); // the trailing write, now
     this.evaluator.close();
     this.awareness.destroy();
   }
@@ -295,12 +291,15 @@ export class Room {
     const wait = beads !== this.touchedBeads ? 0 : Math.max(0, this.touchedAt + TOUCH_EVERY_MS - Date.now());
     if (this.touchTimer && wait > 0) return;
     if (this.touchTimer) clearTimeout(this.touchTimer);
-    this.touchTimer = setTimeout(() => {
-      this.touchTimer = null;
-      this.touchedBeads = this.rowBeads;
-      this.touchedAt = Date.now();
-      void touchMapping(this.ctx.db, this.id, this.rowBeads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
-    }, wait);
+    this.touchTimer = setTimeout(() => this.writeRow(), wait);
+  }
+
+  private writeRow(): void {
+    if (this.touchTimer) clearTimeout(this.touchTimer);
+    this.touchTimer = null;
+    this.touchedBeads = this.rowBeads;
+    this.touchedAt = Date.now();
+    void touchMapping(this.ctx.db, this.id, this.rowBeads).catch((err) => this.ctx.log.warn({ err }, 'could not update the mapping row'));
   }
 
   private onAwareness = ({ added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown) => {

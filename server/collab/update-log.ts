@@ -13,6 +13,8 @@ import type { NewUpdate } from './draft-store';
  */
 export class UpdateLog {
   private conn: Promise<Connection> | null = null;
+  /** The connection `conn` resolved to, once it has. */
+  private live: Connection | null = null;
   private closed = false;
 
   constructor(private readonly db: Db) {}
@@ -36,6 +38,7 @@ export class UpdateLog {
     this.closed = true;
     const pending = this.conn;
     this.conn = null;
+    this.live = null;
     const conn = await pending?.catch(() => null);
     if (conn) await (this.db.client as RawClient).destroyRawConnection(conn);
   }
@@ -59,6 +62,7 @@ export class UpdateLog {
       this.conn = pending;
       pending.then(
         (conn) => {
+          if (this.conn === pending) this.live = conn;
           conn.on('error', () => this.drop(conn));
           conn.on('end', () => this.drop(conn));
           // The server's listener keeps the process alive; this socket alone must not (tests, scripts).
@@ -74,9 +78,9 @@ export class UpdateLog {
 
   /** Forgets a broken connection so the next append opens a new one. */
   private drop(conn: Connection): void {
-    void this.conn?.then((current) => {
-      if (current === conn && !this.closed) this.conn = null;
-    });
+    if (this.live !== conn) return;
+    this.live = null;
+    this.conn = null;
   }
 }
 
