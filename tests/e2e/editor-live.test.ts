@@ -1,8 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { APIRequestContext, Browser, BrowserContext, Page } from 'playwright-core';
+import type { APIRequestContext, Page } from 'playwright-core';
 import type { Molecule } from '../../src/shared/chem';
-import { startTestServer } from '../helpers/app-server';
-import { launchBrowser, signedInPage } from '../helpers/browser';
+import { browserSession } from '../helpers/browser-session';
 
 // Issue 4's browser test, through the real client, server, collab socket and MariaDB: two
 // modellers (the demo's, and a second one the supervisor adds) edit one live mapping and each sees
@@ -13,10 +12,9 @@ const SECOND = { email: 'noor.halden@example.org', name: 'Noor Halden', password
 // IUPAC/CIAAW 2021 conventional atomic weights (from memory of the 2021 table).
 const WEIGHT: Record<string, number> = { C: 12.011, H: 1.008, O: 15.999, N: 14.007 };
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-const pageErrors: string[] = [];
+const session = browserSession();
+const pageErrors = session.errors;
+const signedIn = (email: string, password: string): Promise<Page> => session.signedIn(email, password);
 
 async function api(request: APIRequestContext) {
   const { token } = await (await request.get('/api/auth/csrf')).json();
@@ -29,17 +27,9 @@ async function api(request: APIRequestContext) {
   };
 }
 
-async function signedIn(email: string, password: string): Promise<Page> {
-  const { context, page } = await signedInPage(browser, server.url, email, password, pageErrors);
-  contexts.push(context);
-  return page;
-}
-
 /** The supervisor adds a second modeller; the invitation's token sets their password. */
 async function addSecondModeller(): Promise<void> {
-  const context = await browser.newContext({ baseURL: server.url });
-  contexts.push(context);
-  const request = context.request;
+  const request = (await session.context()).request;
   const anon = await api(request);
   const login = await anon.post('/api/auth/login', { email: 'supervisor@example.org', password: PASSWORD });
   const projects = await (await request.get('/api/projects')).json();
@@ -59,16 +49,10 @@ const tag = (page: Page, name: string) => page.locator(`[data-bead-tag="${name}"
 const massOf = (page: Page, bead: string) => page.getByRole('row', { name: `Bead ${bead}` }).locator('[data-column="mass"]');
 
 beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
+  await session.open();
   await addSecondModeller();
 });
-
-afterAll(async () => {
-  for (const c of contexts) await c.close();
-  await browser?.close();
-  await server?.stop();
-});
+afterAll(() => session.close());
 
 describe('the live mapping editor', () => {
   it('lets two modellers co-edit while a student watches read-only', async () => {

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { startTestServer } from '../helpers/app-server';
-import { launchBrowser } from '../helpers/browser';
+import type { Page } from 'playwright-core';
+import { browserSession } from '../helpers/browser-session';
 
 // The whole invitation path through the real client, server, MariaDB and SMTP
 // sink: a supervisor adds someone new to the demo project, the invitation
@@ -11,15 +10,11 @@ import { launchBrowser } from '../helpers/browser';
 const PROJECT = 'Micelle formers';
 const NEWCOMER = { email: 'rowan.vell@example.org', name: 'Rowan Vell', password: 'a-long-new-password-42' };
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const contexts: BrowserContext[] = [];
+const session = browserSession();
 const pageErrors: string[] = [];
 
 async function newPage(): Promise<Page> {
-  const context = await browser.newContext({ baseURL: server.url });
-  contexts.push(context);
-  const page = await context.newPage();
+  const page = await (await session.context()).newPage();
   page.setDefaultTimeout(15_000);
   page.on('pageerror', (error) => pageErrors.push(error.message));
   page.on('console', (message) => {
@@ -34,16 +29,8 @@ async function signIn(page: Page, email: string, password: string): Promise<void
   await page.getByRole('button', { name: 'Sign in' }).click();
 }
 
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  for (const context of contexts) await context.close();
-  await browser?.close();
-  await server?.stop();
-});
+beforeAll(() => session.open());
+afterAll(() => session.close());
 
 describe('inviting a new member', () => {
   it('goes from a supervisor adding an address to the newcomer signed in', async () => {
@@ -77,7 +64,7 @@ describe('inviting a new member', () => {
     await expect(invitation.count()).resolves.toBe(1);
     const link = invitation.getByRole('link', { name: /\/reset-password\?token=/ });
     const href = await link.getAttribute('href');
-    expect(href).toMatch(new RegExp(`^${server.url}/reset-password\\?token=[^&\\s]{20,}$`));
+    expect(href).toMatch(new RegExp(`^${session.url}/reset-password\\?token=[^&\\s]{20,}$`));
     await link.click();
 
     await newcomer.getByRole('heading', { level: 1, name: 'Choose a password' }).waitFor();

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { startTestServer } from '../helpers/app-server';
-import { launchBrowser, signedInPage } from '../helpers/browser';
+import type { Page } from 'playwright-core';
+import { browserSession } from '../helpers/browser-session';
 
 // A thread on a bead, end to end in Chromium: the modeller mentions the supervisor on a bead; the
 // supervisor's bell shows it live; the e-mail's link (read from the SMTP sink) opens the editor on
@@ -15,29 +14,14 @@ const BEAD_NAME = '<img src=x onerror=window.__xss=1>';
 const DISPLAY_NAME = 'Tomas <b onmouseover="window.__xss=2">Brenn</b>';
 const BODY_PAYLOADS = ' <script>window.__xss=3</script> <img src=x onerror="window.__xss=4"> [click me](javascript:window.__xss=5) **bold**';
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-const pageErrors: string[] = [];
-
-async function signedIn(email: string): Promise<Page> {
-  const { context, page } = await signedInPage(browser, server.url, email, PASSWORD, pageErrors);
-  contexts.push(context);
-  return page;
-}
+const session = browserSession();
+const pageErrors = session.errors;
+const signedIn = (email: string): Promise<Page> => session.signedIn(email, PASSWORD);
 
 const xss = (page: Page) => page.evaluate(() => (window as unknown as { __xss?: number }).__xss ?? null);
 
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  for (const c of contexts) await c.close();
-  await browser?.close();
-  await server?.stop();
-});
+beforeAll(() => session.open());
+afterAll(() => session.close());
 
 describe('threads on beads', () => {
   it('mention → live bell → e-mail link → thread open → resolve → badge gone live', async () => {
@@ -98,7 +82,7 @@ describe('threads on beads', () => {
     const mention = mail.find((m) => String(m.to).includes('supervisor@example.org') && m.subject.includes('mentioned you'))!;
     expect(mention.subject).toBe(`Tomas <b onmouseover="window.__xss=2">Brenn</b> mentioned you on ${BEAD_NAME}`);
     const link = /Open the thread: (\S+)/.exec(mention.text)![1]!;
-    expect(link).toBe(`${server.url}/mappings/${mappingId}?bead=${id}&thread=${threadId}`);
+    expect(link).toBe(`${session.url}/mappings/${mappingId}?bead=${id}&thread=${threadId}`);
 
     // The link opens the editor with that bead selected and the thread open.
     await supervisor.goto(link);

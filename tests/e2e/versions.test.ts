@@ -1,9 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readFile } from 'node:fs/promises';
 import Papa from 'papaparse';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { startTestServer } from '../helpers/app-server';
-import { launchBrowser, signedInPage } from '../helpers/browser';
+import type { Page } from 'playwright-core';
+import { browserSession } from '../helpers/browser-session';
 
 // Issue 5's browser test through the real client, server, collab socket and MariaDB: a modeller saves
 // two versions; the supervisor compares them (the moved atom is ringed and listed) and locks
@@ -11,16 +10,9 @@ import { launchBrowser, signedInPage } from '../helpers/browser';
 // and it holds exactly the locked version's beads.
 
 const PASSWORD = 'beadloom-demo';
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: Browser;
-const contexts: BrowserContext[] = [];
-const pageErrors: string[] = [];
-
-async function signedIn(email: string): Promise<Page> {
-  const { context, page } = await signedInPage(browser, server.url, email, PASSWORD, pageErrors);
-  contexts.push(context);
-  return page;
-}
+const session = browserSession();
+const pageErrors = session.errors;
+const signedIn = (email: string): Promise<Page> => session.signedIn(email, PASSWORD);
 
 async function saveVersion(page: Page, message: string, number: number) {
   await page.getByLabel('Version message').fill(message);
@@ -28,16 +20,8 @@ async function saveVersion(page: Page, message: string, number: number) {
   await page.getByRole('listitem', { name: `Version ${number}` }).waitFor();
 }
 
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-
-afterAll(async () => {
-  for (const c of contexts) await c.close();
-  await browser?.close();
-  await server?.stop();
-});
+beforeAll(() => session.open());
+afterAll(() => session.close());
 
 describe('versions, compare, lock and export', () => {
   it('saves, compares, locks live and exports the production CSV', async () => {
