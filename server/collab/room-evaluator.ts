@@ -1,16 +1,20 @@
 import type { Mapping } from '../../src/shared/chem';
 import type { EvaluationInputs, EvaluationResult } from '../mappings/evaluate-draft';
 import { evaluateInThread, forgetInputs } from '../mappings/evaluation-thread';
+import { DebounceWindow } from './debounce-window';
 
 /**
  * Keeps one room's evaluation current without holding up its sockets. Every evaluation runs in the
  * evaluation thread; the main thread never loads the chemistry libraries.
  *
- * Every change to the draft or its inputs bumps `revision` through `changed()`. At most
- * `delayMs` later the draft is evaluated (one job in flight per room, `delayMs` apart; changes
- * meanwhile are folded into the next job) and `publish` sends each result to the room, so numbers keep arriving during a
- * long burst of edits. A caller that needs the result of the draft as it is now (a page load) awaits
- * `current()`; a new peer gets `latest()` at once and any newer result when it is published.
+ * Every change to the draft or its inputs bumps `revision` through `changed()`. Evaluation is
+ * debounced: it starts `delayMs` after the last change, but never later than `maxWaitMs` after the
+ * first change it has not yet covered, so during a long burst of edits (several people working at
+ * once) numbers still arrive every `maxWaitMs` while the draft is evaluated — and sent to every peer —
+ * far less often than it is edited. One job runs per room at a time; changes meanwhile go into the
+ * next. `publish` sends each result to the room. A caller that needs the result of the draft as it is
+ * now (a page load) awaits `current()`; a new peer gets `latest()` at once and any newer result when
+ * it is published.
  */
 export class RoomEvaluator {
   private revision = 0;
@@ -19,6 +23,7 @@ export class RoomEvaluator {
   private result: EvaluationResult | null = null;
   private timer: NodeJS.Timeout | null = null;
   private running = false;
+  private readonly window: DebounceWindow;
   private stamp = 0;
   private closed = false;
 
@@ -27,8 +32,11 @@ export class RoomEvaluator {
     private readonly draft: () => Mapping,
     private readonly publish: (result: EvaluationResult, revision: number) => void,
     private readonly onFailure: (err: unknown) => void,
-    private readonly delayMs: number,
-  ) {}
+    delayMs: number,
+    maxWaitMs: number,
+  ) {
+    this.window = new DebounceWindow(delayMs, maxWaitMs);
+  }
 
   /** The draft or (with `inputs`) the molecule, coordinates, library, resolution or lock changed. */
   changed(inputs?: EvaluationInputs): void {
@@ -38,12 +46,12 @@ export class RoomEvaluator {
       this.stamp++;
     }
     this.revision++;
-    this.schedule();
+    this.noteChange();
   }
 
   /** Evaluates the draft once now that the room opened; published to everyone in it. */
   start(): void {
-    this.schedule();
+    this.noteChange();
   }
 
   /** The newest result, possibly of an older draft (a newer one is then on its way), or null before the first. */
@@ -67,8 +75,12 @@ export class RoomEvaluator {
     forgetInputs(this.inputs.mappingId);
   }
 
-  private schedule(): void {
-    if (!this.timer && !this.running && !this.closed) this.timer = setTimeout(() => void this.run(), this.delayMs);
+  private noteChange(): void {
+    if (this.closed) return;
+    this.window.note();
+    if (this.running) return; // the running loop takes it up
+    if (this.timer) clearTimeout(this.timer);
+    this.timer = setTimeout(() => void this.run(), this.window.untilDue());
   }
 
   /** A result computed by current() meanwhile may be newer than the one arriving: keep the newest. */
@@ -94,11 +106,11 @@ export class RoomEvaluator {
     this.timer = null;
     this.running = true;
     try {
-      for (let round = 0; !this.closed && this.publishedRevision < this.revision; round++) {
-        // During a burst of edits, leave `delayMs` between jobs instead of evaluating back to back:
-        // numbers still follow each edit within about two evaluations, and the cores stay free for relaying.
-        if (round > 0) await sleep(this.delayMs);
+      while (!this.closed && this.publishedRevision < this.revision) {
+        // Changes made while the last job ran: wait for their debounce (it moves while edits go on).
+        for (let wait = this.window.untilDue(); wait > 0 && !this.closed; wait = this.window.untilDue()) await sleep(wait);
         if (this.closed) return;
+        this.window.take();
         const revision = this.revision;
         this.keep(await this.evaluate(this.draft()), revision);
         if (this.closed) return;

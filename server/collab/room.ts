@@ -7,8 +7,9 @@
  *      gets the sender an error message, the shadow is rebuilt, the real document never sees it;
  *   2. appended to mapping_updates (updates that arrived together go in one INSERT);
  *   3. relayed to the other peers and applied to the document;
- *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts), at most
- *      `evaluationDelayMs` later; its results go to every peer. A room evaluates once when it opens.
+ *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts): `evaluationDelayMs`
+ *      after the last change, at most `evaluationMaxWaitMs` after the first; its results go to every
+ *      peer. A room evaluates once when it opens.
  * Compaction into a snapshot runs every `compactEvery` updates, every `compactIntervalMs` while there is
  * something to fold, and when the last peer leaves (then after the queued updates). It runs beside the
  * queue, not on it: it folds the document as it is at that moment, whose updates are exactly those up
@@ -31,7 +32,10 @@ import type { UpdateLog } from './update-log';
 
 export interface CollabOptions {
   pingIntervalMs: number;
+  /** Evaluation starts this long after the last change… */
   evaluationDelayMs: number;
+  /** …but at most this long after the first change it has not covered yet (during a burst of edits). */
+  evaluationMaxWaitMs: number;
   compactEvery: number;
   compactIntervalMs: number;
 }
@@ -39,7 +43,7 @@ export interface CollabOptions {
 /** How often at most a room rewrites its mapping row's "updated" time while the bead count stays the same. */
 const TOUCH_EVERY_MS = 2_000;
 
-export const DEFAULT_COLLAB_OPTIONS: CollabOptions = { pingIntervalMs: 10_000, evaluationDelayMs: 40, compactEvery: 500, compactIntervalMs: 60_000 };
+export const DEFAULT_COLLAB_OPTIONS: CollabOptions = { pingIntervalMs: 10_000, evaluationDelayMs: 40, evaluationMaxWaitMs: 100, compactEvery: 500, compactIntervalMs: 60_000 };
 
 /** What a room needs of a connection. */
 export interface Peer {
@@ -87,7 +91,7 @@ export class Room {
     this.awareness.on('update', this.onAwareness);
     this.compactTimer = setInterval(() => void this.compact(), opts.compactIntervalMs);
     this.compactTimer.unref();
-    this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs);
+    this.evaluator = new RoomEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), (err) => ctx.log.error({ err, mappingId: inputs.mappingId }, 'evaluation thread failed'), opts.evaluationDelayMs, opts.evaluationMaxWaitMs);
     this.evaluator.start();
   }
 

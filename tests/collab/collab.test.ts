@@ -74,6 +74,22 @@ describe('live collaboration', () => {
     await until('evaluation with the new beads', () => ids.every((id) => c.evaluations.at(-1)?.evaluation?.beads.some((x) => x.id === id) ?? false));
   });
 
+  it('keeps the numbers coming during a long burst of edits, with far fewer evaluations than edits', async () => {
+    // Debounced 40 ms, bounded at 100 ms (server/collab/debounce-window.ts): 80 renames 10 ms apart
+    // (at least 0.8 s) bring about one evaluation per 100 ms while they go on (7 measured here), not
+    // one per edit and not only one at the end. Evaluating 40 ms apart, as before, gave 19.
+    const bead = beadsOf(a.doc).get('from-a')!;
+    const before = c.evaluations.length;
+    for (let i = 0; i < 80; i++) {
+      bead.set('name', `N${i}`);
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    const during = c.evaluations.length - before;
+    await until('the last name evaluated', () => c.evaluations.at(-1)?.evaluation?.beads.find((x) => x.id === 'from-a')?.name === 'N79');
+    expect(during).toBeGreaterThanOrEqual(3);
+    expect(during).toBeLessThanOrEqual(14);
+  });
+
   it('resolves the same atom assigned at once by two users to one bead on all three', async () => {
     assignAtoms(a.doc, 'from-a', [23]);
     assignAtoms(b.doc, 'from-b', [23]);
