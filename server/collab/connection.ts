@@ -14,6 +14,7 @@ import { messageYjsSyncStep1, messageYjsSyncStep2, messageYjsUpdate, writeSyncSt
 import {
   CLOSE_MALFORMED,
   CLOSE_NOT_FOUND,
+  CLOSE_TRY_AGAIN,
   MESSAGE_AWARENESS,
   MESSAGE_ERROR,
   MESSAGE_QUERY_AWARENESS,
@@ -49,6 +50,9 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     },
     fail(reason) {
       ws.close(CLOSE_MALFORMED, reason.slice(0, 120));
+    },
+    retry(reason) {
+      ws.close(CLOSE_TRY_AGAIN, reason.slice(0, 120));
     },
   };
   const readOnly = () => info.roleReadOnly || !!room?.locked;

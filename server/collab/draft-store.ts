@@ -1,10 +1,14 @@
 import * as Y from 'yjs';
 import type { Db } from '../db/knex';
+import { applyChecked } from '../../src/shared/mapping-doc-check';
 
-// Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
-// (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots). The draft is the
-// snapshot with every later update applied, in id order. Compaction writes the merged state and
-// deletes the updates it contains, in one transaction, so a crash at any point loses nothing.
+// Storage of mapping drafts in MariaDB: an append-only table of the Yjs updates editors sent
+// (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).
+// The draft is the snapshot with every later update that passes the document checks applied, in id
+// order — the same checks, in the same order, as the live room made (room.ts). The room stores an
+// update while it checks it and deletes it again when refused, so a refused update is normally gone;
+// one left behind by a server that died between the two is skipped here. Compaction writes the merged
+// state and deletes the updates it contains, in one transaction, so a crash at any point loses nothing.
 
 export interface StoredDraft {
   doc: Y.Doc;
@@ -19,16 +23,45 @@ export interface NewUpdate {
   data: Uint8Array;
 }
 
-export async function loadDraft(db: Db, mappingId: number): Promise<StoredDraft> {
-  const doc = new Y.Doc({ gc: true });
+/**
+ * The stored draft. `atomCount` (the molecule's atoms) is needed for the checks; without it, it is read
+ * from the molecule.
+ */
+export async function loadDraft(db: Db, mappingId: number, atomCount?: number): Promise<StoredDraft> {
   const snap = await db('mapping_snapshots').where({ mapping_id: mappingId }).first('state', 'last_update_id');
   let lastUpdateId = snap ? Number(snap.last_update_id) : 0;
-  const updates: Uint8Array[] = snap ? [snap.state] : [];
-  const rows = await db('mapping_updates').where('mapping_id', mappingId).andWhere('id', '>', lastUpdateId).orderBy('id').select('id', 'data');
-  for (const r of rows) updates.push(r.data);
+  const rows: { id: number; data: Uint8Array }[] = await db('mapping_updates').where('mapping_id', mappingId).andWhere('id', '>', lastUpdateId).orderBy('id').select('id', 'data');
   if (rows.length) lastUpdateId = Number(rows[rows.length - 1].id);
-  if (updates.length) Y.applyUpdate(doc, Y.mergeUpdates(updates));
+  const atoms = atomCount ?? (rows.length ? await atomCountOf(db, mappingId) : 0);
+  const base: Uint8Array[] = snap ? [snap.state] : [];
+  let doc = docOf(base);
+  const kept: Uint8Array[] = [];
+  for (const r of rows) {
+    let accepted: boolean;
+    try {
+      accepted = applyChecked(doc, r.data, atoms) === null;
+    } catch {
+      accepted = false; // not a Yjs update at all
+    }
+    if (accepted) kept.push(r.data);
+    else {
+      doc.destroy();
+      doc = docOf([...base, ...kept]);
+    }
+  }
   return { doc, lastUpdateId, pending: rows.length };
+}
+
+function docOf(updates: Uint8Array[]): Y.Doc {
+  const doc = new Y.Doc({ gc: true });
+  if (updates.length) Y.applyUpdate(doc, Y.mergeUpdates(updates));
+  return doc;
+}
+
+/** How many atoms the mapping's molecule has (from its stored model, without sending the model here). */
+async function atomCountOf(db: Db, mappingId: number): Promise<number> {
+  const row = await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first(db.raw("JSON_LENGTH(m.model, '$.atoms') as n"));
+  return Number(row?.n ?? 0);
 }
 
 /**

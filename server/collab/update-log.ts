@@ -3,13 +3,13 @@ import type { Db } from '../db/knex';
 import type { NewUpdate } from './draft-store';
 
 /**
- * The live-collaboration write path: accepted Yjs updates appended to mapping_updates through one
- * connection of the collab server's own (made by knex's client, so with the same settings), outside
- * the pool and the query builder. An accepted update waits for this INSERT before it is relayed, and
- * knex's per-query work (pool acquire, query compile, promise layers) was a large share of that wait
- * (docs/benchmarks.md). Each append is one autocommitted statement; appends from all rooms queue in
- * order on the connection. A lost connection is replaced, and that append retried once (a repeated
- * Yjs update is harmless: applying it twice changes nothing).
+ * The live-collaboration write path: incoming Yjs updates appended to mapping_updates (and refused ones
+ * deleted again, see room.ts) through one connection of the collab server's own (made by knex's
+ * client, so with the same settings), outside the pool and the query builder. Every relayed update
+ * waits for this INSERT, and knex's per-query work (pool acquire, query compile, promise layers) was a
+ * large share of that wait (docs/benchmarks.md). Each statement autocommits; statements from all rooms
+ * queue in order on the connection. A lost connection is replaced, and that statement retried once (a
+ * repeated Yjs update is harmless: applying it twice changes nothing; loading skips a refused one).
  */
 export class UpdateLog {
   private conn: Promise<Connection> | null = null;
@@ -19,19 +19,18 @@ export class UpdateLog {
 
   constructor(private readonly db: Db) {}
 
-  /** Appends updates in order; returns the id of the last one. */
+  /** Appends updates in order; returns the id of the last one (the others come just before it). */
   async append(mappingId: number, updates: NewUpdate[]): Promise<number> {
     const rows = updates.map((u) => [mappingId, u.userId, Buffer.from(u.data)]);
-    let result: ResultSetHeader;
-    try {
-      result = await this.insert(rows);
-    } catch (err) {
-      if (!(err as { fatal?: boolean }).fatal || this.closed) throw err;
-      result = await this.insert(rows);
-    }
+    const result = await this.run('INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ?', [rows]);
     // One multi-row INSERT: InnoDB gives its rows consecutive ids (innodb_autoinc_lock_mode ≤ 1 for
     // simple inserts, and MariaDB's default is 1), and insertId is the first of them.
     return Number(result.insertId) + updates.length - 1;
+  }
+
+  /** Deletes appended updates again (the room refused them). */
+  async remove(ids: number[]): Promise<void> {
+    if (ids.length) await this.run('DELETE FROM mapping_updates WHERE id IN (?)', [ids]);
   }
 
   async close(): Promise<void> {
@@ -43,10 +42,20 @@ export class UpdateLog {
     if (conn) await (this.db.client as RawClient).destroyRawConnection(conn);
   }
 
-  private async insert(rows: unknown[][]): Promise<ResultSetHeader> {
+  /** One statement; on a lost connection, once more on a new one. */
+  private async run(sql: string, values: unknown[]): Promise<ResultSetHeader> {
+    try {
+      return await this.once(sql, values);
+    } catch (err) {
+      if (!(err as { fatal?: boolean }).fatal || this.closed) throw err;
+      return this.once(sql, values);
+    }
+  }
+
+  private async once(sql: string, values: unknown[]): Promise<ResultSetHeader> {
     const conn = await this.connection();
     return new Promise((resolve, reject) =>
-      conn.query<ResultSetHeader>('INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ?', [rows], (err, res) => {
+      conn.query<ResultSetHeader>(sql, values, (err, res) => {
         if (err) {
           if ((err as { fatal?: boolean }).fatal) this.drop(conn);
           reject(err);

@@ -34,7 +34,7 @@ export async function loadEvaluationInputs(db: Db, mappingId: number): Promise<E
 export async function readStoredDraft(db: Db, mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult } | null> {
   const inputs = await loadEvaluationInputs(db, mappingId);
   if (!inputs) return null;
-  const draft = docToMapping((await loadDraft(db, mappingId)).doc);
+  const draft = docToMapping((await loadDraft(db, mappingId, inputs.model.atoms.length)).doc);
   return { draft, result: await evaluateOnceInThread(inputs, draft) };
 }
 

@@ -28,6 +28,8 @@ export const MESSAGE_SESSION = 102;
 export const CLOSE_MALFORMED = 4400;
 export const CLOSE_UNAUTHENTICATED = 4401;
 export const CLOSE_NOT_FOUND = 4404;
+/** The server could not store the client's changes; reconnecting (automatic) sends them again. WebSocket's own "try again later". */
+export const CLOSE_TRY_AGAIN = 1013;
 
 export const collabPath = (mappingId: number | string) => `/collab/${mappingId}`;
 
