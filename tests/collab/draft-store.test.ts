@@ -1,14 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
 import { createTestApp, type TestApp } from '../helpers/test-app';
-import { connectClient, listen, sessionCookie, synced } from '../helpers/collab-client';
+import { connectClient, listen, sessionCookie, synced, until } from '../helpers/collab-client';
 import { demoMappingId } from '../helpers/fixtures';
 import { atomsOf, beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
 import { loadDraft } from '../../server/collab/draft-store';
+import { CLOSE_TRY_AGAIN } from '../../src/shared/collab-protocol';
 
 // The room stores an update while it checks it and deletes it again when the check refuses it
 // (server/collab/room.ts). A server that dies between the two leaves the refused update in
 // mapping_updates: loading must skip it, with the same checks in the same order, and keep the rest.
+// When the update cannot be stored at all, nothing is relayed and the sender reconnects and resends.
 
 let t: TestApp;
 let http: Awaited<ReturnType<typeof listen>>;
@@ -60,5 +62,33 @@ describe('loading a draft with a refused update left behind', () => {
     expect(docToMapping(c.doc)).toEqual(draft);
     expect(atomsOf(c.doc).has('999')).toBe(false);
     c.destroy();
+  });
+});
+
+describe('an update that cannot be stored', () => {
+  it('is not relayed; its sender reconnects and sends it again once MariaDB takes it', async () => {
+    const a = connectClient(http.url, mappingId, cookie);
+    const b = connectClient(http.url, mappingId, cookie);
+    await Promise.all([synced(a), synced(b)]);
+    const closes: (number | undefined)[] = [];
+    a.provider.on('connection-close', (event) => void closes.push(event?.code));
+    const stored = async () => (await t.ctx.db('mapping_updates').where({ mapping_id: mappingId })).length;
+    const rowsBefore = await stored();
+
+    // A real failure of the INSERT: the table is briefly not there.
+    await t.ctx.db.raw('RENAME TABLE mapping_updates TO mapping_updates_away');
+    try {
+      createBead(a.doc, [1], { id: 'while-away' });
+      await until('the sender is told to reconnect', () => closes.includes(CLOSE_TRY_AGAIN));
+      expect(beadsOf(b.doc).has('while-away')).toBe(false);
+    } finally {
+      await t.ctx.db.raw('RENAME TABLE mapping_updates_away TO mapping_updates');
+    }
+
+    await until('the bead reaches the other client after the resend', () => beadsOf(b.doc).has('while-away'));
+    expect(await stored()).toBeGreaterThan(rowsBefore);
+    expect(docToMapping((await loadDraft(t.ctx.db, mappingId)).doc).beads.map((x) => x.id)).toContain('while-away');
+    a.destroy();
+    b.destroy();
   });
 });
