@@ -28,9 +28,18 @@ export interface NewUpdate {
  * from the molecule.
  */
 export async function loadDraft(db: Db, mappingId: number, atomCount?: number): Promise<StoredDraft> {
-  const snap = await db('mapping_snapshots').where({ mapping_id: mappingId }).first('state', 'last_update_id');
+  // One consistent read (REPEATABLE READ: both SELECTs see the same moment). Read one after the other,
+  // a compaction committing in between would have folded and deleted updates the old snapshot lacks.
+  const { snap, rows } = await db.transaction(
+    async (trx) => {
+      const snap = await trx('mapping_snapshots').where({ mapping_id: mappingId }).first('state', 'last_update_id');
+      const after = snap ? Number(snap.last_update_id) : 0;
+      const rows: { id: number; data: Uint8Array }[] = await trx('mapping_updates').where('mapping_id', mappingId).andWhere('id', '>', after).orderBy('id').select('id', 'data');
+      return { snap, rows };
+    },
+    { isolationLevel: 'repeatable read' },
+  );
   let lastUpdateId = snap ? Number(snap.last_update_id) : 0;
-  const rows: { id: number; data: Uint8Array }[] = await db('mapping_updates').where('mapping_id', mappingId).andWhere('id', '>', lastUpdateId).orderBy('id').select('id', 'data');
   if (rows.length) lastUpdateId = Number(rows[rows.length - 1].id);
   const atoms = atomCount ?? (rows.length ? await atomCountOf(db, mappingId) : 0);
   const base: Uint8Array[] = snap ? [snap.state] : [];
