@@ -1,4 +1,4 @@
-import type { Connection, ResultSetHeader } from 'mysql2';
+import type { Connection, ExecuteValues, QueryError, ResultSetHeader } from 'mysql2';
 import type { Db } from '../db/knex';
 import type { NewUpdate } from './draft-store';
 
@@ -21,8 +21,10 @@ export class UpdateLog {
 
   /** Appends updates in order; returns the id of the last one (the others come just before it). */
   async append(mappingId: number, updates: NewUpdate[]): Promise<number> {
-    const rows = updates.map((u) => [mappingId, u.userId, Buffer.from(u.data)]);
-    const result = await this.run('INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ?', [rows]);
+    // A prepared statement (one per batch size, kept by mysql2 for the connection): the update goes
+    // as binary, not as an escaped literal MariaDB would parse.
+    const sql = `INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ${updates.map(() => '(?, ?, ?)').join(', ')}`;
+    const result = await this.run(sql, updates.flatMap((u) => [mappingId, u.userId, Buffer.from(u.data)]), true);
     // One multi-row INSERT: InnoDB gives its rows consecutive ids (innodb_autoinc_lock_mode ≤ 1 for
     // simple inserts, and MariaDB's default is 1), and insertId is the first of them.
     return Number(result.insertId) + updates.length - 1;
@@ -30,7 +32,7 @@ export class UpdateLog {
 
   /** Deletes appended updates again (the room refused them). */
   async remove(ids: number[]): Promise<void> {
-    if (ids.length) await this.run('DELETE FROM mapping_updates WHERE id IN (?)', [ids]);
+    if (ids.length) await this.run('DELETE FROM mapping_updates WHERE id IN (?)', [ids], false);
   }
 
   async close(): Promise<void> {
@@ -43,25 +45,27 @@ export class UpdateLog {
   }
 
   /** One statement; on a lost connection, once more on a new one. */
-  private async run(sql: string, values: unknown[]): Promise<ResultSetHeader> {
+  private async run(sql: string, values: unknown[], prepared: boolean): Promise<ResultSetHeader> {
     try {
-      return await this.once(sql, values);
+      return await this.once(sql, values, prepared);
     } catch (err) {
       if (!(err as { fatal?: boolean }).fatal || this.closed) throw err;
-      return this.once(sql, values);
+      return this.once(sql, values, prepared);
     }
   }
 
-  private async once(sql: string, values: unknown[]): Promise<ResultSetHeader> {
+  private async once(sql: string, values: unknown[], prepared: boolean): Promise<ResultSetHeader> {
     const conn = await this.connection();
-    return new Promise((resolve, reject) =>
-      conn.query<ResultSetHeader>(sql, values, (err, res) => {
+    return new Promise((resolve, reject) => {
+      const done = (err: QueryError | null, res: ResultSetHeader) => {
         if (err) {
-          if ((err as { fatal?: boolean }).fatal) this.drop(conn);
+          if (err.fatal) this.drop(conn);
           reject(err);
         } else resolve(res);
-      }),
-    );
+      };
+      if (prepared) conn.execute<ResultSetHeader>(sql, values as ExecuteValues[], done);
+      else conn.query<ResultSetHeader>(sql, values, done);
+    });
   }
 
   private connection(): Promise<Connection> {

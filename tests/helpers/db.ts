@@ -20,10 +20,10 @@ function serverUrl(): URL {
 export async function createTestDatabase(): Promise<TestDatabase> {
   const base = serverUrl();
   const name = `t_${process.pid}_${randomBytes(4).toString('hex')}`;
-  const admin = knexFactory({ client: 'mysql2', connection: { uri: `${base.protocol}//${base.username}:${base.password}@${base.host}/` } as never });
+  const admin = knexFactory({ client: 'mysql2', connection: { uri: `${base.protocol}//${base.username}:${base.password}@${base.host}/${base.search}` } as never });
   await admin.raw(`CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
   await admin.destroy();
-  const url = `${base.protocol}//${base.username}:${base.password}@${base.host}/${name}`;
+  const url = `${base.protocol}//${base.username}:${base.password}@${base.host}/${name}${base.search}`;
   const db = createDb(url);
   await migrateLatest(db);
   return {
