@@ -2,13 +2,13 @@ import * as Y from 'yjs';
 import type { Db } from '../db/knex';
 import { applyChecked } from '../../src/shared/mapping-doc-check';
 
-// Storage of mapping drafts in MariaDB: an append-only table of the Yjs updates editors sent
+// Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
 // (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).
-// The draft is the snapshot with every later update that passes the document checks applied, in id
-// order — the same checks, in the same order, as the live room made (room.ts). The room stores an
-// update while it checks it and deletes it again when refused, so a refused update is normally gone;
-// one left behind by a server that died between the two is skipped here. Compaction writes the merged
-// state and deletes the updates it contains, in one transaction, so a crash at any point loses nothing.
+// The draft is the snapshot with every later update applied, in id order. Loading makes the live
+// room's document checks again (same checks, same order): a row that fails them — not a Yjs update at
+// all, or one that would be refused live — is skipped instead of making the whole draft unloadable.
+// Compaction writes the merged state and deletes the updates it contains, in one transaction, so a
+// crash at any point loses nothing.
 
 export interface StoredDraft {
   doc: Y.Doc;

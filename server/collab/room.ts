@@ -3,11 +3,11 @@
  *
  * An update from a peer goes through, in order (one room-wide queue, so MariaDB's order is the
  * document's order):
- *   1. appended to mapping_updates (updates that arrived together go in one INSERT) and, while that
- *      INSERT is on its way, applied to a shadow copy and checked there (src/shared/mapping-doc-check.ts);
- *   2. a refused update is deleted from mapping_updates again, then its sender gets an error message;
- *      the shadow is rebuilt and the real document never sees it;
- *   3. once stored, accepted updates are relayed to the other peers and applied to the document;
+ *   1. applied to a shadow copy and checked there (src/shared/mapping-doc-check.ts) — a refused update
+ *      gets the sender an error message, the shadow is rebuilt, the real document never sees it;
+ *   2. appended to mapping_updates (updates that arrived together go in one INSERT); if that fails,
+ *      nothing is relayed and the senders are made to reconnect, which sends the updates again;
+ *   3. relayed to the other peers and applied to the document;
  *   4. a re-evaluation is scheduled in the evaluation thread (room-evaluator.ts): `evaluationDelayMs`
  *      after the last change, at most `evaluationMaxWaitMs` after the first; its results go to every
  *      peer. A room evaluates once when it opens.
@@ -236,41 +236,33 @@ export class Room {
   private async flush(): Promise<void> {
     this.flushQueued = false;
     const batch = this.incoming.splice(0);
-    // Stored while it is checked: the INSERT's round trip is the one wait before relaying, and the check
-    // fits inside it. What the check refuses is deleted again before its sender hears of it; if the
-    // server dies in between, loading skips it (loadDraft makes the same checks in the same order).
-    const stored = this.log.append(this.id, batch.map((b) => ({ userId: b.peer.userId, data: b.update })));
-    stored.catch(() => undefined); // awaited below; this keeps a failure meanwhile from counting as unhandled
     const accepted: { peer: Peer; update: Uint8Array }[] = [];
-    const refused: { index: number; tell(): void }[] = [];
-    batch.forEach((item, index) => {
+    for (const item of batch) {
       let problem;
       try {
         problem = applyChecked(this.shadow, item.update, this.atomCount);
       } catch {
-        refused.push({ index, tell: () => item.peer.fail('The update could not be decoded.') });
+        item.peer.fail('The update could not be decoded.');
         problem = undefined;
       }
-      if (problem === null) return void accepted.push(item);
-      if (problem) refused.push({ index, tell: () => item.peer.sendError({ code: 'update_refused', message: `Update refused: ${problem.message}`, details: problem }) });
+      if (problem === null) {
+        accepted.push(item);
+        continue;
+      }
+      if (problem) item.peer.sendError({ code: 'update_refused', message: `Update refused: ${problem.message}`, details: problem });
       this.shadow = copyOf(this.doc, accepted.map((a) => a.update));
-    });
-    let lastId: number;
+    }
+    if (accepted.length === 0) return;
     try {
-      lastId = await stored;
+      this.lastUpdateId = await this.log.append(this.id, accepted.map((a) => ({ userId: a.peer.userId, data: a.update })));
     } catch (err) {
       // Nothing of the batch is stored or relayed. Its senders reconnect, and the sync on reconnecting
       // sends the server what it lacks.
       this.shadow = copyOf(this.doc);
-      for (const peer of new Set(batch.map((b) => b.peer))) peer.retry('The draft could not be stored just now; your changes are sent again on reconnecting.');
+      for (const peer of new Set(accepted.map((a) => a.peer))) peer.retry('The draft could not be stored just now; your changes are sent again on reconnecting.');
       throw err;
     }
-    const firstId = lastId - batch.length + 1;
-    if (refused.length) {
-      await this.log.remove(refused.map((r) => firstId + r.index)).catch((err) => this.ctx.log.warn({ err, mappingId: this.id }, 'could not delete refused updates (loading skips them)'));
-      for (const r of refused) r.tell();
-    }
-    if (accepted.length === 0) return;
+    this.uncompacted += accepted.length;
     // Relay first, then apply: the frames do not depend on the document, and the shadow has already
     // shown that these updates apply. Nothing else runs between the two loops.
     for (const { peer, update } of accepted) {
@@ -278,8 +270,6 @@ export class Room {
       for (const other of this.peers) if (other !== peer) other.send(frame);
     }
     for (const { peer, update } of accepted) Y.applyUpdate(this.doc, update, peer);
-    this.lastUpdateId = lastId;
-    this.uncompacted += batch.length;
     this.scheduleEvaluation();
     if (this.uncompacted >= this.opts.compactEvery) void this.compact();
   }

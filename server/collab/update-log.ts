@@ -3,13 +3,13 @@ import type { Db } from '../db/knex';
 import type { NewUpdate } from './draft-store';
 
 /**
- * The live-collaboration write path: incoming Yjs updates appended to mapping_updates (and refused ones
- * deleted again, see room.ts) through one connection of the collab server's own (made by knex's
- * client, so with the same settings), outside the pool and the query builder. Every relayed update
- * waits for this INSERT, and knex's per-query work (pool acquire, query compile, promise layers) was a
- * large share of that wait (docs/benchmarks.md). Each statement autocommits; statements from all rooms
- * queue in order on the connection. A lost connection is replaced, and that statement retried once (a
- * repeated Yjs update is harmless: applying it twice changes nothing; loading skips a refused one).
+ * The live-collaboration write path: accepted Yjs updates appended to mapping_updates through one
+ * connection of the collab server's own (made by knex's client, so with the same settings), outside
+ * the pool and the query builder. An accepted update waits for this INSERT before it is relayed, and
+ * knex's per-query work (pool acquire, query compile, promise layers) was a large share of that wait
+ * (docs/benchmarks.md). Each append is one autocommitted prepared statement; appends from all rooms
+ * queue in order on the connection. A lost connection is replaced, and that append retried once (a
+ * repeated Yjs update is harmless: applying it twice changes nothing).
  */
 export class UpdateLog {
   private conn: Promise<Connection> | null = null;
@@ -24,15 +24,10 @@ export class UpdateLog {
     // A prepared statement (one per batch size, kept by mysql2 for the connection): the update goes
     // as binary, not as an escaped literal MariaDB would parse.
     const sql = `INSERT INTO mapping_updates (mapping_id, user_id, data) VALUES ${updates.map(() => '(?, ?, ?)').join(', ')}`;
-    const result = await this.run(sql, updates.flatMap((u) => [mappingId, u.userId, Buffer.from(u.data)]), true);
+    const result = await this.run(sql, updates.flatMap((u) => [mappingId, u.userId, Buffer.from(u.data)]));
     // One multi-row INSERT: InnoDB gives its rows consecutive ids (innodb_autoinc_lock_mode ≤ 1 for
     // simple inserts, and MariaDB's default is 1), and insertId is the first of them.
     return Number(result.insertId) + updates.length - 1;
-  }
-
-  /** Deletes appended updates again (the room refused them). */
-  async remove(ids: number[]): Promise<void> {
-    if (ids.length) await this.run('DELETE FROM mapping_updates WHERE id IN (?)', [ids], false);
   }
 
   async close(): Promise<void> {
@@ -44,17 +39,17 @@ export class UpdateLog {
     if (conn) await (this.db.client as RawClient).destroyRawConnection(conn);
   }
 
-  /** One statement; on a lost connection, once more on a new one. */
-  private async run(sql: string, values: unknown[], prepared: boolean): Promise<ResultSetHeader> {
+  /** One prepared statement; on a lost connection, once more on a new one. */
+  private async run(sql: string, values: ExecuteValues[]): Promise<ResultSetHeader> {
     try {
-      return await this.once(sql, values, prepared);
+      return await this.once(sql, values);
     } catch (err) {
       if (!(err as { fatal?: boolean }).fatal || this.closed) throw err;
-      return this.once(sql, values, prepared);
+      return this.once(sql, values);
     }
   }
 
-  private async once(sql: string, values: unknown[], prepared: boolean): Promise<ResultSetHeader> {
+  private async once(sql: string, values: ExecuteValues[]): Promise<ResultSetHeader> {
     const conn = await this.connection();
     return new Promise((resolve, reject) => {
       const done = (err: QueryError | null, res: ResultSetHeader) => {
@@ -63,8 +58,7 @@ export class UpdateLog {
           reject(err);
         } else resolve(res);
       };
-      if (prepared) conn.execute<ResultSetHeader>(sql, values as ExecuteValues[], done);
-      else conn.query<ResultSetHeader>(sql, values, done);
+      conn.execute<ResultSetHeader>(sql, values, done);
     });
   }
 

@@ -7,10 +7,10 @@ import { atomsOf, beadsOf, createBead, docToMapping } from '../../src/shared/map
 import { loadDraft } from '../../server/collab/draft-store';
 import { CLOSE_TRY_AGAIN } from '../../src/shared/collab-protocol';
 
-// The room stores an update while it checks it and deletes it again when the check refuses it
-// (server/collab/room.ts). A server that dies between the two leaves the refused update in
-// mapping_updates: loading must skip it, with the same checks in the same order, and keep the rest.
-// When the update cannot be stored at all, nothing is relayed and the sender reconnects and resends.
+// The room stores only updates that pass its checks (server/collab/room.ts), but a stored row may still
+// be bad (written by other means, or damaged): loading must skip it, with the same checks in the same
+// order, and keep the rest, rather than leave the mapping unloadable. When an update cannot be stored
+// at all, nothing is relayed and the sender reconnects and resends.
 
 let t: TestApp;
 let http: Awaited<ReturnType<typeof listen>>;
@@ -36,7 +36,7 @@ async function updateOnStored(edit: (doc: Y.Doc) => void): Promise<Uint8Array> {
   return Y.encodeStateAsUpdate(doc, before);
 }
 
-describe('loading a draft with a refused update left behind', () => {
+describe('loading a draft with bad rows among its updates', () => {
   it('skips the refused and the undecodable update and keeps the ones after them', async () => {
     const userId = (await t.ctx.db('users').where({ email: 'modeller@example.org' }).first('id')).id;
     const before = docToMapping((await loadDraft(t.ctx.db, mappingId)).doc);
