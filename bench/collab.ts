@@ -22,7 +22,8 @@ import { CONFORMER_IDLE_MS } from '../server/molecules/conformer-thread';
 const CLIENTS = 20;
 const EDITS = 200;
 const GAP_MS = 10;
-const ROUNDS = 3;
+const ROUNDS = 4;
+const SETTLE_MS = 500;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function child(args: string[], env: NodeJS.ProcessEnv): Promise<{ proc: ChildProcess; line: string }> {
@@ -114,12 +115,18 @@ try {
   // Warm both up once (first evaluation, JIT), then measure each in turn.
   await load(`ws://127.0.0.1:${relay.line}`, 'warm', [null]);
   await load(`${url.replace('http', 'ws')}/collab`, String(mappingId), cookies);
-  // ROUNDS rounds each, alternating, pooled: a passing disturbance on the machine hits both alike.
+  // ROUNDS rounds each, pooled, in the order bare–ours, ours–bare, bare–ours, … (each server goes first
+  // as often as second, so a drift of the machine or what one round leaves behind weighs on both alike),
+  // with a pause after each round for its sockets to close.
   const bareLat: number[] = [];
   const oursLat: number[] = [];
+  const bareRound = async () => bareLat.push(...(await load(`ws://127.0.0.1:${relay.line}`, 'bench', [null])));
+  const oursRound = async () => oursLat.push(...(await load(`${url.replace('http', 'ws')}/collab`, String(mappingId), cookies)));
   for (let r = 0; r < ROUNDS; r++) {
-    bareLat.push(...(await load(`ws://127.0.0.1:${relay.line}`, 'bench', [null])));
-    oursLat.push(...(await load(`${url.replace('http', 'ws')}/collab`, String(mappingId), cookies)));
+    for (const round of r % 2 === 0 ? [bareRound, oursRound] : [oursRound, bareRound]) {
+      await round();
+      await sleep(SETTLE_MS);
+    }
   }
   const bare = summary(bareLat);
   const ours = summary(oursLat);
