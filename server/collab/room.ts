@@ -211,8 +211,7 @@ export class Room {
   releaseIfIdle(): Promise<boolean> {
     if (this.peers.size > 0 || this.closed) return Promise.resolve(false);
     return this.serial(async () => {
-      // A failed compaction (logged by compact()) loses nothing: the updates stay in mapping_updates.
-      await this.compact().catch(() => undefined);
+      await this.compact();
       const empty = this.peers.size === 0;
       if (empty) this.onEmptied?.();
       return empty;
@@ -221,7 +220,7 @@ export class Room {
 
   /** Finishes queued work, compacts, and closes (server shutdown). */
   async shutdown(): Promise<void> {
-    await this.serial(() => this.compact().catch(() => undefined));
+    await this.serial(() => this.compact());
     this.close();
   }
 
@@ -274,7 +273,10 @@ export class Room {
     if (this.uncompacted >= this.opts.compactEvery) void this.compact();
   }
 
-  /** Folds the stored updates into the snapshot; compactions run one after another, never two at once. */
+  /**
+   * Folds the stored updates into the snapshot; compactions run one after another, never two at once.
+   * Never rejects: a failure is logged and loses nothing (the updates stay in mapping_updates).
+   */
   private compact(): Promise<void> {
     const next = this.compaction.then(async () => {
       if (this.uncompacted === 0) return;
@@ -284,7 +286,7 @@ export class Room {
       this.uncompacted -= folded;
     });
     this.compaction = next.catch((err) => this.ctx.log.error({ err, mappingId: this.id }, 'compaction failed'));
-    return next;
+    return this.compaction;
   }
 
   private scheduleEvaluation(): void {
