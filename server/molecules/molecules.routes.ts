@@ -8,7 +8,7 @@ import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody, type Create
 import { parseInThread } from '../workers/parse-thread';
 import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
-import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, updateMolecule } from './molecules.service';
+import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, refuseDuplicate, updateMolecule } from './molecules.service';
 import type { ConformerQueue } from './conformer-queue';
 
 const params = z.object({ id: idParam });
@@ -28,6 +28,7 @@ export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Confo
     await authorizeProject(ctx.db, req, projectId, 'molecule:create');
     const body = req.body as CreateMoleculeBody;
     const model = await parseInThread(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! });
+    await refuseDuplicate(ctx.db, projectId, model.canonicalSmiles, body.allowDuplicate);
     const id = await insertMolecule(ctx.db, {
       projectId,
       userId: requireUser(req).id,

@@ -1,7 +1,7 @@
 import type { Db } from '../db/knex';
 import type { Molecule } from '../../src/shared/chem';
-import type { ListMoleculesQuery, UpdateMoleculeBody } from '../../src/shared/molecules';
-import { notFound } from '../http/errors';
+import type { DuplicateMoleculeDetails, ListMoleculesQuery, UpdateMoleculeBody } from '../../src/shared/molecules';
+import { conflict, notFound } from '../http/errors';
 import { SUMMARY_COLUMNS, type MoleculeRow } from './molecule-view';
 
 // Knex for the `molecules` table. The model is written once, at creation: atom indices never change.
@@ -42,6 +42,24 @@ export async function insertMolecule(db: Db, m: NewMolecule): Promise<number> {
     tags: JSON.stringify(m.tags ?? []),
   });
   return id;
+}
+
+/** The project's molecule with this canonical SMILES (a live one before an archived one), or null. */
+export async function findDuplicate(db: Db, projectId: number, canonicalSmiles: string): Promise<DuplicateMoleculeDetails | null> {
+  const row = await db('molecules').where({ project_id: projectId, canonical_smiles: canonicalSmiles }).orderBy('archived').orderBy('id').first('id', 'name', 'archived');
+  return row ? { existing: { id: row.id, name: row.name, archived: !!row.archived }, canonicalSmiles } : null;
+}
+
+/**
+ * Refuses (409 duplicate_molecule, the existing molecule in `details`) a structure the project
+ * already has, unless the caller said to allow it: a second copy is usually an accident, and its
+ * mappings would be split from the first one's.
+ */
+export async function refuseDuplicate(db: Db, projectId: number, canonicalSmiles: string, allow: boolean | undefined): Promise<void> {
+  if (allow) return;
+  const dup = await findDuplicate(db, projectId, canonicalSmiles);
+  if (!dup) return;
+  throw conflict('duplicate_molecule', `This project already has this structure as ${dup.existing.name}${dup.existing.archived ? ' (archived)' : ''}; open it, or add this one anyway.`, dup);
 }
 
 export async function listMolecules(db: Db, projectId: number, q: ListMoleculesQuery): Promise<MoleculeRow[]> {

@@ -46,7 +46,7 @@ export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: Conform
       await attachCoordinates(ctx.db, fields.moleculeId, text);
       return void res.json(toDetail(await findMolecule(ctx.db, fields.moleculeId, true), null));
     }
-    const records = await importRecords(ctx.db, projectId, requireUser(req).id, req.file, text, fields.name);
+    const records = await importRecords(ctx.db, projectId, requireUser(req).id, req.file, text, fields.name, fields.allowDuplicate);
     for (const rec of records) if (rec.ok && rec.molecule.coordinates.source === null) conformers.enqueue(rec.molecule.id);
     const created = records.filter((rec) => rec.ok).length;
     const body: UploadResponse = { records, created, failed: records.length - created };

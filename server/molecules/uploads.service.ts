@@ -5,7 +5,7 @@ import { parseInThread } from '../workers/parse-thread';
 import { AppError, unprocessable } from '../http/errors';
 import { chemToAppError } from './chem-errors';
 import { parseModel, toSummary } from './molecule-view';
-import { findMolecule, insertMolecule, setXyz } from './molecules.service';
+import { findMolecule, insertMolecule, refuseDuplicate, setXyz } from './molecules.service';
 import { looksLikeMolfile, SDF_RECORDS_MAX, splitSdf } from './sdf';
 
 // Uploaded molfile / SD files: each record becomes a molecule (with a per-record result), or one
@@ -30,7 +30,7 @@ function errorBody(err: unknown): { code: string; message: string; details?: unk
   throw err;
 }
 
-export async function importRecords(db: Db, projectId: number, userId: number, file: UploadedFile, text: string, name?: string): Promise<UploadRecordResult[]> {
+export async function importRecords(db: Db, projectId: number, userId: number, file: UploadedFile, text: string, name?: string, allowDuplicate = false): Promise<UploadRecordResult[]> {
   const records = splitSdf(text);
   if (records.length > SDF_RECORDS_MAX) throw new AppError(413, 'payload_too_large', `An SD file holds at most ${SDF_RECORDS_MAX} records; this one has ${records.length}.`, { limit: SDF_RECORDS_MAX });
   const base = file.originalname.replace(/\.(sdf?|mol)$/i, '');
@@ -39,6 +39,7 @@ export async function importRecords(db: Db, projectId: number, userId: number, f
     const recordName = (records.length === 1 && name) || r.data.name || r.data.Name || r.title || `${base} #${r.record}`;
     try {
       const model = await parseInThread({ molfile: r.molfile });
+      await refuseDuplicate(db, projectId, model.canonicalSmiles, allowDuplicate);
       const id = await insertMolecule(db, { projectId, userId, name: recordName.slice(0, 200), source: 'molfile', model });
       results.push({ record: r.record, name: recordName, ok: true, molecule: toSummary(await findMolecule(db, id), null) });
     } catch (err) {

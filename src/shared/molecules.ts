@@ -25,6 +25,8 @@ export const createMoleculeBody = z
     molfile: z.string().min(1, 'Paste a molfile.').max(MOLFILE_MAX, `A molfile has at most ${MOLFILE_MAX} characters.`).optional(),
     notes: notes.optional(),
     tags: tags.optional(),
+    /** Create it even when the project already has a molecule with the same canonical SMILES. */
+    allowDuplicate: z.boolean().optional(),
   })
   .refine((b) => (b.smiles === undefined) !== (b.molfile === undefined), { message: 'Give either smiles or molfile, not both.', path: ['smiles'] });
 export type CreateMoleculeBody = z.infer<typeof createMoleculeBody>;
@@ -49,6 +51,8 @@ export const uploadFields = z.strictObject({
   name: name.optional(),
   /** Attach the file's 3D coordinates to this existing molecule instead of creating molecules. */
   moleculeId: z.coerce.number().int().positive().optional(),
+  /** "true": create records even when the project already has a molecule with the same canonical SMILES. */
+  allowDuplicate: z.enum(['true', 'false']).transform((v) => v === 'true').optional(),
 });
 export type UploadFields = z.infer<typeof uploadFields>;
 
@@ -103,6 +107,16 @@ export interface MoleculeDetail extends MoleculeSummary {
 export interface DeleteMoleculeResponse {
   archived: true;
   molecule: MoleculeSummary;
+}
+
+/**
+ * `details` of a 409 `duplicate_molecule` (create) or of a record's `duplicate_molecule` error
+ * (upload): the project's molecule with the same canonical SMILES. Send `allowDuplicate: true` to
+ * create it anyway (molecules with the same structure may differ in atom order, e.g. from a molfile).
+ */
+export interface DuplicateMoleculeDetails {
+  existing: { id: number; name: string; archived: boolean };
+  canonicalSmiles: string;
 }
 
 export type UploadRecordResult =

@@ -97,6 +97,19 @@ describe('molecules from SMILES', () => {
     expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
   });
 
+  it('refuses a structure the project already has (409 duplicate_molecule with the existing molecule), unless allowDuplicate', async () => {
+    const first = (await create({ name: 'Hexanol', smiles: 'CCCCCCO' }).expect(201)).body as MoleculeDetail;
+    const before = await settled();
+    // The same structure written another way: same canonical SMILES, so the same molecule.
+    const res = await create({ name: 'Hexan-1-ol', smiles: 'OCCCCCC' }).expect(409);
+    expect(res.body.error).toMatchObject({ code: 'duplicate_molecule', details: { existing: { id: first.id, name: 'Hexanol', archived: false }, canonicalSmiles: first.canonicalSmiles } });
+    expect(res.body.error.message).toContain('Hexanol');
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+    const second = await create({ name: 'Hexan-1-ol', smiles: 'OCCCCCC', allowDuplicate: true }).expect(201);
+    expect(second.body.canonicalSmiles).toBe(first.canonicalSmiles);
+    expect((await create({ name: 'Odd flag', smiles: 'CCCC', allowDuplicate: 'yes' }).expect(400)).body.error.code).toBe('validation_failed');
+  });
+
   it('refuses bad edits and changes nothing', async () => {
     const id = (await create({ name: 'Propane', smiles: 'CCC' }).expect(201)).body.id;
     const before = await settled();
@@ -118,7 +131,7 @@ describe('uploads', () => {
   });
 
   it('imports a single molfile', async () => {
-    const res = await upload('benzene.mol', flatMolfile('Benzene', benzene.model), { name: 'Uploaded benzene' }).expect(201);
+    const res = await upload('benzene.mol', flatMolfile('Benzene', benzene.model), { name: 'Uploaded benzene', allowDuplicate: 'true' }).expect(201);
     expect(res.body).toMatchObject({ created: 1, failed: 0 });
     expect(res.body.records[0]).toMatchObject({ record: 1, ok: true, molecule: { name: 'Uploaded benzene', formula: 'C6H6', source: 'molfile' } });
   });
@@ -126,7 +139,7 @@ describe('uploads', () => {
   it('imports each record of a multi-record SD file, with a result per record', async () => {
     const broken = 'Broken\n  x\n\n  2  1  0  0  0  0  0  0  0  0999 V2000\n    0.0000    0.0000    0.0000 C   0  0\nM  END\n';
     const file = sdf([flatMolfile('Benzene from SDF', benzene.model), broken, flatMolfile('Phenol from SDF', phenol.model)]);
-    const res = await upload('set.sdf', file).expect(201);
+    const res = await upload('set.sdf', file, { allowDuplicate: 'true' }).expect(201);
     expect(res.body).toMatchObject({ created: 2, failed: 1 });
     expect(res.body.records.map((r: { record: number; name: string; ok: boolean }) => [r.record, r.name, r.ok])).toEqual([
       [1, 'Benzene from SDF', true],
@@ -134,6 +147,14 @@ describe('uploads', () => {
       [3, 'Phenol from SDF', true],
     ]);
     expect(res.body.records[1].error).toEqual(expect.objectContaining({ code: expect.any(String), message: expect.any(String) }));
+  });
+
+  it('reports a record whose structure the project already has as a duplicate, naming the existing molecule', async () => {
+    const before = await settled();
+    const res = await upload('again.mol', flatMolfile('Phenol again', phenol.model)).expect(422);
+    expect(res.body.error.code).toBe('no_molecule_imported');
+    expect(res.body.error.details.records[0]).toMatchObject({ ok: false, error: { code: 'duplicate_molecule', details: { existing: { id: phenol.id, name: 'Phenol ref', archived: false }, canonicalSmiles: phenol.canonicalSmiles } } });
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
   });
 
   it('refuses a file that is not a molfile or SD file, and changes nothing', async () => {

@@ -136,7 +136,7 @@ export const ROUTE_CASES: RouteCase[] = [
   {
     method: 'post',
     path: '/api/projects/:id/molecules',
-    request: async (env, c) => ({ url: `/api/projects/${env.projectId}/molecules`, body: { name: `Methanol of ${c}`, smiles: 'CO' } }),
+    request: async (env, c) => ({ url: `/api/projects/${env.projectId}/molecules`, body: { name: `Methanol of ${c}`, smiles: 'CO', allowDuplicate: true } }),
     expect: inProject(201, EDITORS),
   },
   // A JSON body is not an upload: callers who may upload get 400 (no file), the rest are refused first.
