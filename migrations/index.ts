@@ -14,6 +14,7 @@ import * as m022 from './20261203_022_threads_notifications';
 import * as m031 from './20261204_031_mapping_versions';
 import * as m032 from './20261204_032_mapping_locks';
 import * as m033 from './20261204_033_mapping_audit';
+import * as m041 from './20261205_041_audit_import';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -33,6 +34,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261204_031_mapping_versions': m031,
   '20261204_032_mapping_locks': m032,
   '20261204_033_mapping_audit': m033,
+  '20261205_041_audit_import': m041,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -6,14 +6,14 @@ import type { DraftAccess } from '../mappings/mappings.routes';
 import { validate } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
-import { exportQuery, importBody, IMPORT_MAX_BYTES, type ExportQuery, type ImportBody } from '../../src/shared/exports';
+import { exportQuery, importBody, IMPORT_MAX_BYTES, type ExportQuery, type ImportBody, type ImportOutcome } from '../../src/shared/exports';
 import { authorizeMapping } from '../mappings/mapping-access';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { findMapping } from '../mappings/mappings.service';
 import { exportSource } from './export-source';
 import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
-import { importMapping } from './import.service';
+import { importMapping, planImport, previewOf } from './import.service';
 import { slug } from './render';
 
 const params = z.object({ id: idParam });
@@ -52,8 +52,11 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     async (req, res) => {
       const moleculeId = Number(req.params.id);
       await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
-      const id = await importMapping(ctx.db, moleculeId, req.body as ImportBody, requireUser(req).id);
-      res.status(201).json(await findMapping(ctx.db, id));
+      const body = req.body as ImportBody;
+      if (body.preview) return void res.json(previewOf(await planImport(ctx.db, moleculeId, body)));
+      const { id, plan } = await importMapping(ctx.db, moleculeId, body, requireUser(req).id);
+      const outcome: ImportOutcome = { correspondence: plan.correspondence, modified: plan.modified };
+      res.status(201).json({ ...(await findMapping(ctx.db, id)), import: outcome });
     },
   );
 }

@@ -1,10 +1,13 @@
-import { JSON_SCHEMA_PATH, versionContent } from '../../src/shared/exports';
+import { JSON_SCHEMA_PATH, versionContent, type ExportAtom, type ExportBond } from '../../src/shared/exports';
+import type { MappingBead, Topology } from '../../src/shared/chem';
 import type { ExportSource } from './export-source';
 
 // The JSON export (schema: public/schemas/beadloom-mapping-v1.json). `content` is exactly what
 // `sha256` covers: SHA-256 of the UTF-8 bytes of JSON.stringify(content), keys in the order written.
-// Atom numbers are 1-based, in the molecule's heavy-atom order. `evaluation` is the server's
-// evaluation of that state (topology bonds name bead ids) (null when it could not be evaluated).
+// Atom numbers are 1-based, in the molecule's heavy-atom order. `molecule.atoms` and `molecule.bonds`
+// are the molecule's graph (hydrogens folded into their atoms): an import places the beads by
+// matching it. `evaluation` is the server's evaluation of that state (null when it could not be
+// evaluated); its topology lists the CG terms as tuples of bead names.
 export function toJsonExport(s: ExportSource, exportedAt = new Date()) {
   const e = s.evaluation;
   return {
@@ -18,7 +21,8 @@ export function toJsonExport(s: ExportSource, exportedAt = new Date()) {
       canonicalSmiles: s.canonicalSmiles,
       formula: s.model.formula,
       heavyAtoms: s.model.atoms.length,
-      atoms: s.model.atoms.map((a) => ({ number: a.index + 1, element: a.element, charge: a.charge, hydrogens: a.hydrogens })),
+      atoms: s.model.atoms.map((a): ExportAtom => ({ number: a.index + 1, element: a.element, isotope: a.isotope, charge: a.charge, hydrogens: a.hydrogens })),
+      bonds: s.model.bonds.map((b): ExportBond => ({ a: b.a + 1, b: b.b + 1, order: b.order, aromatic: b.aromatic })),
     },
     content: versionContent(s.canonicalSmiles, s.draft),
     sha256: s.sha256,
@@ -37,9 +41,21 @@ export function toJsonExport(s: ExportSource, exportedAt = new Date()) {
             suggestedType: b.suggestedType,
             centre: b.centre,
           })),
-          topology: { bonds: e.topology.bonds, angles: e.topology.angles.length, dihedrals: e.topology.dihedrals.length },
+          topology: namedTopology(e.topology, s.draft.beads),
           checks: e.checks.map((c) => ({ code: c.code, severity: c.severity, message: c.message })),
         }
       : null,
   };
+}
+
+/**
+ * The CG terms with bead names instead of ids. A name two beads share is written "name (id)" so
+ * every tuple still says which beads it joins.
+ */
+export function namedTopology(t: Topology, beads: readonly MappingBead[]) {
+  const count = new Map<string, number>();
+  for (const b of beads) count.set(b.name, (count.get(b.name) ?? 0) + 1);
+  const label = new Map(beads.map((b) => [b.id, count.get(b.name)! > 1 ? `${b.name} (${b.id})` : b.name]));
+  const names = (ids: readonly string[]) => ids.map((id) => label.get(id) ?? id);
+  return { bonds: t.bonds.map(names), angles: t.angles.map(names), dihedrals: t.dihedrals.map(names), rings: t.rings.map(names) };
 }

@@ -76,17 +76,88 @@ const contentBead = z.strictObject({
   atoms: z.array(z.tuple([z.number().int().min(1, 'Atom numbers start at 1.'), z.number().gt(0).lte(1)])).min(1),
 });
 
+/** One heavy atom of the exported molecule (the JSON export's `molecule.atoms`). */
+export interface ExportAtom {
+  number: number;
+  element: string;
+  isotope: number | null;
+  charge: number;
+  hydrogens: number;
+}
+
+/** One bond of the exported molecule, between 1-based atom numbers (`molecule.bonds`). */
+export interface ExportBond {
+  a: number;
+  b: number;
+  /** Kekulé order (1, 2, 3; 0 for a metal/dative link); compare `aromatic` first. */
+  order: number;
+  aromatic: boolean;
+}
+
+const exportAtom = z.looseObject({
+  number: z.number().int().min(1),
+  element: z.string().min(1).max(3),
+  isotope: z.number().int().min(1).nullable().optional(),
+  charge: z.number().int(),
+  hydrogens: z.number().int().min(0),
+});
+const exportBond = z.strictObject({ a: z.number().int().min(1), b: z.number().int().min(1), order: z.number().int().min(0).max(4), aromatic: z.boolean() });
+
 /** What an import needs of a JSON export; anything else in the file is ignored. */
 export const importBody = z.looseObject({
   format: z.literal('beadloom-mapping', 'This is not a Beadloom mapping export (format must be "beadloom-mapping").'),
   formatVersion: z.literal(1, 'Only formatVersion 1 can be imported.'),
   mapping: z.looseObject({ name: z.string().trim().min(1).max(200), resolution: z.enum(['4:1', '3:1', '2:1']) }),
+  /** The exported molecule's atoms and bonds: the beads are placed by matching this structure. */
+  molecule: z.looseObject({ atoms: z.array(exportAtom).max(100_000), bonds: z.array(exportBond).max(200_000).optional() }).optional(),
   content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000) }),
   sha256: z.string().regex(/^[0-9a-f]{64}$/, 'sha256 is 64 lower-case hex digits.'),
   /** Name for the new mapping; defaults to the exported mapping's name. */
   name: z.string().trim().min(1).max(200).optional(),
+  /** Answer where the beads would go (ImportPreview) and write nothing. */
+  preview: z.boolean().optional(),
+  /** Import even though the content no longer matches its sha256 (edited by hand); the audit trail says so. */
+  allowModified: z.boolean().optional(),
 });
 export type ImportBody = z.infer<typeof importBody>;
+
+/** How the file's atoms were found on the target molecule. */
+export interface ImportCorrespondence {
+  /** 'structure': by graph matching of the file's atoms and bonds; 'atom-number': an older file without bonds whose atoms agree number by number. */
+  method: 'structure' | 'atom-number';
+  /** atoms[i] is the molecule's atom number for the file's atom number i + 1. */
+  atoms: number[];
+  /** How many atoms have another number on the molecule than in the file. */
+  renumbered: number;
+  /** More than one correspondence fits the structure (the molecule has symmetric atoms). */
+  symmetric: boolean;
+  /** When symmetric: whether another correspondence would put some bead on other atoms. */
+  choiceMatters: boolean;
+  /** Groups of the molecule's atom numbers that the structure cannot tell apart. */
+  equivalentAtoms: number[][];
+  /** A sentence on the symmetric choice taken, or null when there was none to make. */
+  choice: string | null;
+}
+
+/** A bead as it would land on the target molecule: atoms as [molecule atom number, weight]. */
+export type PlacedBead = ContentBead;
+
+/** `preview: true` answers 200 with this and writes nothing. */
+export interface ImportPreview {
+  preview: true;
+  /** The name the new mapping would get, and its resolution. */
+  mapping: { name: string; resolution: '4:1' | '3:1' | '2:1' };
+  /** The content no longer matches its sha256: the import needs `allowModified: true`. */
+  modified: boolean;
+  correspondence: ImportCorrespondence;
+  beads: PlacedBead[];
+}
+
+/** What the 201 of an import carries besides the new mapping's summary. */
+export interface ImportOutcome {
+  correspondence: ImportCorrespondence;
+  modified: boolean;
+}
 
 /** The download (or picture) URL of one state of a mapping. */
 export function exportUrl(mappingId: number, format: ExportFormat, version: VersionRef = 'draft', highlight: readonly number[] = []): string {

@@ -3,7 +3,7 @@ import { ErrorAlert } from '../../../components/ui/alert';
 import type { AuditAction } from '../../../shared/audit';
 import { useAudit } from '../api/get-audit';
 
-const VERB: Record<AuditAction, string> = { save: 'saved version', restore: 'restored version', lock: 'locked version', unlock: 'unlocked version' };
+const VERB: Record<AuditAction, string> = { save: 'saved version', restore: 'restored version', lock: 'locked version', unlock: 'unlocked version', import: 'imported the mapping' };
 
 /** The append-only trail of saves, restores, locks and unlocks, newest first. */
 export function AuditTrail({ mappingId }: { mappingId: number }) {
