@@ -12,8 +12,16 @@ export const CSV_COLUMNS = [
 const field = (v: string) => (/[",\r\n]|^#/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
 const num = (v: number | null | undefined, digits: number) => (typeof v === 'number' && Number.isFinite(v) ? v.toFixed(digits) : '');
 
-export function headerLines(s: ExportSource): string[] {
-  return [`Beadloom mapping table`, `mapping: ${s.mappingName}`, `molecule: ${s.moleculeName}`, `version: ${stateLabel(s)}${s.production ? ' (production)' : ''}`, `sha256: ${s.sha256}`];
+/** What each text export is, said in its first header line (docs/exports.md). */
+export const FILE_TITLES = {
+  csv: 'Beadloom mapping table: one row per bead (atoms, weights, mass, charge, logP, dG_OW, centre)',
+  pdb: 'Beadloom CG (coarse-grained) structure, one pseudo-atom per bead',
+  groups: 'Beadloom atom-to-bead groups: one line per bead, its atoms as 1-based numbers',
+} as const;
+
+/** The header lines every text export starts with: what the file is, then mapping, molecule, state and SHA-256. */
+export function headerLines(s: ExportSource, title: string): string[] {
+  return [title, `mapping: ${s.mappingName}`, `molecule: ${s.moleculeName}`, `version: ${stateLabel(s)}${s.production ? ' (production)' : ''}`, `sha256: ${s.sha256}`];
 }
 
 export function toCsv(s: ExportSource): string {
@@ -36,6 +44,6 @@ export function toCsv(s: ExportSource): string {
       num(e?.centre?.[2], 3),
     ];
   });
-  const comments = headerLines(s).map((l) => `# ${l.replace(/[\r\n]+/g, ' ')}`);
+  const comments = headerLines(s, FILE_TITLES.csv).map((l) => `# ${l.replace(/[\r\n]+/g, ' ')}`);
   return [...comments, CSV_COLUMNS.join(','), ...rows.map((r) => r.map(field).join(','))].join('\r\n') + '\r\n';
 }

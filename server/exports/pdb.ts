@@ -1,11 +1,13 @@
 import type { Vec3 } from '../../src/shared/chem';
 import type { ExportSource } from './export-source';
-import { headerLines } from './csv';
+import { FILE_TITLES, headerLines } from './csv';
 
 // The CG structure in the wwPDB format (Atomic Coordinate Entry Format v3.3): one HETATM pseudo-atom
 // per bead at its centre (residue CGM, chain A, residue 1), CONECT records for bead–bead bonds (both
-// directions, at most four partners a record), REMARK 1 lines naming the mapping, version and
-// SHA-256, and REMARK 2 lines giving each serial's full bead name (the atom-name field holds four
+// directions, at most four partners a record), REMARK 1 lines saying what the file is and naming the
+// mapping, version and the full SHA-256 (64 hex digits do not fit one 80-column line with their label,
+// so they are split over two lines "sha256 (1/2): <first 32>" and "sha256 (2/2): <last 32>"; join the
+// two halves to check it), and REMARK 2 lines giving each serial's full bead name (the atom-name field holds four
 // characters). Columns follow the format's fixed positions; every line is at most 80 characters.
 // Centres are the evaluation's 3D centres in Å; without 3D coordinates the file falls back to the
 // drawing's 2D layout (z = 0), and REMARK 1 says so.
@@ -36,7 +38,12 @@ export function toPdb(s: ExportSource): string {
   const { points, threeD } = centres(s);
   const lines: string[] = [];
   const remark = (n: number, text: string) => lines.push(`REMARK ${pad(n, 3)} ${text}`.slice(0, 80));
-  for (const l of headerLines(s)) remark(1, l.replace(/[\r\n]+/g, ' '));
+  for (const l of headerLines(s, FILE_TITLES.pdb)) {
+    if (l.startsWith('sha256: ')) {
+      remark(1, `sha256 (1/2): ${s.sha256.slice(0, 32)}`);
+      remark(1, `sha256 (2/2): ${s.sha256.slice(32)}`);
+    } else remark(1, l.replace(/[\r\n]+/g, ' '));
+  }
   remark(1, threeD ? 'centres: bead centres from 3D coordinates, angstrom' : 'centres: no 3D coordinates yet; 2D drawing layout at 1.5 A per bond, z = 0');
   const serial = new Map<string, number>();
   s.draft.beads.forEach((b, i) => {

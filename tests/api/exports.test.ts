@@ -70,6 +70,14 @@ describe('exports', () => {
     expect(text.split('\n').every((l: string) => l.length <= 80)).toBe(true);
     expect(text).toMatch(/^REMARK   1 mapping: Export test$/m);
     expect(text).toMatch(/^REMARK   1 version: v2 \(production\)$/m);
+    expect(text.split('\n')[0]).toBe('REMARK   1 Beadloom CG (coarse-grained) structure, one pseudo-atom per bead');
+    // The full SHA-256, split over two REMARK lines as docs/exports.md says: join the halves and
+    // check them with Node's crypto over the documented content (the JSON export's `content`).
+    const halves = [...text.matchAll(/^REMARK   1 sha256 \((\d)\/2\): ([0-9a-f]{32})$/gm)].map((m) => [m[1], m[2]]);
+    expect(halves.map(([k]) => k)).toEqual(['1', '2']);
+    const sha = halves.map(([, h]) => h).join('');
+    const json = JSON.parse((await get('json').expect(200)).body.toString('utf8'));
+    expect(createHash('sha256').update(JSON.stringify(json.content), 'utf8').digest('hex')).toBe(sha);
     // 3Dmol.js's parsers only need a few browser globals to load in Node.
     const g = globalThis as Record<string, unknown>;
     g.window ??= globalThis;
@@ -92,6 +100,9 @@ describe('exports', () => {
     const v = (await student.get(`/api/mappings/${mappingId}/versions/2`).expect(200)).body;
     const groups = (await get('groups').expect(200)).body.toString('utf8');
     expect(groups.split('\n').filter((l: string) => l && !l.startsWith('#'))).toEqual(['A 1 2', 'B 3 4']);
+    expect(groups.split('\n')[0]).toBe('# Beadloom atom-to-bead groups: one line per bead, its atoms as 1-based numbers');
+    const csvHead = (await get('csv').expect(200)).body.toString('utf8').split('\r\n')[0];
+    expect(csvHead).toMatch(/^# Beadloom mapping table: one row per bead/);
     expect(groups).toContain(v.sha256);
     const svg = (await get('svg').expect(200)).body.toString('utf8');
     expect(svg).toMatch(/^<svg xmlns="http:\/\/www.w3.org\/2000\/svg"/);
@@ -107,6 +118,12 @@ describe('exports', () => {
     expect(draft).toContain('# version: draft');
     const v1 = (await get('groups', '1').expect(200)).body.toString('utf8');
     expect(v1).toContain('# version: v1');
+    // A chosen, non-production version is that version's content: its own SHA-256 in the header.
+    const saved = (await student.get(`/api/mappings/${mappingId}/versions/1`).expect(200)).body;
+    expect(v1).toContain(`# sha256: ${saved.sha256}`);
+    const res = await get('json', '1').expect(200);
+    expect(res.headers['x-content-sha256']).toBe(saved.sha256);
+    expect(JSON.parse(res.body.toString('utf8')).mapping).toMatchObject({ version: 1, production: false });
   });
 
   it.each([
