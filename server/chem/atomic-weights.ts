@@ -55,6 +55,7 @@ export function atomicWeight(element: string): number {
 
 /** Mass of an atom: its isotope's mass when labelled, else the element's standard atomic weight. */
 export function atomMass(element: string, isotope: number | null): number {
+  if (element === '*') return 0; // an attachment point: where the next unit joins, no atom of its own
   if (isotope === null) return atomicWeight(element);
   const m = ISOTOPE_MASSES[`${isotope}${element}`];
   if (m === undefined) {

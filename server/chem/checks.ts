@@ -65,7 +65,7 @@ export function runChecks(x: CheckInput): Check[] {
     const holders = new Set<number>();
     for (const a of group) for (const b of x.beadsOf[a]) holders.add(b);
     if (holders.size > 1) {
-      add('split_charged_group', 'warning', `A charged group (atoms ${group.join(', ')}) is split over ${holders.size} beads.`, group, [...holders].map((b) => ids[b]), 'Put the whole charged group into one bead.');
+      add('split_charged_group', 'warning', `A charged group (atoms ${group.map((a) => a + 1).join(', ')}) is split over ${holders.size} beads.`, group, [...holders].map((b) => ids[b]), 'Put the whole charged group into one bead.');
     }
   }
   const rank = { error: 0, warning: 1, info: 2 } as const;

@@ -57,7 +57,7 @@ export async function generateConformer(molecule: Molecule, options: ConformerOp
     let h = members.length;
     members.forEach((a, i) => {
       heavy[a] = moved[i];
-      for (let k = 0; k < sub.atoms[i].hydrogens; k++) hydrogens[a].push(moved[h++]);
+      for (let k = 0; k < sub.atoms[i].hydrogens; k++, h++) if (!molecule.atoms[a].attachment) hydrogens[a].push(moved[h]);
     });
   }
   return [...heavy, ...hydrogens.flat()];
@@ -81,10 +81,17 @@ function conformerOf(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number, itera
   return readBack(sub, generated);
 }
 
+/**
+ * The atoms of one part. An attachment point is built as a methyl carbon: it then sits where the next
+ * unit's carbon would (C–C 1.53 Å, tetrahedral), and its three hydrogens are dropped on reading back.
+ */
 function subModel(molecule: Molecule, members: number[]): Pick<Molecule, 'atoms' | 'bonds'> {
   const local = new Map(members.map((a, i) => [a, i]));
   return {
-    atoms: members.map((a, i) => ({ ...molecule.atoms[a], index: i })),
+    atoms: members.map((a, i) => {
+      const atom = molecule.atoms[a];
+      return atom.attachment ? { ...atom, index: i, element: 'C', hydrogens: 3 } : { ...atom, index: i };
+    }),
     bonds: molecule.bonds.filter((b) => local.has(b.a)).map((b) => ({ ...b, a: local.get(b.a)!, b: local.get(b.b)! })),
   };
 }

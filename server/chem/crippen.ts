@@ -74,14 +74,18 @@ function group(rd: RDKit, rows: { type: string; logP: number; smarts: string }[]
 
 let heavyQueries: TypeQuery[] | null = null;
 let hydrogenQueries: TypeQuery[] | null = null;
+let ownHydrogenQueries: TypeQuery[] | null = null;
 
-function queries(rd: RDKit): { heavy: TypeQuery[]; hydrogen: TypeQuery[] } {
+function queries(rd: RDKit): { heavy: TypeQuery[]; hydrogen: TypeQuery[]; ownHydrogen: TypeQuery[] } {
   heavyQueries ??= group(rd, CRIPPEN_TYPES.filter((r) => !r.parentSmarts));
   hydrogenQueries ??= group(
     rd,
     CRIPPEN_TYPES.filter((r) => r.parentSmarts).map((r) => ({ type: r.type, logP: r.logP, smarts: r.parentSmarts! })),
   );
-  return { heavy: heavyQueries, hydrogen: hydrogenQueries };
+  // A hydrogen that is an atom of the model (H2, H+, H-, the H atom: no heavy atom to belong to) is
+  // typed by the H rows as written, on itself.
+  ownHydrogenQueries ??= group(rd, CRIPPEN_TYPES.filter((r) => r.parentSmarts));
+  return { heavy: heavyQueries, hydrogen: hydrogenQueries, ownHydrogen: ownHydrogenQueries };
 }
 
 export function typeAtoms(rd: RDKit, model: { atoms: Atom[]; bonds: Bond[] }): Typing {
@@ -105,8 +109,13 @@ export function typeMolfile(rd: RDKit, molfile: string, atoms: Atom[]): Typing {
   }
   try {
     const z = checkSameAtoms(rd, mol, atoms);
-    const { heavy, hydrogen } = queries(rd);
-    const own = firstMatches(rd, mol, heavy, z, atoms.map(() => true));
+    const { heavy, hydrogen, ownHydrogen } = queries(rd);
+    const own = firstMatches(rd, mol, heavy, z, atoms.map((a) => a.element !== 'H'));
+    if (atoms.some((a) => a.element === 'H')) {
+      firstMatches(rd, mol, ownHydrogen, z, atoms.map((a) => a.element === 'H')).forEach((q, i) => {
+        if (atoms[i].element === 'H') own[i] = q;
+      });
+    }
     const hType = firstMatches(rd, mol, hydrogen, z, atoms.map((a) => a.hydrogens > 0));
     return collect(atoms, own, hType);
   } finally {
@@ -163,7 +172,8 @@ function checkSameAtoms(rd: RDKit, mol: RDKitMol, atoms: Atom[]): number[] {
     if (at.length !== expected || at.some((i) => !ours(i))) throw new Error(`RDKit's atoms for ${smarts} are not ours`);
   };
   for (const el of new Set(z)) same(`[#${el}]`, (i) => z[i] === el);
-  for (const h of new Set(atoms.map((a) => a.hydrogens))) same(`[H${h}]`, (i) => atoms[i].hydrogens === h);
+  // A hydrogen atom of the model (H2) counts its bonded hydrogen in SMARTS `H`; only others are compared.
+  for (const h of new Set(atoms.map((a) => a.hydrogens))) same(`[!#1;H${h}]`, (i) => atoms[i].element !== 'H' && atoms[i].hydrogens === h);
   return z;
 }
 
@@ -172,7 +182,7 @@ function collect(atoms: Atom[], own: (TypeQuery | null)[], hType: (TypeQuery | n
   const atomTypes = atoms.map((_, i) => own[i]?.type ?? '');
   const untyped = new Set<string>();
   atoms.forEach((a, i) => {
-    if (!own[i]) untyped.add(a.element);
+    if (!own[i] && !a.attachment) untyped.add(a.element);
   });
   let logP = 0;
   for (const v of atomLogP) logP += v;

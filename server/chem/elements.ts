@@ -6,7 +6,9 @@ const SYMBOLS =
 
 const Z_OF = new Map(SYMBOLS.map((s, i) => [s, i + 1]));
 
+/** Atomic number; 0 for an attachment point '*' (RDKit's dummy atom). */
 export function atomicNumber(symbol: string): number {
+  if (symbol === '*') return 0;
   const z = Z_OF.get(symbol);
   if (z === undefined) throw new ChemError('unsupported_atom', `${symbol} is not a chemical element.`, { element: symbol });
   return z;

@@ -2,7 +2,7 @@
  * Molecular formula in Hill order: C first, then H, then the other symbols alphabetically; without
  * carbon, all symbols alphabetically. Isotope-labelled atoms are written as their own symbol right after
  * their element ([13C] after C, D and T after H). A net charge follows after a space: "C2H3O2 -",
- * "O4S 2-", "H4N +".
+ * "O4S 2-", "H4N +". Attachment points (`*`) are left out: a repeat unit's formula is its own atoms'.
  */
 import type { Atom } from '../../src/shared/chem';
 
@@ -30,6 +30,7 @@ export function hillFormula(atoms: Atom[]): string {
   };
   let charge = 0;
   for (const a of atoms) {
+    if (a.attachment) continue; // an attachment point is not part of the formula
     add(a.element, a.isotope, 1);
     add('H', null, a.hydrogens - a.hydrogenIsotopes.length);
     for (const iso of a.hydrogenIsotopes) add('H', iso, 1);

@@ -7,6 +7,8 @@
  * atom. Per-atom 3D data lists the heavy atoms in index order, then the hydrogens grouped by parent in
  * parent order, unlabelled first. openchemlib itself drops explicit [H] from SMILES and may reorder the
  * heavy atoms when it does, so the model's order, not the input string's, is the contract.
+ * An attachment point (`*` of a repeat unit or end group) is an atom of its own kind: element '*',
+ * `attachment: true`, no hydrogens, no mass; it keeps its place in the order.
  */
 import type { Atom, Bond } from '../../src/shared/chem';
 import type { OclMolecule } from './parse';
@@ -21,7 +23,7 @@ export interface CanonicalModel {
   foldedExplicitH: number;
 }
 
-export function buildModel(mol: OclMolecule, threeD: boolean): CanonicalModel {
+export function buildModel(mol: OclMolecule, threeD: boolean, attachments: ReadonlySet<number> = new Set()): CanonicalModel {
   const n = mol.getAllAtoms();
   const parentOf = new Int32Array(n).fill(-1);
   for (let i = 0; i < n; i++) {
@@ -37,6 +39,10 @@ export function buildModel(mol: OclMolecule, threeD: boolean): CanonicalModel {
   for (let i = 0; i < n; i++) if (parentOf[i] >= 0) explicitH[modelIndex[parentOf[i]]].push(i);
 
   const atoms: Atom[] = oclIndex.map((o, index) => {
+    if (attachments.has(o)) {
+      // An attachment point (`*`, parse.ts): no hydrogens, charge or mass of its own.
+      return { index, element: '*', attachment: true, isotope: null, charge: 0, aromatic: false, hydrogens: 0, hydrogenIsotopes: [], radical: 0, x: round(mol.getAtomX(o)), y: round(-mol.getAtomY(o)) };
+    }
     const folded = explicitH[index];
     const labelled = folded.map((h) => mol.getAtomMass(h)).filter((m) => m > 0);
     return {

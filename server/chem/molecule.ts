@@ -3,7 +3,7 @@
  * logP per atom). Parsing and the atom order are openchemlib's (parse.ts, model.ts); masses are ours
  * (masses.ts); typing is RDKit SMARTS matching on a molfile written from the model (crippen.ts).
  */
-import type { Molecule } from '../../src/shared/chem';
+import { isHeavyAtom, type Atom, type Bond, type Molecule, type MoleculeComponent } from '../../src/shared/chem';
 import { typeAtoms } from './crippen';
 import { hillFormula } from './formula';
 import { componentsOf } from './graph';
@@ -15,9 +15,9 @@ import { loadRdkit } from './rdkit';
 
 export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
   const rd = await loadRdkit();
-  const { mol, source, declared3D, warnings } = parseInput(input);
+  const { mol, source, declared3D, warnings, attachments } = parseInput(input);
   const threeD = source === 'molfile' && (declared3D || hasDepth(mol));
-  const model = buildModel(mol, threeD);
+  const model = buildModel(mol, threeD, attachments);
   const { atoms, bonds } = model;
   const molecularWeightValue = molecularWeight(atoms);
   // A SMILES has no coordinates and a 3D molfile's are not a drawing: lay out 2D for those; a 2D
@@ -33,28 +33,45 @@ export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
   if (model.foldedExplicitH > 0) {
     warnings.push(`${model.foldedExplicitH} explicit hydrogen atom(s) were folded into their heavy atoms.`);
   }
-  const components = componentsOf(atoms.length, bonds).length;
-  if (components > 1) warnings.push(`The structure has ${components} disconnected parts (a salt or mixture).`);
+  const components = componentList(atoms, bonds);
+  if (components.length > 1) warnings.push(`The structure has ${components.length} disconnected parts (a salt or mixture).`);
   for (const a of atoms) {
-    if (a.radical > 0) warnings.push(`Atom ${a.index} (${a.element}) carries ${a.radical} unpaired electron(s).`);
+    if (a.radical > 0) warnings.push(`Atom ${a.index + 1} (${a.element}) carries ${a.radical} unpaired electron(s).`);
   }
   const typing = typeAtoms(rd, model);
   for (const el of typing.untypedElements) {
     warnings.push(`Wildman–Crippen has no atom type for ${el}; its logP contribution is taken as 0.`);
   }
+  const attachmentPoints = atoms.filter((a) => a.attachment).map((a) => a.index);
   return {
     atoms,
     bonds,
     formula: hillFormula(atoms),
     molecularWeight: molecularWeightValue,
     netCharge: atoms.reduce((q, a) => q + a.charge, 0),
-    canonicalSmiles: mol.toIsomericSmiles(),
+    canonicalSmiles: mol.toIsomericSmiles().replace(/\[Rf\]/g, '*'),
     logP: typing.logP,
     atomLogP: typing.atomLogP,
     atomTypes: typing.atomTypes,
     coordinates: model.coordinates3d,
     warnings,
+    heavyAtoms: atoms.filter(isHeavyAtom).length,
+    attachmentPoints,
+    repeatUnit: attachmentPoints.length > 0,
+    components,
   };
+}
+
+/**
+ * The disconnected parts. A free ion is a part of one atom (with its hydrogens, so NH4+ and H3O+
+ * count) that carries a charge: in a CG model it is a bead of its own and nothing to merge with.
+ */
+function componentList(atoms: Atom[], bonds: Bond[]): MoleculeComponent[] {
+  return componentsOf(atoms.length, bonds).map((members) => {
+    const own = members.map((i) => atoms[i]);
+    const charge = own.reduce((q, a) => q + a.charge, 0);
+    return { atoms: members, formula: hillFormula(own), charge, freeIon: members.length === 1 && charge !== 0 && !own[0].attachment };
+  });
 }
 
 function hasDepth(mol: OclMolecule): boolean {

@@ -8,6 +8,16 @@
  */
 import { Molecule } from 'openchemlib';
 import { ChemError, LIMITS } from './errors';
+import { kekulizeWithRdkit } from './rdkit-kekule';
+import { checkSmilesText } from './smiles-text';
+
+/**
+ * openchemlib reads `*` as a query atom and then drops every implicit hydrogen of the molecule, so an
+ * attachment point is handed to it as a placeholder element instead: rutherfordium, which no molecule
+ * Beadloom models contains (it has no standard atomic weight and is refused as input) and to which
+ * openchemlib gives a valence of up to 6 and no implicit hydrogens. model.ts turns it into `*`.
+ */
+export const ATTACHMENT_PLACEHOLDER = 104;
 
 export type OclMolecule = Molecule;
 
@@ -18,6 +28,8 @@ export interface ParsedInput {
   source: 'smiles' | 'molfile';
   /** The molfile header declares 3D coordinates (columns 21–22 of line 2). */
   declared3D: boolean;
+  /** openchemlib atoms that stand for attachment points (`*`). */
+  attachments: Set<number>;
   warnings: string[];
 }
 
@@ -38,29 +50,47 @@ function parseSmiles(raw: string): ParsedInput {
       413,
     );
   }
-  if (/\s/.test(smiles)) {
-    throw new ChemError('unparseable_smiles', 'The SMILES string contains white space.', {
-      position: smiles.search(/\s/),
-    });
-  }
+  const text = checkSmilesText(smiles);
+  const oclText = text.attachments.length ? withPlaceholders(smiles) : smiles;
   let mol: OclMolecule;
+  const warnings: string[] = [];
   try {
     // Coordinates are laid out once, later, on the folded model (ocl-build.ts): openchemlib's default
     // SMILES parse lays them out twice, which dominates parse time for large molecules.
-    mol = Molecule.fromSmiles(smiles, { noCoordinates: true });
+    mol = Molecule.fromSmiles(oclText, { noCoordinates: true });
+    checkParsed(mol, 'smiles', text.aromatic);
   } catch (err) {
-    throw smilesError(err);
+    // openchemlib cannot kekulize some aromatic systems (porphyrins, corroles) and does not know
+    // aromatic Te; RDKit's kekulization is tried before giving up (rdkit-kekule.ts).
+    const kekulizable = text.aromatic && (!(err instanceof ChemError) || err.code === 'kekulization_failed');
+    if (!kekulizable) throw err instanceof ChemError ? err : smilesError(err);
+    const kekule = kekulizeWithRdkit(oclText);
+    if (!kekule) throw err instanceof ChemError ? err : smilesError(err);
+    mol = Molecule.fromMolfile(kekule);
+    checkParsed(mol, 'smiles', false);
+    warnings.push('openchemlib could not read the aromatic system; RDKit assigned its alternating bonds (Kekulé structure) and that was read.');
   }
-  checkParsed(mol, 'smiles', hasAromaticAtoms(smiles));
-  return { mol, source: 'smiles', declared3D: false, warnings: [] };
+  return { mol, source: 'smiles', declared3D: false, warnings, attachments: placeholderAtoms(mol) };
+}
+
+/** `*`, `[*]`, `[1*]`, `[*:2]` → `[Rf]` (see ATTACHMENT_PLACEHOLDER). */
+function withPlaceholders(smiles: string): string {
+  return smiles.replace(/\[\d*\*(?::\d+)?\]|\*/g, '[Rf]');
+}
+
+function placeholderAtoms(mol: OclMolecule): Set<number> {
+  const out = new Set<number>();
+  for (let i = 0; i < mol.getAllAtoms(); i++) if (mol.getAtomicNo(i) === ATTACHMENT_PLACEHOLDER) out.add(i);
+  return out;
 }
 
 function smilesError(err: unknown): ChemError {
   const text = err instanceof Error ? err.message : String(err);
   const reason = text.replace(/^.*SmilesParser:\s*/, '').replace(/[;.]?\s*position:\s*\d+\s*$/i, '');
   const pos = /position:\s*(\d+)/i.exec(text);
-  const position = pos ? Number(pos[1]) : null;
-  const where = position === null ? '' : ` at position ${position}`;
+  // openchemlib counts from 0; Beadloom's messages count characters from 1.
+  const position = pos ? Number(pos[1]) + 1 : null;
+  const where = position === null ? '' : ` at character ${position}`;
   return new ChemError('unparseable_smiles', `The SMILES could not be read${where}: ${reason}.`, {
     reason,
     position,
@@ -91,7 +121,7 @@ function parseMolfileText(raw: string): ParsedInput {
   }
   checkParsed(mol, 'molfile', false);
   const declared3D = (text.split('\n')[1] ?? '').slice(20, 22) === '3D';
-  return { mol, source: 'molfile', declared3D, warnings };
+  return { mol, source: 'molfile', declared3D, warnings, attachments: new Set() };
 }
 
 const ATOM_LINE = /^\s*-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+[A-Za-z*#][A-Za-z0-9]*/;
@@ -158,11 +188,6 @@ function checkV3000(lines: string[], countsAt: number): void {
   }
 }
 
-/** Outside brackets, lowercase letters are aromatic atoms (after removing Cl and Br). */
-function hasAromaticAtoms(smiles: string): boolean {
-  return /[bcnops]/.test(smiles.replace(/\[[^\]]*\]/g, '').replace(/Cl|Br/g, ''));
-}
-
 function checkParsed(mol: OclMolecule, source: 'smiles' | 'molfile', aromaticInput: boolean): void {
   mol.ensureHelperArrays(Molecule.cHelperRings);
   const n = mol.getAllAtoms();
@@ -179,23 +204,28 @@ function checkParsed(mol: OclMolecule, source: 'smiles' | 'molfile', aromaticInp
   }
   for (let i = 0; i < n; i++) {
     const atomicNo = mol.getAtomicNo(i);
-    if (atomicNo === 0 || atomicNo > 118) {
-      throw new ChemError('unsupported_atom', `Atom ${i} (${mol.getAtomLabel(i)}) is not a chemical element.`, { atom: i });
+    const label = `Atom ${i + 1} (${mol.getAtomLabel(i)})`;
+    if (atomicNo === ATTACHMENT_PLACEHOLDER && source === 'smiles') continue;
+    if (atomicNo === 0 || atomicNo > 118 || atomicNo === ATTACHMENT_PLACEHOLDER) {
+      throw new ChemError('unsupported_atom', `${label} is not a chemical element Beadloom can weigh.`, { atom: i + 1 });
+    }
+    if (atomicNo === 1 && mol.getAllConnAtoms(i) > 1) {
+      throw new ChemError('bridging_hydrogen', `${label} is bonded to ${mol.getAllConnAtoms(i)} atoms; a hydrogen bridging two atoms (as in boranes) has no place in Beadloom's model, where each hydrogen belongs to one heavy atom.`, { atom: i + 1 });
     }
     const used = mol.getOccupiedValence(i) + mol.getImplicitHydrogens(i);
     if (used > mol.getMaxValence(i)) {
       throw new ChemError(
         'valence_error',
-        `Atom ${i} (${mol.getAtomLabel(i)}) has ${used} bonds' worth of valence; at most ${mol.getMaxValence(i)} are allowed with charge ${mol.getAtomCharge(i)}.`,
-        { atom: i, element: mol.getAtomLabel(i), valence: used, max: mol.getMaxValence(i) },
+        `${label} has ${used} bonds' worth of valence; at most ${mol.getMaxValence(i)} are allowed with charge ${mol.getAtomCharge(i)}.`,
+        { atom: i + 1, element: mol.getAtomLabel(i), valence: used, max: mol.getMaxValence(i) },
       );
     }
     // openchemlib gives up on an aromatic system it cannot kekulize by making one ring atom a radical.
     if (aromaticInput && mol.getAtomRadical(i) !== 0 && mol.isRingAtom(i)) {
       throw new ChemError(
         'kekulization_failed',
-        `The aromatic ring around atom ${i} (${mol.getAtomLabel(i)}) cannot be written with alternating bonds; a pyrrole-type nitrogen may need to be written [nH].`,
-        { atom: i, element: mol.getAtomLabel(i) },
+        `The aromatic ring around atom ${i + 1} (${mol.getAtomLabel(i)}) cannot be written with alternating single and double bonds (neither openchemlib nor RDKit finds a Kekulé structure): check that every pyrrole-type nitrogen that carries a hydrogen is written [nH] and that the ring's atom count and charges allow an aromatic system, or give the Kekulé form.`,
+        { atom: i + 1, element: mol.getAtomLabel(i) },
       );
     }
   }

@@ -3,7 +3,7 @@
  * molecule object: unit masses, hydrogen masses, where each atom's hydrogens sit in a coordinate list,
  * and the bond graph as adjacency arrays.
  */
-import type { Molecule } from '../../src/shared/chem';
+import { isHeavyAtom, type Molecule } from '../../src/shared/chem';
 import { atomMass } from './atomic-weights';
 import { hydrogenMasses } from './masses';
 
@@ -49,7 +49,7 @@ export function prepare(molecule: Molecule): Prepared {
     }
     next += a.hydrogens;
     unitMass[i] = m;
-    heavy[i] = a.element === 'H' ? 0 : 1;
+    heavy[i] = isHeavyAtom(a) ? 1 : 0;
   });
   const degree = new Int32Array(n + 1);
   for (const b of bonds) {

@@ -28,13 +28,13 @@ export function validateMapping(mapping: Mapping, atomCount: number): void {
         throw new ChemError('bad_atom_index', `Bead "${bead.id}" lists atom index ${index}; indices are whole numbers from 0.`, { beadId: bead.id, bead: b, entry: k, index });
       }
       if (index >= atomCount) {
-        throw new ChemError('atom_index_out_of_range', `Bead "${bead.id}" lists atom ${index}, but the molecule has atoms 0 to ${atomCount - 1}.`, { beadId: bead.id, index, atomCount });
+        throw new ChemError('atom_index_out_of_range', `Bead "${bead.id}" lists atom ${index + 1} (index ${index}), but the molecule has atoms 1 to ${atomCount} (indices 0 to ${atomCount - 1}).`, { beadId: bead.id, index, atomCount });
       }
       if (typeof weight !== 'number' || !Number.isFinite(weight) || weight <= 0 || weight > 1) {
-        throw new ChemError('bad_weight', `Bead "${bead.id}" gives atom ${index} weight ${weight}; a weight must be above 0 and at most 1.`, { beadId: bead.id, index, weight });
+        throw new ChemError('bad_weight', `Bead "${bead.id}" gives atom ${index + 1} weight ${weight}; a weight must be above 0 and at most 1.`, { beadId: bead.id, index, weight });
       }
       if (seen.has(index)) {
-        throw new ChemError('duplicate_atom_in_bead', `Bead "${bead.id}" lists atom ${index} twice.`, { beadId: bead.id, index });
+        throw new ChemError('duplicate_atom_in_bead', `Bead "${bead.id}" lists atom ${index + 1} twice.`, { beadId: bead.id, index });
       }
       seen.add(index);
     });

@@ -25,7 +25,7 @@ export async function backfillModels(db: Db, log: Logger): Promise<number> {
         formula: model.formula,
         molecular_weight: model.molecularWeight,
         log_p: model.logP,
-        heavy_atoms: model.atoms.length,
+        heavy_atoms: model.heavyAtoms ?? model.atoms.length,
         net_charge: model.netCharge,
         model: JSON.stringify(model),
         conformer_status: 'queued',

@@ -33,7 +33,7 @@ export async function insertMolecule(db: Db, m: NewMolecule): Promise<number> {
     formula: m.model.formula,
     molecular_weight: m.model.molecularWeight,
     log_p: m.model.logP,
-    heavy_atoms: m.model.atoms.length,
+    heavy_atoms: m.model.heavyAtoms ?? m.model.atoms.length,
     net_charge: m.model.netCharge,
     model: JSON.stringify(m.model),
     xyz: hasXyz ? JSON.stringify(m.model.coordinates) : null,

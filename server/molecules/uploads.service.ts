@@ -58,9 +58,9 @@ export function firstMismatch(molecule: Molecule, file: Molecule): { message: st
     if (!a || !b) {
       return { message: `The file has ${file.atoms.length} heavy atoms; the molecule has ${molecule.atoms.length}.`, details: { atom: i, expected: a?.element ?? null, found: b?.element ?? null } };
     }
-    if (a.element !== b.element) return { message: `Atom ${i} is ${a.element} in the molecule but ${b.element} in the file.`, details: { atom: i, expected: a.element, found: b.element } };
+    if (a.element !== b.element) return { message: `Atom ${i + 1} is ${a.element} in the molecule but ${b.element} in the file.`, details: { atom: i, expected: a.element, found: b.element } };
     if (a.hydrogens !== b.hydrogens) {
-      return { message: `Atom ${i} (${a.element}) carries ${a.hydrogens} hydrogen(s) in the molecule but ${b.hydrogens} in the file.`, details: { atom: i, expected: a.hydrogens, found: b.hydrogens } };
+      return { message: `Atom ${i + 1} (${a.element}) carries ${a.hydrogens} hydrogen(s) in the molecule but ${b.hydrogens} in the file.`, details: { atom: i, expected: a.hydrogens, found: b.hydrogens } };
     }
   }
   return null;

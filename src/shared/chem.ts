@@ -16,7 +16,13 @@ export type Vec3 = [number, number, number];
 
 export interface Atom {
   index: number;
+  /** Element symbol, or '*' for an attachment point (then `attachment` is true). */
   element: string;
+  /**
+   * An attachment point of a repeat unit or end group (`*` in the SMILES): where the next unit joins.
+   * Massless, no hydrogens, not a heavy atom; drawn as an attachment mark. Absent on other atoms.
+   */
+  attachment?: true;
   /** Mass number when the atom is isotope-labelled ([13C]), else null. */
   isotope: number | null;
   charge: number;
@@ -54,6 +60,27 @@ export interface Molecule {
   /** 3D coordinates (Å) in the contract's order when the input was a 3D molfile with every hydrogen. */
   coordinates: number[][] | null;
   warnings: string[];
+  /** Atoms other than hydrogens and attachment points (models stored before this field: atoms.length). */
+  heavyAtoms?: number;
+  /** Indices of the attachment points (`*`), in index order. */
+  attachmentPoints?: number[];
+  /** True when the molecule has attachment points: it is a repeat unit (or an end group) of a polymer. */
+  repeatUnit?: boolean;
+  /** The disconnected parts (a salt's ions, a mixture's molecules), in order of their first atom. */
+  components?: MoleculeComponent[];
+}
+
+export interface MoleculeComponent {
+  atoms: number[];
+  formula: string;
+  charge: number;
+  /** A single-atom ion (Na+, Cl-, Ca2+ …): its own bead, no size check, no merge advice. */
+  freeIon: boolean;
+}
+
+/** Whether an atom counts as a heavy atom (not a hydrogen, not an attachment point). */
+export function isHeavyAtom(atom: Pick<Atom, 'element'>): boolean {
+  return atom.element !== 'H' && atom.element !== '*';
 }
 
 export interface MappingAtom {

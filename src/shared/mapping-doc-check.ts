@@ -51,7 +51,7 @@ export function checkBead(id: string, value: unknown): DocProblem | null {
 export function checkAtom(key: string, value: unknown, atomCount: number): DocProblem | null {
   const path = `atoms.${key}`;
   if (!INDEX.test(key)) return problem('wrong_type', path, `Atom keys are atom indices written as decimal numbers; "${key}" is not.`);
-  if (Number(key) >= atomCount) return problem('atom_out_of_range', path, `Atom ${key} does not exist: the molecule has atoms 0 to ${atomCount - 1}.`);
+  if (Number(key) >= atomCount) return problem('atom_out_of_range', path, `Atom ${Number(key) + 1} (index ${key}) does not exist: the molecule has atoms 1 to ${atomCount}.`);
   if (value === undefined) return null; // deleted
   if (typeof value !== 'object' || value === null || Array.isArray(value) || value instanceof Uint8Array || value instanceof Y.AbstractType) {
     return problem('wrong_type', path, 'An atom entry is a plain object of bead id → weight.');

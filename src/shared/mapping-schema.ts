@@ -5,6 +5,7 @@
  * re-checks what only it can know (atom indices against the molecule, valences …).
  */
 import { z } from 'zod';
+import { refineSmilesCharacters } from './smiles-text';
 import { beadTypeRow } from './bead-types';
 import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX } from './mapping-doc';
 
@@ -47,7 +48,7 @@ export const evaluateOptionsSchema = z.strictObject({
   fragments: z.boolean().optional(),
 });
 
-const smiles = z.string('SMILES is text.').trim().min(1, 'The SMILES string is empty.').max(SMILES_MAX, `A SMILES string has at most ${SMILES_MAX} characters.`);
+const smiles = z.string('SMILES is text.').trim().min(1, 'The SMILES string is empty.').max(SMILES_MAX, `A SMILES string has at most ${SMILES_MAX} characters.`).superRefine(refineSmilesCharacters);
 const molfile = z.string('A molfile is text.').min(1, 'The molfile is empty.').max(MOLFILE_MAX, `A molfile has at most ${MOLFILE_MAX} characters.`);
 
 export const moleculeBodySchema = z.union([z.strictObject({ smiles }), z.strictObject({ molfile })], 'Send either { smiles } or { molfile }.');

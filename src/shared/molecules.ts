@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { NAME_MAX } from './fields';
 import type { Molecule } from './chem';
+import { refineSmilesCharacters } from './smiles-text';
 
 // Molecules of a project: create from SMILES or molfile text, upload molfile/SDF files, list, edit.
 
@@ -17,11 +18,19 @@ const notes = z.string().trim().max(NOTES_MAX, `Notes have at most ${NOTES_MAX} 
 const tag = z.string().trim().toLowerCase().min(1, 'A tag is not empty.').max(TAG_MAX, `A tag has at most ${TAG_MAX} characters.`);
 const tags = z.array(tag).max(TAGS_MAX, `At most ${TAGS_MAX} tags.`).transform((t) => [...new Set(t)]);
 
+/** A SMILES string: trimmed, within the length limit, printable ASCII only (the bad character's position is named). */
+export const smilesText = z
+  .string()
+  .trim()
+  .min(1, 'Enter a SMILES string.')
+  .max(SMILES_MAX, `A SMILES string has at most ${SMILES_MAX} characters.`)
+  .superRefine(refineSmilesCharacters);
+
 /** Exactly one of `smiles` and `molfile`. */
 export const createMoleculeBody = z
   .strictObject({
     name,
-    smiles: z.string().trim().min(1, 'Enter a SMILES string.').max(SMILES_MAX, `A SMILES string has at most ${SMILES_MAX} characters.`).optional(),
+    smiles: smilesText.optional(),
     molfile: z.string().min(1, 'Paste a molfile.').max(MOLFILE_MAX, `A molfile has at most ${MOLFILE_MAX} characters.`).optional(),
     notes: notes.optional(),
     tags: tags.optional(),

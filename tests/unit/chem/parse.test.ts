@@ -122,18 +122,20 @@ describe('bad input', () => {
   });
 
   it('reports where a SMILES cannot be read', async () => {
+    // Positions count characters from 1: the unclosed ring bond "1" is character 2.
     const e = await chemError(parseMolecule({ smiles: 'C1CC' }));
-    expect(e.code).toBe('unparseable_smiles');
+    expect(e.code).toBe('incomplete_smiles');
     expect(e.status).toBe(422);
-    expect(e.details.position).toBe(4);
-    expect(e.message).toMatch(/ring closure/);
+    expect(e.details.position).toBe(2);
+    expect(e.message).toMatch(/ring bond "1" opened here is never closed/);
     expect((await chemError(parseMolecule({ smiles: 'CXxC' }))).code).toBe('unparseable_smiles');
   });
 
   it('refuses over-full valences and unkekulizable rings', async () => {
     const e = await chemError(parseMolecule({ smiles: 'C(C)(C)(C)(C)C' }));
     expect(e.code).toBe('valence_error');
-    expect(e.details.atom).toBe(0);
+    expect(e.details.atom).toBe(1); // atom numbers in messages and details count from 1
+    expect(e.message).toMatch(/^Atom 1 \(C\)/);
     expect((await chemError(parseMolecule({ smiles: 'CN(C)(C)(C)C' }))).code).toBe('valence_error');
     expect((await chemError(parseMolecule({ smiles: 'n1cccc1' }))).code).toBe('kekulization_failed');
   });

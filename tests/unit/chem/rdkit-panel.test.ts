@@ -8,6 +8,7 @@ import { atomMass } from '../../../server/chem/atomic-weights';
 import { loadRdkit, parseMolecule, type Molecule } from '../../../server/chem/index';
 import type { RDKit } from '../../../server/chem/rdkit';
 import { PANEL } from './fixtures/rdkit-panel';
+import { rdkitReference } from './rdkit-reference';
 
 let rd: RDKit;
 beforeAll(async () => {
@@ -20,14 +21,7 @@ interface Reference {
 }
 
 function reference(smiles: string): Reference {
-  const mol = rd.get_mol(smiles);
-  if (!mol) throw new Error(`RDKit cannot read ${smiles}`);
-  try {
-    const d = JSON.parse(mol.get_descriptors()) as { CrippenClogP: number; amw: number };
-    return { clogp: d.CrippenClogP, amw: d.amw };
-  } finally {
-    mol.delete();
-  }
+  return rdkitReference(rd, smiles);
 }
 
 /** RDKit's own weight for an element or isotope, read from RDKit (a bare bracket atom has no hydrogens). */
