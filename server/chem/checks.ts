@@ -5,6 +5,7 @@
  */
 import type { Check, MappingBead, Molecule, Resolution } from '../../src/shared/chem';
 import { chargedGroups } from './charged-groups';
+import { isFreeIon } from './free-ions';
 import type { Prepared } from './prepared';
 import { RESOLUTION_LIMITS } from './resolution';
 
@@ -56,6 +57,7 @@ export function runChecks(x: CheckInput): Check[] {
     }
     const atoms = bead.atoms.map((a) => a.index);
     if (!connected(atoms, x.p, stamp, i)) add('disconnected_bead', 'warning', `The atoms of bead ${bead.name} are not connected to each other.`, atoms, [bead.id], 'A bead should be one connected piece; split it or add the linking atoms.');
+    if (atoms.every((a) => isFreeIon(x.molecule, x.p, a))) return; // a free ion is a bead of its own, whatever its size
     const h = x.heavyAtoms[i];
     if (h > limits.max + EPS) add('bead_too_large', 'warning', `Bead ${bead.name} has ${fmt(h)} heavy atoms; at ${x.resolution} a bead should have at most ${limits.max}.`, atoms, [bead.id], 'Split it into two beads.');
     else if (h < limits.min - EPS) add('bead_too_small', 'warning', `Bead ${bead.name} has ${fmt(h)} heavy atoms; at ${x.resolution} a bead should have at least ${limits.min}.`, atoms, [bead.id], 'Merge it with a neighbouring bead.');
