@@ -24,7 +24,7 @@ import type { AppContext } from '../context';
 import { applyChecked } from '../../src/shared/mapping-doc-check';
 import { docToMapping, mappingToDoc } from '../../src/shared/mapping-doc';
 import type { Mapping } from '../../src/shared/chem';
-import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage } from '../../src/shared/collab-protocol';
+import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_RESTORE, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage } from '../../src/shared/collab-protocol';
 import { loadEvaluationInputs, type EvaluationInputs, type EvaluationResult } from '../mappings/evaluation';
 import { RoomEvaluator } from './room-evaluator';
 import { touchMapping } from '../mappings/mappings.service';
@@ -187,23 +187,29 @@ export class Room {
 
   /**
    * Replaces the whole draft with `mapping` as ONE server-made Yjs transaction (a restore): stored in
-   * mapping_updates like any accepted update, applied, and sent to every peer at once. `guard` runs
-   * first on the room's queue and may refuse (throw) — e.g. when the mapping got locked meanwhile.
+   * mapping_updates like any accepted update, applied, and sent to every peer at once. `around` runs on
+   * the room's queue with the draft as it is just before, and must call `replace()` (or throw to
+   * refuse, e.g. when the mapping got locked meanwhile) — the restore service wraps it in its MariaDB
+   * transaction. The connection that announced awareness client `undoFor` gets the update as a restore
+   * frame instead of a sync update, so its editor can make it one undoable step.
    */
-  replaceDraft(mapping: Mapping, userId: number, guard?: () => Promise<void>): Promise<void> {
+  replaceDraft(mapping: Mapping, userId: number, around?: (current: Mapping, replace: () => Promise<void>) => Promise<void>, undoFor?: number): Promise<void> {
     return this.serial(async () => {
-      await guard?.();
-      const next = copyOf(this.doc);
-      mappingToDoc(next, mapping);
-      const update = Y.encodeStateAsUpdate(next, Y.encodeStateVector(this.doc));
-      next.destroy();
-      this.lastUpdateId = await this.log.append(this.id, [{ userId, data: update }]);
-      this.uncompacted += 1;
-      Y.applyUpdate(this.doc, update, 'server');
-      Y.applyUpdate(this.shadow, update);
-      const frame = syncUpdateFrame(update);
-      for (const p of this.peers) p.send(frame);
-      this.scheduleEvaluation();
+      const replace = async () => {
+        const next = copyOf(this.doc);
+        mappingToDoc(next, mapping);
+        const update = Y.encodeStateAsUpdate(next, Y.encodeStateVector(this.doc));
+        next.destroy();
+        this.lastUpdateId = await this.log.append(this.id, [{ userId, data: update }]);
+        this.uncompacted += 1;
+        Y.applyUpdate(this.doc, update, 'server');
+        Y.applyUpdate(this.shadow, update);
+        const frame = syncUpdateFrame(update);
+        for (const p of this.peers) p.send(undoFor !== undefined && p.userId === userId && p.controlled.has(undoFor) ? restoreFrame(update) : frame);
+        this.scheduleEvaluation();
+      };
+      if (around) await around(this.draft(), replace);
+      else await replace();
     });
   }
 
@@ -347,6 +353,13 @@ export function syncUpdateFrame(update: Uint8Array): Uint8Array {
   const e = encoding.createEncoder();
   encoding.writeVarUint(e, MESSAGE_SYNC);
   encoding.writeVarUint(e, messageYjsUpdate);
+  encoding.writeVarUint8Array(e, update);
+  return encoding.toUint8Array(e);
+}
+
+export function restoreFrame(update: Uint8Array): Uint8Array {
+  const e = encoding.createEncoder();
+  encoding.writeVarUint(e, MESSAGE_RESTORE);
   encoding.writeVarUint8Array(e, update);
   return encoding.toUint8Array(e);
 }

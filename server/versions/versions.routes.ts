@@ -5,7 +5,7 @@ import type { Collab } from '../collab/collab-server';
 import { validate } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
-import { compareQuery, saveVersionBody, versionNumber, type SaveVersionBody } from '../../src/shared/versions';
+import { compareQuery, restoreBody, saveVersionBody, versionNumber, type RestoreBody, type RestoreResponse, type SaveVersionBody } from '../../src/shared/versions';
 import { authorizeMapping } from '../mappings/mapping-access';
 import { getVersion, listVersions, saveVersion } from './versions.service';
 import { restoreVersion } from './restore';
@@ -43,12 +43,12 @@ export function versionRoutes(r: RouteTable, ctx: AppContext, collab: Collab): v
     res.json(version);
   });
 
-  r.post('/api/mappings/:id/versions/:n/restore', validate({ params: versionParams }), async (req, res) => {
+  r.post('/api/mappings/:id/versions/:n/restore', validate({ params: versionParams, body: restoreBody }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeMapping(ctx.db, req, id, 'version:restore');
-    await restoreVersion(ctx.db, collab.rooms, id, Number(req.params.n), requireUser(req).id);
+    const result = await restoreVersion(ctx.db, collab.rooms, id, Number(req.params.n), requireUser(req).id, (req.body as RestoreBody).clientId);
     const { draft } = await collab.read(id);
-    res.json({ restored: Number(req.params.n), draft });
+    res.json({ ...result, draft } satisfies RestoreResponse);
   });
 
   r.get('/api/mappings/:id/compare', validate({ params, query: compareQuery }), async (req, res) => {

@@ -2,6 +2,7 @@ import type { Db } from '../db/knex';
 import type { Evaluation, Mapping, Resolution } from '../../src/shared/chem';
 import type { VersionDetail, VersionSummary } from '../../src/shared/versions';
 import type { DraftAccess } from '../mappings/mappings.routes';
+import type { EvaluationResult } from '../mappings/evaluation';
 import { conflict, notFound } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
 import { contentSha256 } from '../exports/content-hash';
@@ -70,34 +71,46 @@ export async function getVersion(db: Db, mappingId: number, number: number): Pro
 
 export async function saveVersion(db: Db, drafts: DraftAccess, mappingId: number, authorId: number, message: string): Promise<VersionSummary> {
   const { draft, result } = await drafts.read(mappingId);
-  const number = await db.transaction(async (trx) => {
-    const mapping = await trx('mappings as p')
-      .join('molecules as m', 'm.id', 'p.molecule_id')
-      .where('p.id', mappingId)
-      .forUpdate()
-      .first('p.resolution', 'm.canonical_smiles');
-    if (!mapping) throw notFound('That mapping');
-    const last = await trx('mapping_versions').where({ mapping_id: mappingId }).max({ n: 'number' }).first();
-    const next = Number(last?.n ?? 0) + 1;
-    await trx('mapping_versions').insert({
-      mapping_id: mappingId,
-      number: next,
-      message,
-      author_id: authorId,
-      draft: JSON.stringify(draft),
-      evaluation: result.evaluation ? JSON.stringify(result.evaluation) : null,
-      evaluation_error: result.error?.message ?? null,
-      canonical_smiles: mapping.canonical_smiles,
-      resolution: result.evaluation?.resolution ?? mapping.resolution,
-      content_sha256: contentSha256(mapping.canonical_smiles, draft),
-    }).catch((err: { code?: string }) => {
-      // The row lock makes this unreachable in practice; the unique key is the last word.
-      if (err.code === 'ER_DUP_ENTRY') throw conflict('version_conflict', 'Another save took that version number; save again.');
-      throw err;
-    });
-    await appendAudit(trx, { mappingId, action: 'save', actorId: authorId, version: next, reason: message });
-    return next;
-  });
+  const number = await db.transaction((trx) => insertVersion(trx, mappingId, authorId, message, draft, result));
   const saved = await select(db).where({ 'v.mapping_id': mappingId, 'v.number': number }).first();
   return toSummary(saved);
+}
+
+/**
+ * Numbers and stores `draft` as the mapping's next version inside the caller's transaction (which
+ * this makes hold the mapping's row lock, so concurrent saves queue and take 1, 2, 3… in turn).
+ */
+export async function insertVersion(trx: Db, mappingId: number, authorId: number, message: string, draft: Mapping, result: EvaluationResult): Promise<number> {
+  const mapping = await trx('mappings as p')
+    .join('molecules as m', 'm.id', 'p.molecule_id')
+    .where('p.id', mappingId)
+    .forUpdate()
+    .first('p.resolution', 'm.canonical_smiles');
+  if (!mapping) throw notFound('That mapping');
+  const last = await trx('mapping_versions').where({ mapping_id: mappingId }).max({ n: 'number' }).first();
+  const next = Number(last?.n ?? 0) + 1;
+  await trx('mapping_versions').insert({
+    mapping_id: mappingId,
+    number: next,
+    message,
+    author_id: authorId,
+    draft: JSON.stringify(draft),
+    evaluation: result.evaluation ? JSON.stringify(result.evaluation) : null,
+    evaluation_error: result.error?.message ?? null,
+    canonical_smiles: mapping.canonical_smiles,
+    resolution: result.evaluation?.resolution ?? mapping.resolution,
+    content_sha256: contentSha256(mapping.canonical_smiles, draft),
+  }).catch((err: { code?: string }) => {
+    // The row lock makes this unreachable in practice; the unique key is the last word.
+    if (err.code === 'ER_DUP_ENTRY') throw conflict('version_conflict', 'Another save took that version number; save again.');
+    throw err;
+  });
+  await appendAudit(trx, { mappingId, action: 'save', actorId: authorId, version: next, reason: message });
+  return next;
+}
+
+/** The newest version's content hash (null when there is none), read inside the caller's transaction. */
+export async function latestVersionHash(trx: Db, mappingId: number): Promise<string | null> {
+  const row = await trx('mapping_versions').where({ mapping_id: mappingId }).orderBy('number', 'desc').first('content_sha256');
+  return row?.content_sha256 ?? null;
 }

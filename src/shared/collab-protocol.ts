@@ -11,6 +11,9 @@
  *                  (the editor reloads the draft).
  *   102 session    sent after connecting, and again when the mapping is locked or unlocked: a varstring
  *                  of JSON `SessionMessage` (who you are, whether you may edit).
+ *   103 restore    a restore this connection asked for (its awareness client id was in the request): a
+ *                  varUint8Array Yjs update, sent INSTEAD of the sync update the other peers get, so the
+ *                  client can apply it as an undoable step of its own (the editor's UndoManager tracks it).
  *
  * Close codes (4400–4499 tell y-websocket not to reconnect): 4401 not signed in, 4404 no such mapping
  * or not a member, 4400 malformed frame.
@@ -24,6 +27,7 @@ export const MESSAGE_QUERY_AWARENESS = 3;
 export const MESSAGE_EVALUATION = 100;
 export const MESSAGE_ERROR = 101;
 export const MESSAGE_SESSION = 102;
+export const MESSAGE_RESTORE = 103;
 
 export const CLOSE_MALFORMED = 4400;
 export const CLOSE_UNAUTHENTICATED = 4401;

@@ -10,6 +10,20 @@ const message = z.string().trim().max(2000, 'A message has at most 2000 characte
 export const saveVersionBody = z.strictObject({ message: message.optional() });
 export type SaveVersionBody = z.infer<typeof saveVersionBody>;
 
+/**
+ * A restore may name the editor connection that asked for it (its Yjs awareness client id): that
+ * connection receives the restore as a step its undo can take back.
+ */
+export const restoreBody = z.strictObject({ clientId: z.number('A client id is a number.').int().nonnegative().max(2 ** 32 - 1).optional() });
+export type RestoreBody = z.infer<typeof restoreBody>;
+
+export interface RestoreResponse {
+  restored: number;
+  /** The version that keeps the draft as it was before ("before restore of vN"); null when the newest version already equals it. */
+  snapshot: number | null;
+  draft: Mapping;
+}
+
 export const lockBody = z.strictObject({
   version: z.number('Say which version to lock.').int().positive(),
   note: message.optional(),

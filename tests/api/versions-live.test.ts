@@ -2,7 +2,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { connectClient, listen, sessionCookie, synced, until, type CollabClient } from '../helpers/collab-client';
-import { assignAtoms, docToMapping } from '../../src/shared/mapping-doc';
+import * as Y from 'yjs';
+import * as decoding from 'lib0/decoding';
+import { ATOMS, BEADS, assignAtoms, docToMapping } from '../../src/shared/mapping-doc';
+import { MESSAGE_RESTORE } from '../../src/shared/collab-protocol';
 import { propanolMapping } from './versions-fixtures';
 
 // Versions against live rooms, with Node y-websocket clients: a save takes the room's document, a
@@ -60,5 +63,37 @@ describe('versions on a live draft', () => {
 
     await supervisor.post(`/api/mappings/${mappingId}/unlock`, { reason: 'More work needed' }).expect(200);
     await until('editable again', () => a.session?.readOnly === false);
+  });
+
+  it('sends the restorer’s own connection the restore as a restore frame it can undo as one step', async () => {
+    const { mappingId } = await propanolMapping(t.ctx.db, 'Undo restore');
+    const [a, b] = [connectClient(http.url, mappingId, cookie), connectClient(http.url, mappingId, cookie)];
+    open.push(a, b);
+    await Promise.all([synced(a), synced(b)]);
+    // Presence, as the editor announces it once its session starts: the server learns a's client id.
+    a.provider.awareness.setLocalStateField('user', { id: 0, name: 'a' });
+    await modeller.post(`/api/mappings/${mappingId}/versions`, { message: 'start' }).expect(201);
+    assignAtoms(b.doc, 'a', [2, 3]);
+    await until('a sees the edit', () => JSON.stringify(atomsOfBeads(a)) === JSON.stringify([['a', [0, 1, 2, 3]], ['b', []]]));
+    await until('the server knows a’s awareness', async () => (await t.collab.rooms.live(mappingId))?.peers.size === 2 && [...(await t.collab.rooms.live(mappingId))!.peers].some((p) => p.controlled.has(a.doc.clientID)));
+
+    // What the editor does with a restore frame (src/features/editor/collab/mapping-session.ts).
+    const undo = new Y.UndoManager([a.doc.getMap(BEADS), a.doc.getMap(ATOMS)], { trackedOrigins: new Set(), captureTimeout: 0 });
+    let frames = 0;
+    a.provider.messageHandlers[MESSAGE_RESTORE] = (_e, d) => {
+      frames++;
+      undo.trackedOrigins.add(a.provider);
+      Y.applyUpdate(a.doc, decoding.readVarUint8Array(d), a.provider);
+      undo.trackedOrigins.delete(a.provider);
+    };
+    const res = await modeller.post(`/api/mappings/${mappingId}/versions/1/restore`, { clientId: a.doc.clientID }).expect(200);
+    expect(res.body.snapshot).toBe(2);
+    for (const c of [a, b]) await until('restored', () => JSON.stringify(atomsOfBeads(c)) === JSON.stringify([['a', [0, 1]], ['b', [2, 3]]]));
+    expect(frames).toBe(1);
+    expect(undo.undoStack).toHaveLength(1);
+
+    undo.undo();
+    for (const c of [a, b]) await until('undone everywhere', () => JSON.stringify(atomsOfBeads(c)) === JSON.stringify([['a', [0, 1, 2, 3]], ['b', []]]));
+    undo.destroy();
   });
 });

@@ -93,12 +93,40 @@ describe('versions', () => {
     expect((await student.get(`/api/mappings/${mappingId}`).expect(200)).body.draft.beads[1].atoms).toEqual([]);
     const res = await modeller.post(`/api/mappings/${mappingId}/versions/1/restore`).expect(200);
     expect(res.body.draft.beads.map((b: { id: string }) => b.id)).toEqual(['a', 'b']);
+    // The draft differed from version 1, so it was kept first as version 2 (issue 13, point 1).
+    expect(res.body).toMatchObject({ restored: 1, snapshot: 2 });
+    const kept: VersionDetail = (await student.get(`/api/mappings/${mappingId}/versions/2`).expect(200)).body;
+    expect(kept.message).toBe('before restore of v1');
+    expect(kept.draft.beads.map((b) => b.atoms.map((a) => a.index))).toEqual([[0, 1, 2, 3], []]);
     // Stored: a fresh read from MariaDB (the room closed again) has the restored draft.
     const again = (await student.get(`/api/mappings/${mappingId}`).expect(200)).body;
     expect(again.draft.beads.map((b: { atoms: { index: number }[] }) => b.atoms.map((a) => a.index))).toEqual([[0, 1], [2, 3]]);
     expect(await t.collab.rooms.live(mappingId)).toBeNull();
     const audit = (await student.get(`/api/mappings/${mappingId}/audit`).expect(200)).body;
-    expect(audit.map((e: { action: string; version: number }) => [e.action, e.version])).toEqual([['restore', 1], ['save', 1]]);
+    expect(audit.map((e: { action: string; version: number }) => [e.action, e.version])).toEqual([['restore', 1], ['save', 2], ['save', 1]]);
+  });
+
+  it('keeps no snapshot when the draft equals the newest version, and none when the restore is refused', async () => {
+    const { mappingId } = await propanolMapping(t.ctx.db, 'Restore unchanged');
+    await modeller.post(`/api/mappings/${mappingId}/versions`, { message: 'one' }).expect(201);
+    await editDraft(t.ctx.db, mappingId, (doc) => assignAtoms(doc, 'a', [2]));
+    await modeller.post(`/api/mappings/${mappingId}/versions`, { message: 'two' }).expect(201);
+    const res = await modeller.post(`/api/mappings/${mappingId}/versions/1/restore`, {}).expect(200);
+    expect(res.body).toMatchObject({ restored: 1, snapshot: null });
+    expect((await student.get(`/api/mappings/${mappingId}/versions`).expect(200)).body).toHaveLength(2);
+
+    // A bad body and a locked mapping change nothing: no snapshot, no restore.
+    await editDraft(t.ctx.db, mappingId, (doc) => assignAtoms(doc, 'a', [3]));
+    const before = await snapshot(t.ctx.db, TABLES);
+    const bad = await modeller.post(`/api/mappings/${mappingId}/versions/2/restore`, { clientId: 'me' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.code).toBe('validation_failed');
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+    await t.ctx.db('mappings').where({ id: mappingId }).update({ locked: true });
+    const whileLocked = await snapshot(t.ctx.db, TABLES);
+    const locked = await modeller.post(`/api/mappings/${mappingId}/versions/2/restore`, {});
+    expect([locked.status, locked.body.error.code]).toEqual([409, 'mapping_locked']);
+    expect(await snapshot(t.ctx.db, TABLES)).toBe(whileLocked);
   });
 
   it('refuses students saving or restoring', async () => {

@@ -6,6 +6,7 @@ import {
   CLOSE_UNAUTHENTICATED,
   MESSAGE_ERROR,
   MESSAGE_EVALUATION,
+  MESSAGE_RESTORE,
   MESSAGE_SESSION,
   type CollabErrorMessage,
   type EvaluationMessage,
@@ -59,6 +60,19 @@ export class MappingSession {
       const refused = readJson<CollabErrorMessage>(dec);
       this.set({ refused, refusals: this.snapshot.refusals + (refused.code === 'read_only' ? 0 : 1) });
     };
+    // A restore this session asked for arrives instead of the plain sync update: applied as the
+    // provider would (so it is not sent back), but tracked by the undo manager, as one step.
+    this.provider.messageHandlers[MESSAGE_RESTORE] = (_enc, dec) => {
+      const update = decoding.readVarUint8Array(dec);
+      this.undo.stopCapturing();
+      this.undo.trackedOrigins.add(this.provider);
+      try {
+        Y.applyUpdate(this.doc, update, this.provider);
+      } finally {
+        this.undo.trackedOrigins.delete(this.provider);
+        this.undo.stopCapturing();
+      }
+    };
     this.provider.on('status', ({ status }) => {
       if (status === 'connected') this.everConnected = true;
       this.set({ connection: this.connectionFor(status) });
@@ -68,6 +82,16 @@ export class MappingSession {
       const reason = code === CLOSE_UNAUTHENTICATED ? 'You are signed out.' : code === CLOSE_NOT_FOUND ? 'This mapping is not available to you.' : 'The connection was closed.';
       this.set({ connection: 'closed', closedReason: reason });
     });
+  }
+
+  /** The id the server knows this connection's awareness by (a restore names it to come back undoable). */
+  get clientId(): number {
+    return this.doc.clientID;
+  }
+
+  /** Beads in the live draft now. */
+  beadCount(): number {
+    return this.doc.getMap(BEADS).size;
   }
 
   get readOnly(): boolean {

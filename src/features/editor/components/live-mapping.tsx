@@ -13,11 +13,17 @@ interface LiveMappingProps {
   library: readonly BeadTypeRow[];
   /** Comment threads on beads (badges, panel, deep link), when the page has them. */
   threads?: EditorThreads;
+  /** Told of the live session when it opens (and null when it closes), e.g. so a restore can name it. */
+  onSession?: (session: MappingSession | null) => void;
 }
 
 /** Opens the live draft of a mapping and shows the editor on it. */
-export function LiveMapping(props: LiveMappingProps) {
+export function LiveMapping({ onSession, ...props }: LiveMappingProps) {
   const { session, reload } = useMappingSession(props.mapping.id);
+  useEffect(() => {
+    onSession?.(session);
+    return () => onSession?.(null);
+  }, [session, onSession]);
   if (!session) return <p className="text-sm text-ink-600">Opening the live draft…</p>;
   return <ReloadOnRefusal session={session} reload={reload} {...props} />;
 }

@@ -9,6 +9,7 @@ export function getProject(projectId: number): Promise<ProjectSummary> {
 export const projectQueryOptions = (projectId: number) =>
   queryOptions({ queryKey: ['projects', projectId], queryFn: () => getProject(projectId) });
 
+/** Asks only for a real id: a page that learns its project from another request passes 0 until then. */
 export function useProject(projectId: number) {
-  return useQuery(projectQueryOptions(projectId));
+  return useQuery({ ...projectQueryOptions(projectId), enabled: projectId > 0 });
 }

@@ -1,8 +1,10 @@
+import type { RestoreBody, RestoreResponse } from '../../../shared/versions';
 import { api } from '../../../lib/api-client';
 import { useMappingHistoryMutation } from './save-version';
 
-export const restoreVersion = (mappingId: number, n: number) => api.post<{ restored: number }>(`/api/mappings/${mappingId}/versions/${n}/restore`);
+export const restoreVersion = (mappingId: number, n: number, body: RestoreBody) => api.post<RestoreResponse>(`/api/mappings/${mappingId}/versions/${n}/restore`, body);
 
-export function useRestoreVersion(mappingId: number) {
-  return useMappingHistoryMutation(mappingId, (n: number) => restoreVersion(mappingId, n));
+/** `clientId()` names the open editor's connection, which then gets the restore as a step it can undo. */
+export function useRestoreVersion(mappingId: number, clientId?: () => number | undefined) {
+  return useMappingHistoryMutation(mappingId, (n: number) => restoreVersion(mappingId, n, { clientId: clientId?.() }));
 }

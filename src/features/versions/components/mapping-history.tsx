@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import { ErrorAlert } from '../../../components/ui/alert';
+import { ErrorAlert, Notice } from '../../../components/ui/alert';
 import { Loading } from '../../../components/ui/loading';
 import { Section } from '../../../components/ui/section';
 import type { MappingDetail } from '../../../shared/mappings';
@@ -15,6 +15,7 @@ import { LockControls } from './lock-controls';
 import { SaveVersionForm } from './save-version-form';
 import { VersionList } from './version-list';
 import { VersionView } from './version-view';
+import { RestoreDialog } from './restore-dialog';
 
 type Open = { kind: 'view'; n: number } | { kind: 'compare'; from: StateRef; to: StateRef } | null;
 
@@ -28,16 +29,19 @@ interface MappingHistoryProps {
   exportMenu?: (states: { ref: number | 'draft' | 'production'; label: string }[]) => React.ReactNode;
   /** The threads of a version's beads, shown with the version (they live in their own feature). */
   versionThreads?: (number: number) => React.ReactNode;
+  /** The open editor: its connection id (a restore comes back to it as one undoable step) and its live bead count. */
+  editor?: () => { clientId: number; beadCount: number } | null;
 }
 
 const refOf = (v: string): StateRef => (v === 'draft' ? 'draft' : Number(v));
 
 /** History of a mapping: save, the version list, view, compare, restore, the lock and the audit trail. */
-export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionThreads }: MappingHistoryProps) {
+export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionThreads, editor }: MappingHistoryProps) {
   const versions = useVersions(mapping.id);
   const lock = useLock(mapping.id);
-  const restore = useRestoreVersion(mapping.id);
+  const restore = useRestoreVersion(mapping.id, () => editor?.()?.clientId);
   const [open, setOpen] = useState<Open>(null);
+  const [confirming, setConfirming] = useState<number | null>(null);
   const [pick, setPick] = useState<{ from: string; to: string }>({ from: '', to: 'draft' });
   const names = new Map(mapping.draft.beads.map((b) => [b.id, b.name]));
   if (versions.isError || lock.isError) return <ErrorAlert error={versions.error ?? lock.error} />;
@@ -65,8 +69,19 @@ export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionT
             restoring={restore.isPending ? (restore.variables ?? null) : null}
             onView={(n) => setOpen({ kind: 'view', n })}
             onCompareWithDraft={(n) => setOpen({ kind: 'compare', from: n, to: 'draft' })}
-            onRestore={(n) => restore.mutate(n)}
+            onRestore={(n) => setConfirming(n)}
           />
+          {restore.data?.snapshot && <Notice>Restored version {restore.data.restored}; the draft as it was is kept as version {restore.data.snapshot}.</Notice>}
+          {confirming !== null && list.some((v) => v.number === confirming) && (
+            <RestoreDialog
+              version={list.find((v) => v.number === confirming)!}
+              draftBeads={editor?.()?.beadCount ?? mapping.draft.beads.length}
+              newest={list[0]!.number}
+              pending={restore.isPending}
+              onCancel={() => setConfirming(null)}
+              onConfirm={() => restore.mutate(confirming, { onSettled: () => setConfirming(null) })}
+            />
+          )}
           {list.length > 0 && (
             <form className="flex flex-wrap items-end gap-2 text-sm" onSubmit={(e) => (e.preventDefault(), setOpen({ kind: 'compare', from: refOf(from), to: refOf(pick.to) }))}>
               {(['from', 'to'] as const).map((side) => (
