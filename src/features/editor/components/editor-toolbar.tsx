@@ -2,6 +2,7 @@ import { memo } from 'react';
 import { editorCommands } from '../commands';
 import { isAvailable, run, type CommandGroup, type EditorContext } from '../commands/registry';
 import { Kbd } from './kbd';
+import { ariaKeyShortcut, shortcutLabel } from '../model/platform-keys';
 
 const GROUPS: { group: CommandGroup; label: string; only?: string[] }[] = [
   { group: 'beads', label: 'Bead editing' },
@@ -26,13 +27,14 @@ export const EditorToolbar = memo(function EditorToolbar({ ctx, showHydrogens }:
                   type="button"
                   disabled={!isAvailable(c, ctx)}
                   aria-pressed={pressed}
-                  aria-keyshortcuts={c.shortcut?.replace(/ /g, '+').replace('Del', 'Delete').replace('Esc', 'Escape')}
-                  title={c.shortcut ? `${c.label} (${c.shortcut})` : c.label}
+                  aria-keyshortcuts={c.shortcut && ariaKeyShortcut(c.shortcut)}
+                  title={c.shortcut ? `${c.label} (${shortcutLabel(c.shortcut)})` : c.label}
                   onClick={() => run(c, ctx)}
-                  className="inline-flex items-center gap-1.5 rounded-md border border-transparent px-2 py-1 text-sm font-semibold text-ink-800 hover:border-ink-200 hover:bg-ink-50 disabled:cursor-not-allowed disabled:text-ink-300 aria-pressed:border-ink-300 aria-pressed:bg-ink-100"
+                  className="inline-flex items-center gap-2 rounded-md border border-transparent px-2 py-1 text-sm font-semibold text-ink-800 hover:border-ink-200 hover:bg-ink-50 disabled:cursor-not-allowed disabled:text-ink-300 aria-pressed:border-ink-300 aria-pressed:bg-ink-100"
                 >
-                  {c.label}
-                  {c.shortcut && <Kbd muted>{c.shortcut}</Kbd>}
+                  <span>{c.label}</span>
+                  {/* The hint is for the eye: its name is in aria-keyshortcuts, not in the button's name. */}
+                  {c.shortcut && <Kbd muted hidden>{shortcutLabel(c.shortcut)}</Kbd>}
                 </button>
               );
             })}

@@ -3,6 +3,7 @@ import { createPortal } from 'react-dom';
 import { editorCommands } from '../commands';
 import type { CommandGroup } from '../commands/registry';
 import { Kbd } from './kbd';
+import { shortcutLabel } from '../model/platform-keys';
 
 const TITLES: Record<CommandGroup, string> = { beads: 'Beads', selection: 'Selecting', history: 'History', view: 'View' };
 
@@ -42,8 +43,8 @@ export function ShortcutHelp({ onClose }: { onClose: () => void }) {
       >
         <div className="mb-4 flex items-center justify-between">
           <h2 id={titleId} className="text-lg font-bold text-ink-900">Keyboard shortcuts</h2>
-          <button ref={close} type="button" onClick={onClose} className="rounded-md px-2 py-1 text-sm font-semibold text-ink-700 hover:bg-ink-50">
-            Close <Kbd muted>Esc</Kbd>
+          <button ref={close} type="button" onClick={onClose} className="inline-flex items-center gap-2 rounded-md px-2 py-1 text-sm font-semibold text-ink-700 hover:bg-ink-50">
+            <span>Close</span> <Kbd muted hidden>Esc</Kbd>
           </button>
         </div>
         <div className="grid gap-6 sm:grid-cols-2">
@@ -65,7 +66,7 @@ function ShortcutList({ title, rows }: { title: string; rows: [string, string][]
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
         {rows.map(([keys, label]) => (
           <div key={label} className="contents">
-            <dt className="flex gap-1">{keys.split(' ').map((k) => <Kbd key={k}>{k}</Kbd>)}</dt>
+            <dt className="flex gap-1">{shortcutLabel(keys).split(' ').map((k) => <Kbd key={k}>{k}</Kbd>)}</dt>
             <dd className="text-ink-800">{label}</dd>
           </div>
         ))}
