@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { browserSession } from '../helpers/browser-session';
+import { firstMappingId } from '../helpers/demo-ids';
 
 // Issue 13, point 1, through the real client, server, collab socket and MariaDB: "Restore into
 // draft" first asks (saying what is replaced), keeps the edited draft as a version "before restore of
@@ -22,12 +23,7 @@ const draftOf = (page: Page, id: number) =>
 describe('restore into draft', () => {
   it('asks first, keeps the draft as a version and is one undoable step', async () => {
     const modeller = await signedIn('modeller@example.org');
-    const mappingId: number = await modeller.evaluate(async () => {
-      const projects = await (await fetch('/api/projects')).json();
-      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
-      const mappings = await (await fetch(`/api/molecules/${molecules[0].id}/mappings`)).json();
-      return mappings[0].id;
-    });
+    const mappingId = await firstMappingId(modeller);
     await modeller.goto(`/mappings/${mappingId}`);
     await modeller.locator('[data-connection="live"]').waitFor();
     await modeller.getByLabel('Version message').fill('As seeded');

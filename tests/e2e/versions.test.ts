@@ -3,6 +3,7 @@ import { readFile } from 'node:fs/promises';
 import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
 import { browserSession } from '../helpers/browser-session';
+import { firstMappingId } from '../helpers/demo-ids';
 
 // Issue 5's browser test through the real client, server, collab socket and MariaDB: a modeller saves
 // two versions; the supervisor compares them (the moved atom is ringed and listed) and locks
@@ -26,12 +27,7 @@ afterAll(() => session.close());
 describe('versions, compare, lock and export', () => {
   it('saves, compares, locks live and exports the production CSV', async () => {
     const modeller = await signedIn('modeller@example.org');
-    const mappingId: number = await modeller.evaluate(async () => {
-      const projects = await (await fetch('/api/projects')).json();
-      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
-      const mappings = await (await fetch(`/api/molecules/${molecules[0].id}/mappings`)).json();
-      return mappings[0].id;
-    });
+    const mappingId = await firstMappingId(modeller);
     await modeller.goto(`/mappings/${mappingId}`);
     await modeller.locator('[data-connection="live"]').waitFor();
     await saveVersion(modeller, 'As seeded', 1);
