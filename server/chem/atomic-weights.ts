@@ -4,9 +4,11 @@
  * Source: IUPAC Commission on Isotopic Abundances and Atomic Weights (CIAAW), "Standard atomic weights of
  * the elements 2021 (IUPAC Technical Report)", T. Prohaska et al., Pure Appl. Chem. 2022, 94, 573–600,
  * as listed on ciaaw.org. Where the standard atomic weight is an interval (H, Li, B, C, N, O, Mg, Si, S,
- * Cl, Ar, Br, Tl, Pb) the table holds CIAAW's conventional value. Values were copied by hand from
- * the published table (from memory of it where noted in docs/chemistry.md); the unit test checks the
- * common ones against the same source.
+ * Cl, Ar, Br, Tl, Pb) the table holds CIAAW's conventional value. Every element with a standard atomic
+ * weight is here (84: all of H–Bi except Tc and Pm, plus Th, Pa and U); elements without one (Tc, Pm,
+ * Po–Ac, Np onwards) are refused by name. Values were written by hand from the published table (from
+ * memory of it, except Tb, Ta and Gd, read on ciaaw.org; see docs/chemistry.md). Gd, Lu and Zr were
+ * revised by CIAAW in 2024; this table keeps the 2021 values the product is specified on.
  *
  * Isotope masses (for labelled atoms such as [2H] or [13C]): Atomic Mass Evaluation 2020
  * (M. Wang et al., Chinese Phys. C 2021, 45, 030003), as quoted in the CIAAW isotope tables.
@@ -25,8 +27,11 @@ export const STANDARD_ATOMIC_WEIGHTS: Readonly<Record<string, number>> = {
   Rb: 85.4678, Sr: 87.62, Y: 88.905838, Zr: 91.224, Nb: 92.90637, Mo: 95.95, Ru: 101.07,
   Rh: 102.90549, Pd: 106.42, Ag: 107.8682, Cd: 112.414, In: 114.818, Sn: 118.71, Sb: 121.76,
   Te: 127.6, I: 126.90447, Xe: 131.293, Cs: 132.90545196, Ba: 137.327, La: 138.90547,
-  Gd: 157.25, Hf: 178.486, W: 183.84, Os: 190.23, Ir: 192.217, Pt: 195.084, Au: 196.96657,
+  Ce: 140.116, Pr: 140.90766, Nd: 144.242, Sm: 150.36, Eu: 151.964, Gd: 157.25, Tb: 158.925354,
+  Dy: 162.5, Ho: 164.930329, Er: 167.259, Tm: 168.934219, Yb: 173.045, Lu: 174.9668,
+  Hf: 178.486, Ta: 180.94788, W: 183.84, Re: 186.207, Os: 190.23, Ir: 192.217, Pt: 195.084, Au: 196.96657,
   Hg: 200.592, Tl: 204.38, Pb: 207.2, Bi: 208.9804,
+  Th: 232.0377, Pa: 231.03588, U: 238.02891,
 };
 
 /** Isotope masses (u) keyed `${massNumber}${symbol}`, AME2020. */
