@@ -78,7 +78,7 @@ function HistoryAndExports({ mapping, editor }: { mapping: NonNullable<ReturnTyp
       mapping={mapping}
       canEdit={canLock || role === 'modeller'}
       canLock={canLock}
-      exportMenu={(states) => <ExportMenu mappingId={mapping.id} projectId={mapping.projectId} states={states} />}
+      exportMenu={(states, versions) => <ExportMenu mappingId={mapping.id} projectId={mapping.projectId} states={states} versions={versions} />}
       versionThreads={(n) => <VersionThreads mappingId={mapping.id} version={n} />}
       editor={editor}
     />

@@ -1,4 +1,7 @@
+import { useState } from 'react';
 import { useParams } from 'react-router';
+import { Button } from '../../components/ui/button';
+import { ImportMappingDialog } from '../../features/molecules/components/import-mapping-dialog';
 import { ErrorAlert } from '../../components/ui/alert';
 import { Loading } from '../../components/ui/loading';
 import { PageHeader } from '../../components/ui/page-header';
@@ -24,6 +27,7 @@ export function MoleculeRoute() {
 function MoleculePage({ moleculeId }: { moleculeId: number }) {
   const molecule = useMolecule(moleculeId);
   const project = useProject(molecule.data?.projectId ?? 0);
+  const [importing, setImporting] = useState(false);
   useDocumentTitle(molecule.data?.name);
   if (molecule.isPending) return <Loading label="Loading molecule…" />;
   if (molecule.isError) return isApiError(molecule.error) && molecule.error.status === 404 ? <NotFoundRoute /> : <ErrorAlert error={molecule.error} />;
@@ -51,7 +55,11 @@ function MoleculePage({ moleculeId }: { moleculeId: number }) {
           )}
         </Section>
         <div className="flex flex-col gap-6">
-          <Section title="Mappings" description="Ways of grouping this molecule's atoms into beads.">
+          <Section
+            title="Mappings"
+            description="Ways of grouping this molecule's atoms into beads."
+            actions={canEdit && <Button size="sm" variant="secondary" onClick={() => setImporting(true)}>Import a mapping…</Button>}
+          >
             <MappingList moleculeId={m.id} />
           </Section>
           {canEdit && (
@@ -61,6 +69,7 @@ function MoleculePage({ moleculeId }: { moleculeId: number }) {
           )}
         </div>
       </div>
+      {importing && <ImportMappingDialog molecule={m} onClose={() => setImporting(false)} />}
     </>
   );
 }

@@ -26,7 +26,7 @@ interface MappingHistoryProps {
   /** The caller may lock and unlock (supervisors, admins). */
   canLock: boolean;
   /** Where the export menu goes (it lives in its own feature). */
-  exportMenu?: (states: { ref: number | 'draft' | 'production'; label: string }[]) => React.ReactNode;
+  exportMenu?: (states: { ref: number | 'draft' | 'production'; label: string }[], versions: number[]) => React.ReactNode;
   /** The threads of a version's beads, shown with the version (they live in their own feature). */
   versionThreads?: (number: number) => React.ReactNode;
   /** The open editor: its connection id (a restore comes back to it as one undoable step) and its live bead count. */
@@ -56,7 +56,7 @@ export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionT
     <Section
       title="History"
       description={locked ? `Version ${lock.data.version} is locked for production; the draft is read-only.` : 'Versions are immutable snapshots the server takes of the draft.'}
-      actions={<div className="flex items-center gap-2">{locked && <Badge tone="ok">Production: version {lock.data.version}</Badge>}{exportMenu?.(states)}</div>}
+      actions={<div className="flex items-center gap-2">{locked && <Badge tone="ok">Production: version {lock.data.version}</Badge>}{exportMenu?.(states, list.map((v) => v.number))}</div>}
     >
       <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="flex flex-col gap-3">
