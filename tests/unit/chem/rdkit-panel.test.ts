@@ -8,7 +8,7 @@ import { atomMass } from '../../../server/chem/atomic-weights';
 import { loadRdkit, parseMolecule, type Molecule } from '../../../server/chem/index';
 import type { RDKit } from '../../../server/chem/rdkit';
 import { PANEL } from './fixtures/rdkit-panel';
-import { rdkitReference } from './rdkit-reference';
+import { rdkitAmwOnCiaaw, rdkitElementWeight, rdkitReference } from './rdkit-reference';
 
 let rd: RDKit;
 beforeAll(async () => {
@@ -24,27 +24,8 @@ function reference(smiles: string): Reference {
   return rdkitReference(rd, smiles);
 }
 
-/** RDKit's own weight for an element or isotope, read from RDKit (a bare bracket atom has no hydrogens). */
-const rdWeights = new Map<string, number>();
-function rdkitWeight(element: string, isotope: number | null): number {
-  const key = `${isotope ?? ''}${element}`;
-  if (!rdWeights.has(key)) rdWeights.set(key, reference(`[${key}]`).amw);
-  return rdWeights.get(key)!;
-}
-
-/** amw − Σ_element count × (RDKit's weight − CIAAW 2021 weight): RDKit's mass on our atomic weights. */
-function correctedAmw(m: Molecule, amw: number): number {
-  let correction = 0;
-  const add = (el: string, iso: number | null): void => {
-    correction += rdkitWeight(el, iso) - atomMass(el, iso);
-  };
-  for (const a of m.atoms) {
-    add(a.element, a.isotope);
-    for (let k = 0; k < a.hydrogens - a.hydrogenIsotopes.length; k++) add('H', null);
-    for (const iso of a.hydrogenIsotopes) add('H', iso);
-  }
-  return amw - correction;
-}
+const rdkitWeight = (element: string, isotope: number | null) => rdkitElementWeight(rd, element, isotope);
+const correctedAmw = (m: Molecule, amw: number) => rdkitAmwOnCiaaw(rd, m, amw);
 
 describe('RDKit panel', () => {
   it('has at least 300 distinct molecules over every group', () => {
