@@ -15,6 +15,8 @@ import * as m031 from './20261204_031_mapping_versions';
 import * as m032 from './20261204_032_mapping_locks';
 import * as m033 from './20261204_033_mapping_audit';
 import * as m041 from './20261205_041_audit_import';
+import * as m051 from './20261205_051_bead_type_heavy_atoms';
+import * as m052 from './20261205_052_bead_type_library_note';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -35,6 +37,8 @@ const migrations: Record<string, Knex.Migration> = {
   '20261204_032_mapping_locks': m032,
   '20261204_033_mapping_audit': m033,
   '20261205_041_audit_import': m041,
+  '20261205_051_bead_type_heavy_atoms': m051,
+  '20261205_052_bead_type_library_note': m052,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

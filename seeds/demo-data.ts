@@ -41,8 +41,8 @@ export const DEMO_MAPPINGS: Record<(typeof DEMO_MOLECULES)[number]['name'], { na
     resolution: '4:1',
     description: 'Tail done; two of the four ethylene-oxide units mapped so far.',
     beads: [
-      { id: 'demo-c12-t1', name: 'T1', type: 'L3', atoms: [[0, 1], [1, 1], [2, 1], [3, 1]] },
-      { id: 'demo-c12-t2', name: 'T2', type: 'L3', atoms: [[4, 1], [5, 1], [6, 1], [7, 1]] },
+      { id: 'demo-c12-t1', name: 'T1', type: 'oil-loving 3, 4 atoms', atoms: [[0, 1], [1, 1], [2, 1], [3, 1]] },
+      { id: 'demo-c12-t2', name: 'T2', type: 'oil-loving 3, 4 atoms', atoms: [[4, 1], [5, 1], [6, 1], [7, 1]] },
       { id: 'demo-c12-t3', name: 'T3', atoms: [[8, 1], [9, 1], [10, 1], [11, 1]] },
       { id: 'demo-c12-e1', name: 'E1', atoms: [[12, 1], [13, 1], [14, 1]] },
       { id: 'demo-c12-e2', name: 'E2', atoms: [[15, 1], [16, 1], [17, 1]] },
@@ -69,5 +69,3 @@ export const DEMO_MAPPINGS: Record<(typeof DEMO_MOLECULES)[number]['name'], { na
     ],
   },
 };
-
-export const DEMO_LIBRARY_NOTE = 'Illustrative only: invented for the Beadloom demo, not any published force field’s bead types.';

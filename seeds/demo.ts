@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
 import { hashPassword } from '../server/auth/passwords';
 import { DEMO_LIBRARY, parseMolecule } from '../server/chem/index';
+import { DEMO_LIBRARY_NOTE } from '../server/chem/demo-library';
 import { insertMolecule } from '../server/molecules/molecules.service';
 import { createMapping } from '../server/mappings/mappings.service';
 import { replaceLibrary } from '../server/bead-types/bead-types.service';
-import { DEMO_ACCOUNTS, DEMO_LIBRARY_NOTE, DEMO_MAPPINGS, DEMO_MOLECULES, DEMO_PASSWORD, DEMO_PROJECT } from './demo-data';
+import { DEMO_ACCOUNTS, DEMO_MAPPINGS, DEMO_MOLECULES, DEMO_PASSWORD, DEMO_PROJECT } from './demo-data';
 
 /** True when the database has no accounts yet: the demo only ever goes into an empty database. */
 export async function isEmpty(db: Knex): Promise<boolean> {
@@ -30,7 +31,7 @@ export async function seedDemo(db: Knex, bcryptCost: number): Promise<boolean> {
       if (a.role) await trx('project_members').insert({ project_id: projectId, user_id: ids.get(a.email), role: a.role });
     }
     const modeller = ids.get('modeller@example.org')!;
-    await replaceLibrary(trx, projectId, DEMO_LIBRARY.map((t) => ({ ...t, description: DEMO_LIBRARY_NOTE })), ids.get('supervisor@example.org')!);
+    await replaceLibrary(trx, projectId, DEMO_LIBRARY.map((t) => ({ ...t, description: '' })), ids.get('supervisor@example.org')!, DEMO_LIBRARY_NOTE);
     for (const [i, m] of DEMO_MOLECULES.entries()) {
       const moleculeId = await insertMolecule(trx, { projectId, userId: modeller, name: m.name, notes: m.notes, source: 'smiles', smiles: m.smiles, model: models[i] });
       const plan = DEMO_MAPPINGS[m.name];

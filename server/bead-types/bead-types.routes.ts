@@ -19,24 +19,24 @@ import { lastChange, libraryFor, replaceLibrary } from './bead-types.service';
 const params = z.object({ id: idParam });
 
 /** `{ types }` as JSON, or `{ csv }` parsed with the shared CSV reader, then checked by the same schema. */
-function typesFromBody(body: unknown): BeadTypeRow[] {
+function typesFromBody(body: unknown): { types: BeadTypeRow[]; note?: string } {
   const csv = importBeadTypesCsvBody.safeParse(body);
   let candidate = body;
   if (csv.success) {
     const parsed = beadTypesFromCsv(csv.data.csv);
     if (!parsed.ok) throw badRequest('validation_failed', `CSV line ${parsed.line}: ${parsed.message}`, { in: 'body', line: parsed.line });
-    candidate = { types: parsed.types };
+    candidate = { types: parsed.types, ...(csv.data.note !== undefined ? { note: csv.data.note } : {}) };
   }
   const checked = putBeadTypesBody.safeParse(candidate);
   if (!checked.success) {
     const issues = checked.error.issues.map((i) => ({ path: i.path.join('.'), code: i.code, message: i.message }));
     throw badRequest('validation_failed', `${issues[0].path ? `${issues[0].path}: ` : ''}${issues[0].message}`, { in: 'body', issues });
   }
-  return checked.data.types;
+  return checked.data;
 }
 
 export function beadTypeRoutes(r: RouteTable, ctx: AppContext, onChange: (projectId: number) => void): void {
-  const library = async (projectId: number): Promise<BeadTypeLibrary> => ({ projectId, types: await libraryFor(ctx.db, projectId), updatedAt: await lastChange(ctx.db, projectId) });
+  const library = async (projectId: number): Promise<BeadTypeLibrary> => ({ projectId, types: await libraryFor(ctx.db, projectId), ...(await lastChange(ctx.db, projectId)) });
 
   r.get('/api/projects/:id/bead-types', validate({ params, query: beadTypesQuery }), async (req, res) => {
     const projectId = Number(req.params.id);
@@ -52,7 +52,8 @@ export function beadTypeRoutes(r: RouteTable, ctx: AppContext, onChange: (projec
   r.put('/api/projects/:id/bead-types', validate({ params }), async (req, res) => {
     const projectId = Number(req.params.id);
     await authorizeProject(ctx.db, req, projectId, 'library:edit');
-    await replaceLibrary(ctx.db, projectId, typesFromBody(req.body), requireUser(req).id);
+    const { types, note } = typesFromBody(req.body);
+    await replaceLibrary(ctx.db, projectId, types, requireUser(req).id, note);
     onChange(projectId);
     res.json(await library(projectId));
   });

@@ -5,17 +5,19 @@ import type { BeadTypeRow } from '../../src/shared/bead-types';
 
 export async function libraryFor(db: Db, projectId: number): Promise<BeadTypeRow[]> {
   const rows = await db('bead_types').where({ project_id: projectId }).orderBy('position');
-  return rows.map((r) => ({ name: r.name, sizeClass: r.size_class, charge: r.charge, deltaGMin: r.delta_g_min, deltaGMax: r.delta_g_max, description: r.description }));
+  return rows.map((r) => ({ name: r.name, heavyAtomsPerBead: Number(r.heavy_atoms_per_bead) as BeadTypeRow['heavyAtomsPerBead'], charge: r.charge, deltaGMin: r.delta_g_min, deltaGMax: r.delta_g_max, description: r.description }));
 }
 
-export async function lastChange(db: Db, projectId: number): Promise<string | null> {
-  const row = await db('bead_type_libraries').where({ project_id: projectId }).first('updated_at');
-  return row ? new Date(row.updated_at).toISOString() : null;
+export async function lastChange(db: Db, projectId: number): Promise<{ updatedAt: string | null; note: string }> {
+  const row = await db('bead_type_libraries').where({ project_id: projectId }).first('updated_at', 'note');
+  return { updatedAt: row ? new Date(row.updated_at).toISOString() : null, note: row?.note ?? '' };
 }
 
-export async function replaceLibrary(db: Db, projectId: number, types: BeadTypeRow[], userId: number | null): Promise<void> {
+/** Replaces the types; `note` replaces the library's note when given, else the note is kept. */
+export async function replaceLibrary(db: Db, projectId: number, types: BeadTypeRow[], userId: number | null, note?: string): Promise<void> {
   await db.transaction(async (trx) => {
-    await trx('bead_type_libraries').insert({ project_id: projectId, updated_by: userId, updated_at: trx.fn.now() }).onConflict('project_id').merge();
+    const changed = { updated_by: userId, updated_at: trx.fn.now(), ...(note !== undefined ? { note } : {}) };
+    await trx('bead_type_libraries').insert({ project_id: projectId, ...changed }).onConflict('project_id').merge(Object.keys(changed));
     await trx('bead_types').where({ project_id: projectId }).delete();
     if (types.length) {
       await trx('bead_types').insert(
@@ -23,7 +25,7 @@ export async function replaceLibrary(db: Db, projectId: number, types: BeadTypeR
           project_id: projectId,
           position,
           name: t.name,
-          size_class: t.sizeClass,
+          heavy_atoms_per_bead: t.heavyAtomsPerBead,
           charge: t.charge,
           delta_g_min: t.deltaGMin,
           delta_g_max: t.deltaGMax,

@@ -6,6 +6,7 @@ import { authorizeSite } from '../auth/access';
 import { tooLarge } from '../http/errors';
 import { evaluateBodySchema, moleculeBodySchema, SMILES_MAX, type EvaluateBody, type MoleculeBody } from '../../src/shared/mapping-schema';
 import { parseAndEvaluateInThread, parseInThread } from '../workers/parse-thread';
+import { logPWarningOf } from '../chem/charged-groups';
 
 // Stateless chemistry endpoints for previews: parse a structure, or parse it and
 // evaluate a mapping on it. Nothing is stored.
@@ -24,7 +25,9 @@ const structureOf = (body: MoleculeBody) => ('smiles' in body ? { smiles: body.s
 export function chemRoutes(r: RouteTable, ctx: AppContext): void {
   r.post('/api/chem/molecule', smilesLimit, validate({ body: moleculeBodySchema }), async (req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
-    res.json(await parseInThread(structureOf(req.body)));
+    const molecule = await parseInThread(structureOf(req.body));
+    // The logP of an ion, salt or zwitterion is not a partition value: say so beside it.
+    res.json({ ...molecule, logPWarning: logPWarningOf(molecule) });
   });
 
   r.post('/api/chem/evaluate', smilesLimit, validate({ body: evaluateBodySchema }), async (req, res) => {

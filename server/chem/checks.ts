@@ -1,9 +1,10 @@
 /**
  * Mapping checks: findings a modeller should see while editing. Each has a stable code, a severity,
  * the atoms and beads involved, and a one-line hint. Size limits are common practice with no source
- * (resolution.ts); the charged-group rule is ours (charged-groups.ts).
+ * (resolution.ts); the charged-group rule is ours (charged-groups.ts). No check quotes a partition
+ * value for an ionic bead: it has none ("n/a (ionic)").
  */
-import type { Check, MappingBead, Molecule, Resolution } from '../../src/shared/chem';
+import type { BeadEvaluation, BeadType, Check, MappingBead, Molecule, Resolution } from '../../src/shared/chem';
 import { chargedGroups } from './charged-groups';
 import { isFreeIon } from './free-ions';
 import type { Prepared } from './prepared';
@@ -13,6 +14,8 @@ export interface CheckInput {
   molecule: Molecule;
   p: Prepared;
   beads: MappingBead[];
+  evaluated: BeadEvaluation[];
+  library: readonly BeadType[];
   weightSum: Float64Array;
   beadsOf: number[][];
   heavyAtoms: number[];
@@ -65,11 +68,24 @@ export function runChecks(x: CheckInput): Check[] {
 
   for (const group of chargedGroups(x.molecule, x.p)) {
     const holders = new Set<number>();
-    for (const a of group) for (const b of x.beadsOf[a]) holders.add(b);
+    for (const a of group.atoms) for (const b of x.beadsOf[a]) holders.add(b);
     if (holders.size > 1) {
-      add('split_charged_group', 'warning', `A charged group (atoms ${group.map((a) => a + 1).join(', ')}) is split over ${holders.size} beads.`, group, [...holders].map((b) => ids[b]), 'Put the whole charged group into one bead.');
+      const what = group.netCharge === 0 ? 'A charge-separated group (net charge 0)' : `A charged group (net charge ${signed(group.netCharge)})`;
+      add('split_charged_group', 'warning', `${what}, atoms ${group.atoms.map((a) => a + 1).join(', ')}, is split over ${holders.size} beads.`, group.atoms, [...holders].map((b) => ids[b]), 'Put the whole group into one bead: its atoms share one charge.');
     }
   }
+
+  const sizeOfType = new Map(x.library.map((t) => [t.name, t.heavyAtomsPerBead]));
+  x.beads.forEach((bead, i) => {
+    const e = x.evaluated[i];
+    const typeSize = bead.type ? sizeOfType.get(bead.type) : undefined;
+    if (typeSize !== undefined && e.sizeClass !== null && typeSize !== e.sizeClass) {
+      add('type_size_mismatch', 'warning', `Bead ${bead.name} has ${fmt(e.heavyAtoms)} heavy atoms (size class ${e.sizeClass}), but its type ${bead.type} is for ${typeSize} heavy atoms per bead.`, bead.atoms.map((a) => a.index), [bead.id], `Choose a type for ${e.sizeClass} heavy atoms per bead, or resize the bead.`);
+    }
+    if (e.ionic) {
+      add('ionic_bead', 'info', `Bead ${bead.name} carries a net charge of ${signed(e.charge)}: its partition value is n/a (ionic), and its type is suggested from charge and size.`, [], [bead.id], 'Enter a measured value if you have one; the additive logP of an ion is not a partition value.');
+    }
+  });
   const rank = { error: 0, warning: 1, info: 2 } as const;
   return checks.sort((p, q) => rank[p.severity] - rank[q.severity]);
 }
@@ -97,6 +113,11 @@ function connected(atoms: number[], p: Prepared, stamp: Int32Array, beadNo: numb
     }
   }
   return reached.size === unique.length;
+}
+
+function signed(v: number): string {
+  const t = fmt(Math.abs(v));
+  return v > 0 ? `+${t}` : v < 0 ? `−${t}` : '0';
 }
 
 function fmt(v: number): string {

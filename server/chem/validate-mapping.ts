@@ -1,10 +1,12 @@
 /**
  * Refusals for a mapping that cannot be evaluated against its molecule (ChemError, 422): bead ids
  * duplicated, atom indices outside the molecule or not non-negative integers, weights not in (0, 1],
- * an atom listed twice in one bead, an unknown centre rule. Softer problems (weights summing above or
+ * an atom listed twice in one bead, an unknown centre rule, a measured value outside the draft's limits
+ * or without a source, an unknown partition basis. Softer problems (weights summing above or
  * below 1, unassigned atoms …) are checks, not refusals (checks.ts).
  */
 import type { Mapping } from '../../src/shared/chem';
+import { PARTITION_BASES, measuredProblem } from '../../src/shared/partition-input';
 import { ChemError } from './errors';
 
 const RULES = new Set(['mass', 'geometry', 'geometry-heavy']);
@@ -12,6 +14,9 @@ const RULES = new Set(['mass', 'geometry', 'geometry-heavy']);
 export function validateMapping(mapping: Mapping, atomCount: number): void {
   if (!mapping || !Array.isArray(mapping.beads)) {
     throw new ChemError('bad_mapping', 'The mapping must have a beads list.');
+  }
+  if (mapping.partitionBasis !== undefined && !PARTITION_BASES.includes(mapping.partitionBasis)) {
+    throw new ChemError('bad_partition_basis', `The partition basis is fragment or atoms; got "${String(mapping.partitionBasis)}".`);
   }
   const ids = new Set<string>();
   mapping.beads.forEach((bead, b) => {
@@ -21,6 +26,10 @@ export function validateMapping(mapping: Mapping, atomCount: number): void {
     ids.add(bead.id);
     if (!RULES.has(bead.centre)) {
       throw new ChemError('bad_centre_rule', `Bead "${bead.id}" has centre "${String(bead.centre)}"; use mass, geometry or geometry-heavy.`, { beadId: bead.id });
+    }
+    if (bead.measured !== undefined) {
+      const why = measuredProblem(bead.measured);
+      if (why) throw new ChemError('bad_measured_value', `Bead "${bead.id}": ${why}`, { beadId: bead.id });
     }
     const seen = new Set<number>();
     bead.atoms.forEach(({ index, weight }, k) => {

@@ -4,10 +4,18 @@ import { stateLabel } from './export-source';
 // The mapping table as RFC 4180 CSV (comma, CRLF, fields with a comma, quote, line break or a
 // leading '#' quoted). Lines starting with '#' before the header carry the mapping, version and
 // SHA-256; standard readers skip them with a comment option (papaparse: `comments: '#'`).
+// Partition columns: both estimates (atom sum, fragment), the modeller's measured value and its
+// source, and the value suggestions use (`dG_OW_kJ_per_mol`, from `partition_source`: measured,
+// fragment or atoms). An ionic bead has no partition value: its cells say "n/a (ionic)".
 
 export const CSV_COLUMNS = [
-  'bead', 'type', 'atoms', 'weights', 'mass', 'charge', 'logP', 'fragment_logP', 'dG_OW_kJ_per_mol', 'centre_rule', 'centre_x', 'centre_y', 'centre_z',
+  'bead', 'type', 'atoms', 'weights', 'mass', 'charge', 'ionic',
+  'logP_atom_sum', 'logP_fragment', 'logP_measured', 'measured_source',
+  'dG_atom_sum_kJ_per_mol', 'dG_fragment_kJ_per_mol', 'partition_source', 'dG_OW_kJ_per_mol',
+  'centre_rule', 'centre_x', 'centre_y', 'centre_z',
 ] as const;
+
+export const IONIC = 'n/a (ionic)';
 
 const field = (v: string) => (/[",\r\n]|^#/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
 const num = (v: number | null | undefined, digits: number) => (typeof v === 'number' && Number.isFinite(v) ? v.toFixed(digits) : '');
@@ -28,6 +36,7 @@ export function toCsv(s: ExportSource): string {
   const evals = new Map(s.evaluation?.beads.map((b) => [b.id, b]) ?? []);
   const rows = s.draft.beads.map((b) => {
     const e = evals.get(b.id);
+    const estimate = (v: number | null | undefined, digits: number) => (e?.ionic ? IONIC : num(v, digits));
     return [
       b.name,
       b.type ?? '',
@@ -35,9 +44,15 @@ export function toCsv(s: ExportSource): string {
       b.atoms.map((a) => String(a.weight)).join(' '),
       num(e?.mass, 4),
       e ? String(e.charge) : '',
-      num(e?.logP, 3),
-      num(e?.fragmentLogP, 3),
-      num(e?.deltaG, 2),
+      e ? (e.ionic ? 'yes' : 'no') : '',
+      estimate(e?.logP, 3),
+      estimate(e?.fragmentLogP, 3),
+      num(e?.measuredLogP, 3),
+      e?.measuredSource ?? '',
+      estimate(e?.deltaG, 2),
+      estimate(e?.fragmentDeltaG, 2),
+      e?.partitionSource ?? '',
+      e?.partitionSource === 'ionic' ? IONIC : num(e?.partitionDeltaG, 2),
       b.centre,
       num(e?.centre?.[0], 3),
       num(e?.centre?.[1], 3),

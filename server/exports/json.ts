@@ -1,6 +1,7 @@
 import { JSON_SCHEMA_PATH, versionContent, type ExportAtom, type ExportBond } from '../../src/shared/exports';
 import type { MappingBead, Topology } from '../../src/shared/chem';
 import type { ExportSource } from './export-source';
+import { IONIC } from './csv';
 
 // The JSON export (schema: public/schemas/beadloom-mapping-v1.json). `content` is exactly what
 // `sha256` covers: SHA-256 of the UTF-8 bytes of JSON.stringify(content), keys in the order written.
@@ -29,18 +30,30 @@ export function toJsonExport(s: ExportSource, exportedAt = new Date()) {
     evaluation: e
       ? {
           temperature: e.temperature,
-          beads: e.beads.map((b) => ({
-            id: b.id,
-            name: b.name,
-            mass: b.mass,
-            heavyAtoms: b.heavyAtoms,
-            charge: b.charge,
-            logP: b.logP,
-            fragmentLogP: b.fragmentLogP,
-            deltaG: b.deltaG,
-            suggestedType: b.suggestedType,
-            centre: b.centre,
-          })),
+          partitionBasis: e.partitionBasis ?? 'fragment',
+          beads: e.beads.map((b) => {
+            // An ionic bead has no partition value: "n/a (ionic)" where a number would be; the raw
+            // additive sum stays under its own name, for reference only.
+            const value = (v: number | null) => (b.ionic ? IONIC : v);
+            return {
+              id: b.id,
+              name: b.name,
+              mass: b.mass,
+              heavyAtoms: b.heavyAtoms,
+              charge: b.charge,
+              ionic: !!b.ionic,
+              logP: value(b.logP),
+              fragmentLogP: value(b.fragmentLogP),
+              deltaG: value(b.deltaG),
+              fragmentDeltaG: value(b.fragmentDeltaG ?? null),
+              additiveLogPIonic: b.additiveLogPIonic ?? null,
+              measured: b.measuredLogP === null || b.measuredLogP === undefined ? null : { logP: b.measuredLogP, deltaG: b.measuredDeltaG, source: b.measuredSource },
+              partitionSource: b.partitionSource ?? null,
+              partitionDeltaG: b.partitionSource === 'ionic' ? IONIC : (b.partitionDeltaG ?? null),
+              suggestedType: b.suggestedType,
+              centre: b.centre,
+            };
+          }),
           topology: namedTopology(e.topology, s.draft.beads),
           checks: e.checks.map((c) => ({ code: c.code, severity: c.severity, message: c.message })),
         }

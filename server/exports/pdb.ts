@@ -1,14 +1,16 @@
 import type { Vec3 } from '../../src/shared/chem';
 import type { ExportSource } from './export-source';
-import { FILE_TITLES, headerLines } from './csv';
+import { FILE_TITLES, IONIC, headerLines } from './csv';
 
 // The CG structure in the wwPDB format (Atomic Coordinate Entry Format v3.3): one HETATM pseudo-atom
 // per bead at its centre (residue CGM, chain A, residue 1), CONECT records for bead–bead bonds (both
 // directions, at most four partners a record), REMARK 1 lines saying what the file is and naming the
 // mapping, version and the full SHA-256 (64 hex digits do not fit one 80-column line with their label,
 // so they are split over two lines "sha256 (1/2): <first 32>" and "sha256 (2/2): <last 32>"; join the
-// two halves to check it), and REMARK 2 lines giving each serial's full bead name (the atom-name field holds four
-// characters). Columns follow the format's fixed positions; every line is at most 80 characters.
+// two halves to check it), REMARK 2 lines giving each serial's full bead name (the atom-name field holds four
+// characters) and REMARK 3 lines giving each bead's charge and partition value (ΔG_OW in kJ/mol with
+// where it comes from, or "n/a (ionic)" for a charged bead). Columns follow the format's fixed
+// positions; every line is at most 80 characters.
 // Centres are the evaluation's 3D centres in Å; without 3D coordinates the file falls back to the
 // drawing's 2D layout (z = 0), and REMARK 1 says so.
 
@@ -49,6 +51,13 @@ export function toPdb(s: ExportSource): string {
   s.draft.beads.forEach((b, i) => {
     serial.set(b.id, i + 1);
     remark(2, `bead ${pad(i + 1, 5)} ${b.name}`);
+  });
+  const evaluated = new Map(s.evaluation?.beads.map((b) => [b.id, b]) ?? []);
+  s.draft.beads.forEach((b, i) => {
+    const e = evaluated.get(b.id);
+    if (!e) return;
+    const dG = e.partitionSource === 'ionic' || (e.ionic && e.partitionSource !== 'measured') ? IONIC : typeof e.partitionDeltaG === 'number' ? `${e.partitionDeltaG.toFixed(2)} kJ/mol (${e.partitionSource})` : typeof e.deltaG === 'number' ? `${e.deltaG.toFixed(2)} kJ/mol (atoms)` : 'none';
+    remark(3, `bead ${pad(i + 1, 5)} charge ${e.charge.toFixed(2)} dG_OW ${dG}`);
   });
   s.draft.beads.forEach((b, i) => {
     const [x, y, z] = points.get(b.id)!;

@@ -1,4 +1,5 @@
 import type { Molecule } from '../../src/shared/chem';
+import { logPWarningOf } from '../chem/charged-groups';
 import type { CoordinatesState, MoleculeDetail, MoleculeSketch, MoleculeSummary } from '../../src/shared/molecules';
 
 // Database rows of `molecules` → the API's MoleculeSummary / MoleculeDetail.
@@ -58,6 +59,7 @@ export function toSummary(row: MoleculeRow, queuePosition: number | null, model 
     formula: row.formula,
     molecularWeight: row.molecular_weight,
     logP: row.log_p,
+    logPWarning: logPWarningOf(model),
     heavyAtoms: row.heavy_atoms,
     netCharge: row.net_charge,
     notes: row.notes,

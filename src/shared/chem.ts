@@ -10,7 +10,12 @@
 
 export type CentreRule = 'mass' | 'geometry' | 'geometry-heavy';
 export type Resolution = '4:1' | '3:1' | '2:1';
-export type SizeClass = 'regular' | 'small' | 'tiny';
+/** Size class of a bead: the heavy atoms a bead of that class stands for (common practice, no source). */
+export type SizeClass = 4 | 3 | 2;
+/** Which estimate bead type suggestions use when a bead has no measured value (per mapping). */
+export type PartitionBasis = 'fragment' | 'atoms';
+/** Where a bead's partition value comes from: a measured value, one of the estimates, or none (ionic). */
+export type PartitionSource = 'measured' | 'fragment' | 'atoms' | 'ionic';
 export type Severity = 'error' | 'warning' | 'info';
 export type Vec3 = [number, number, number];
 
@@ -88,21 +93,35 @@ export interface MappingAtom {
   weight: number;
 }
 
+/**
+ * A measured or literature partition value a modeller entered for a bead, with its source. A logP is
+ * a 298.15 K quantity; a ΔG (kJ/mol) is read as ΔG_OW at 298.15 K and turned into logP the same way.
+ */
+export interface MeasuredPartition {
+  kind: 'logP' | 'deltaG';
+  value: number;
+  source: string;
+}
+
 export interface MappingBead {
   id: string;
   name: string;
   type?: string;
   centre: CentreRule;
   atoms: MappingAtom[];
+  measured?: MeasuredPartition;
 }
 
 export interface Mapping {
   beads: MappingBead[];
+  /** Basis of type suggestions for beads without a measured value; 'fragment' when absent. */
+  partitionBasis?: PartitionBasis;
 }
 
 export interface BeadType {
   name: string;
-  sizeClass: SizeClass;
+  /** Heavy atoms per bead of this type (4, 3 or 2). */
+  heavyAtomsPerBead: SizeClass;
   charge: number;
   /** kJ/mol, ΔG_OW range (positive = prefers octanol). */
   deltaGMin: number;
@@ -123,13 +142,29 @@ export interface BeadEvaluation {
   name: string;
   mass: number;
   heavyAtoms: number;
+  /** Σ weight × formal charge, exact (rounded to 1e-9 only to drop floating-point noise). */
   charge: number;
-  logP: number;
+  /** Net charge not zero: no partition value applies ("n/a (ionic)"); the type comes from charge and size. */
+  ionic: boolean;
+  /** Σ weighted atom contributions (Wildman–Crippen); null for an ionic bead. */
+  logP: number | null;
+  /** The same sum for an ionic bead, kept for reference only: it is not a partition value. Null otherwise. */
+  additiveLogPIonic: number | null;
+  /** The bead cut out and capped (fragments.ts); null for an ionic bead or when not computed. */
   fragmentLogP: number | null;
   /** kJ/mol from `logP`. */
-  deltaG: number;
+  deltaG: number | null;
   /** kJ/mol from `fragmentLogP`. */
   fragmentDeltaG: number | null;
+  /** The modeller's measured or literature value, as logP at 298.15 K and as ΔG at the evaluation temperature. */
+  measuredLogP: number | null;
+  measuredDeltaG: number | null;
+  measuredSource: string | null;
+  /** The value suggestions and exports use: measured, else the mapping's basis, else the other estimate. */
+  partitionSource: PartitionSource | null;
+  partitionLogP: number | null;
+  partitionDeltaG: number | null;
+  /** Heavy atoms per bead of the bead's size class (4, 3, 2), from its weighted heavy-atom count. */
   sizeClass: SizeClass | null;
   suggestedType: string | null;
   /** Whether the suggested type's ΔG range holds the bead's ΔG (false: nearest type). */
@@ -154,8 +189,10 @@ export interface Check {
 }
 
 export interface Evaluation {
+  /** K. logP is a 298.15 K quantity; ΔG at another temperature scales it linearly (ΔG = ln10·R·T·logP). */
   temperature: number;
   resolution: Resolution;
+  partitionBasis: PartitionBasis;
   beads: BeadEvaluation[];
   topology: Topology;
   checks: Check[];

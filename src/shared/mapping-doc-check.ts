@@ -5,13 +5,15 @@
  * at what the update touched (Yjs reports the changed keys of every type in the transaction), so
  * checking costs the size of the edit, not of the document. `checkDoc` walks everything (tests, loads).
  *
- * Refused: anything at the top level but `beads` and `atoms`; list content anywhere; a bead that is
- * not a Y.Map of exactly `name` (1–40 characters), `type` (string ≤ 40 or null) and `centre` (a centre
- * rule); an atom key that is not a decimal index below the molecule's atom count; an atom value that is
- * not a non-empty plain object of bead id → weight in (0, 1].
+ * Refused: anything at the top level but `beads`, `atoms` and `settings`; list content anywhere; a bead
+ * that is not a Y.Map of `name` (1–40 characters), `type` (string ≤ 40 or null), `centre` (a centre
+ * rule) and optionally `measured` (null or a measured value within MEASURED_LIMITS with a source of
+ * 1–300 characters); an atom key that is not a decimal index below the molecule's atom count; an atom
+ * value that is not a non-empty plain object of bead id → weight in (0, 1]; a setting other than
+ * `partitionBasis` ('fragment' or 'atoms').
  */
 import * as Y from 'yjs';
-import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, atomsOf, beadsOf } from './mapping-doc';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, atomsOf, beadsOf, measuredProblem, settingsOf } from './mapping-doc';
 
 export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range';
 
@@ -45,6 +47,20 @@ export function checkBead(id: string, value: unknown): DocProblem | null {
   }
   const centre = value.get('centre');
   if (!CENTRE_RULES.includes(centre as never)) return problem('wrong_type', `${path}.centre`, `The centre rule is one of ${CENTRE_RULES.join(', ')}.`);
+  const measured = value.get('measured');
+  if (measured !== undefined && measured !== null) {
+    if (measured instanceof Y.AbstractType || measured instanceof Uint8Array) return problem('wrong_type', `${path}.measured`, 'A measured value is a plain object { kind, value, source }.');
+    const why = measuredProblem(measured);
+    if (why) return problem('wrong_type', `${path}.measured`, why);
+  }
+  return null;
+}
+
+export function checkSetting(key: string, value: unknown): DocProblem | null {
+  const path = `${SETTINGS}.${key}`;
+  if (!(SETTING_KEYS as readonly string[]).includes(key)) return problem('unknown_key', path, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
+  if (value === undefined) return null; // deleted
+  if (!PARTITION_BASES.includes(value as never)) return problem('wrong_type', path, `The partition basis is ${PARTITION_BASES.join(' or ')}.`);
   return null;
 }
 
@@ -69,7 +85,7 @@ export function checkAtom(key: string, value: unknown, atomCount: number): DocPr
 
 function checkTopLevel(doc: Y.Doc): DocProblem | null {
   for (const [name, type] of doc.share) {
-    if (name !== BEADS && name !== ATOMS) return problem('unknown_key', name, `The draft has only "${BEADS}" and "${ATOMS}" at the top; "${name}" is not allowed.`);
+    if (name !== BEADS && name !== ATOMS && name !== SETTINGS) return problem('unknown_key', name, `The draft has only "${BEADS}", "${ATOMS}" and "${SETTINGS}" at the top; "${name}" is not allowed.`);
     if ((type as unknown as { _start: unknown })._start !== null) return problem('wrong_type', name, `"${name}" is a map, not a list.`);
   }
   return null;
@@ -87,6 +103,12 @@ export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
     const p = checkAtom(key, value, atomCount);
     if (p) return p;
   }
+  if (doc.share.has(SETTINGS)) {
+    for (const [key, value] of settingsOf(doc).entries()) {
+      const p = checkSetting(key, value);
+      if (p) return p;
+    }
+  }
   return null;
 }
 
@@ -99,6 +121,7 @@ export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, 
   // it, and the transaction would then name the generic one.
   const beads = beadsOf(doc) as Y.Map<unknown>;
   const atoms = atomsOf(doc) as Y.Map<unknown>;
+  const settings = settingsOf(doc);
   const transactions: Y.Transaction[] = [];
   const collect = (tr: Y.Transaction) => void transactions.push(tr);
   doc.on('afterTransaction', collect);
@@ -117,6 +140,7 @@ export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, 
         const p =
           type === (beads as unknown) ? checkBead(key, beads.get(key))
           : type === (atoms as unknown) ? checkAtom(key, atoms.get(key), atomCount)
+          : type === (settings as unknown) ? checkSetting(key, settings.get(key))
           : nestedBead(type, beads);
         if (p) return p;
       }

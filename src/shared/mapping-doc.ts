@@ -3,8 +3,16 @@
  *
  * Shape (nothing else may exist at the top level; the server refuses updates that add anything):
  *
- *   doc.getMap('beads')   bead id → Y.Map { name: string, type: string | null, centre: CentreRule }
- *   doc.getMap('atoms')   atom index as a decimal string ("0", "17") → plain object { [beadId]: weight }
+ *   doc.getMap('beads')    bead id → Y.Map { name: string, type: string | null, centre: CentreRule,
+ *                          measured?: { kind: 'logP' | 'deltaG', value: number, source: string } | null }
+ *   doc.getMap('atoms')    atom index as a decimal string ("0", "17") → plain object { [beadId]: weight }
+ *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms' }
+ *
+ * `measured` is a modeller's measured or literature partition value for the bead with its source; it
+ * wins over both estimates in suggestions and exports (limits: MEASURED_LIMITS, a source of 1 to
+ * MEASURED_SOURCE_MAX characters). It is one plain object, always replaced whole, so a value and its
+ * source never come from two different people. `partitionBasis` picks which estimate suggestions use
+ * for beads without a measured value (absent means 'fragment').
  *
  * Why this shape:
  * - An atom's membership is ONE map entry whose value is a plain object, always replaced whole (never
@@ -26,11 +34,15 @@
  * Pass an `origin` (e.g. the editor's UndoManager tracked origin) when you need one.
  */
 import * as Y from 'yjs';
-import type { CentreRule, Mapping, MappingBead } from './chem';
+import type { CentreRule, Mapping, MappingBead, MeasuredPartition, PartitionBasis } from './chem';
+import { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES, measuredProblem } from './partition-input';
 
 export const BEADS = 'beads';
 export const ATOMS = 'atoms';
-export const BEAD_KEYS = ['name', 'type', 'centre'] as const;
+export const SETTINGS = 'settings';
+export const BEAD_KEYS = ['name', 'type', 'centre', 'measured'] as const;
+export const SETTING_KEYS = ['partitionBasis'] as const;
+export { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES, measuredProblem };
 export const CENTRE_RULES: readonly CentreRule[] = ['mass', 'geometry', 'geometry-heavy'];
 export const BEAD_NAME_MAX = 40;
 export const BEAD_TYPE_MAX = 40;
@@ -41,10 +53,19 @@ export interface BeadProps {
   name: string;
   type: string | null;
   centre: CentreRule;
+  measured?: MeasuredPartition | null;
 }
 
 export const beadsOf = (doc: Y.Doc) => doc.getMap<Y.Map<unknown>>(BEADS);
 export const atomsOf = (doc: Y.Doc) => doc.getMap<AtomEntry>(ATOMS);
+export const settingsOf = (doc: Y.Doc) => doc.getMap<unknown>(SETTINGS);
+
+/** The mapping's partition basis as the draft holds it (undefined when never set). */
+export function readPartitionBasis(doc: Y.Doc): PartitionBasis | undefined {
+  if (!doc.share.has(SETTINGS)) return undefined;
+  const v = settingsOf(doc).get('partitionBasis');
+  return PARTITION_BASES.includes(v as PartitionBasis) ? (v as PartitionBasis) : undefined;
+}
 
 /** A fresh bead id: short, random, unlikely to collide between peers. */
 export function newBeadId(): string {
@@ -56,7 +77,13 @@ export function newBeadId(): string {
 export function readBead(doc: Y.Doc, id: string): BeadProps | null {
   const m = beadsOf(doc).get(id);
   if (!(m instanceof Y.Map)) return null;
-  return { name: String(m.get('name') ?? ''), type: (m.get('type') as string | null | undefined) ?? null, centre: (m.get('centre') as CentreRule) ?? 'mass' };
+  const measured = m.get('measured');
+  return {
+    name: String(m.get('name') ?? ''),
+    type: (m.get('type') as string | null | undefined) ?? null,
+    centre: (m.get('centre') as CentreRule) ?? 'mass',
+    measured: measured && measuredProblem(measured) === null ? (measured as MeasuredPartition) : null,
+  };
 }
 
 /** The draft in the chemistry core's input form. Beads ordered by their lowest atom, then id. */
@@ -65,7 +92,7 @@ export function docToMapping(doc: Y.Doc): Mapping {
   beadsOf(doc).forEach((m, id) => {
     const p = readBead(doc, id);
     if (!p || !(m instanceof Y.Map)) return;
-    byId.set(id, { id, name: p.name, ...(p.type ? { type: p.type } : {}), centre: p.centre, atoms: [] });
+    byId.set(id, { id, name: p.name, ...(p.type ? { type: p.type } : {}), centre: p.centre, atoms: [], ...(p.measured ? { measured: { ...p.measured } } : {}) });
   });
   atomsOf(doc).forEach((entry, key) => {
     for (const [beadId, weight] of Object.entries(entry ?? {})) byId.get(beadId)?.atoms.push({ index: Number(key), weight });
@@ -74,7 +101,8 @@ export function docToMapping(doc: Y.Doc): Mapping {
   for (const b of beads) b.atoms.sort((x, y) => x.index - y.index);
   const first = (b: MappingBead) => b.atoms[0]?.index ?? Number.MAX_SAFE_INTEGER;
   beads.sort((a, b) => first(a) - first(b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  return { beads };
+  const partitionBasis = readPartitionBasis(doc);
+  return partitionBasis ? { beads, partitionBasis } : { beads };
 }
 
 /** Writes a whole mapping into an empty (or to-be-replaced) draft, e.g. to seed or copy a mapping. */
@@ -82,9 +110,11 @@ export function mappingToDoc(doc: Y.Doc, mapping: Mapping, origin?: unknown): vo
   doc.transact(() => {
     beadsOf(doc).clear();
     atomsOf(doc).clear();
+    if (mapping.partitionBasis) settingsOf(doc).set('partitionBasis', mapping.partitionBasis);
+    else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('partitionBasis');
     const atoms = new Map<number, AtomEntry>();
     for (const b of mapping.beads) {
-      putBead(doc, b.id, { name: b.name, type: b.type ?? null, centre: b.centre });
+      putBead(doc, b.id, { name: b.name, type: b.type ?? null, centre: b.centre, measured: b.measured ?? null });
       for (const a of b.atoms) atoms.set(a.index, { ...atoms.get(a.index), [b.id]: a.weight });
     }
     for (const [index, entry] of atoms) atomsOf(doc).set(String(index), entry);
@@ -96,6 +126,7 @@ function putBead(doc: Y.Doc, id: string, p: BeadProps): void {
   m.set('name', p.name);
   m.set('type', p.type);
   m.set('centre', p.centre);
+  if (p.measured) m.set('measured', { ...p.measured });
   beadsOf(doc).set(id, m);
 }
 
@@ -218,6 +249,21 @@ export function setType(doc: Y.Doc, beadId: string, type: string | null, origin?
 
 export function setCentre(doc: Y.Doc, beadId: string, centre: CentreRule, origin?: unknown): void {
   setProp(doc, beadId, 'centre', centre, origin);
+}
+
+/** Sets (or with null clears) a bead's measured or literature partition value; refuses one outside the limits. */
+export function setMeasured(doc: Y.Doc, beadId: string, measured: MeasuredPartition | null, origin?: unknown): void {
+  if (measured !== null) {
+    const problem = measuredProblem(measured);
+    if (problem) throw new Error(problem);
+  }
+  setProp(doc, beadId, 'measured', measured === null ? null : { kind: measured.kind, value: measured.value, source: measured.source.trim() }, origin);
+}
+
+/** Chooses the estimate that type suggestions use for beads without a measured value. */
+export function setPartitionBasis(doc: Y.Doc, basis: PartitionBasis, origin?: unknown): void {
+  if (!PARTITION_BASES.includes(basis)) throw new Error(`The partition basis is ${PARTITION_BASES.join(' or ')}.`);
+  doc.transact(() => settingsOf(doc).set('partitionBasis', basis), origin);
 }
 
 /** Deletes a bead and takes it out of every atom entry. */

@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { refineSmilesCharacters } from './smiles-text';
 import { beadTypeRow } from './bead-types';
 import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX } from './mapping-doc';
+import { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES } from './partition-input';
 
 export const SMILES_MAX = 5000;
 export const MOLFILE_MAX = 5_000_000;
@@ -26,16 +27,28 @@ export const mappingAtomSchema = z.strictObject({
     .default(1),
 });
 
+/** A measured or literature partition value with its source (the draft's limits, mapping-doc.ts). */
+export const measuredSchema = z
+  .strictObject({
+    kind: z.enum(['logP', 'deltaG'], 'A measured value is a logP or a deltaG (kJ/mol).'),
+    value: z.number('A measured value is a number.').finite(),
+    source: z.string().trim().min(1, 'Give the source of the measured value.').max(MEASURED_SOURCE_MAX, `A source has at most ${MEASURED_SOURCE_MAX} characters.`),
+  })
+  .refine((m) => Math.abs(m.value) <= MEASURED_LIMITS[m.kind], { message: `A measured logP lies within ±${MEASURED_LIMITS.logP}, a ΔG within ±${MEASURED_LIMITS.deltaG} kJ/mol.`, path: ['value'] });
+
+export const partitionBasisSchema = z.enum(PARTITION_BASES as ['fragment', 'atoms'], 'The partition basis is fragment or atoms.');
+
 export const mappingBeadSchema = z.strictObject({
   id: z.string().min(1, 'A bead needs an id.').max(BEAD_ID_MAX, `A bead id has at most ${BEAD_ID_MAX} characters.`),
   name: z.string().max(BEAD_NAME_MAX, `A bead name has at most ${BEAD_NAME_MAX} characters.`),
   type: z.string().max(BEAD_TYPE_MAX, `A bead type has at most ${BEAD_TYPE_MAX} characters.`).optional(),
   centre: centreRuleSchema,
   atoms: z.array(mappingAtomSchema).max(BEADS_MAX, `A bead holds at most ${BEADS_MAX} atoms.`),
+  measured: measuredSchema.optional(),
 });
 
 export const mappingSchema = z
-  .strictObject({ beads: z.array(mappingBeadSchema).max(BEADS_MAX, `A mapping has at most ${BEADS_MAX} beads.`) })
+  .strictObject({ beads: z.array(mappingBeadSchema).max(BEADS_MAX, `A mapping has at most ${BEADS_MAX} beads.`), partitionBasis: partitionBasisSchema.optional() })
   .refine((m) => new Set(m.beads.map((b) => b.id)).size === m.beads.length, { message: 'Bead ids must be unique.', path: ['beads'] });
 
 const point = z.tuple([z.number().finite(), z.number().finite(), z.number().finite()], 'A coordinate is [x, y, z] in Å.');

@@ -92,6 +92,8 @@ export interface MoleculeSummary {
   formula: string;
   molecularWeight: number;
   logP: number;
+  /** Set for a charged species (ion, salt, zwitterion): its additive logP is not a partition value. */
+  logPWarning: string | null;
   heavyAtoms: number;
   netCharge: number;
   notes: string;

@@ -79,37 +79,44 @@ describe('mappings', () => {
 describe('bead type libraries', () => {
   const lib = (types: unknown[]) => modeller.put(`/api/projects/${projectId}/bead-types`, { types });
 
-  it('the demo project brings an illustrative library', async () => {
+  it('the demo project brings an illustrative library: its note once, types named in plain words, size in its own field', async () => {
     const res = await student.get(`/api/projects/${projectId}/bead-types`).expect(200);
     expect(res.body.types.length).toBeGreaterThan(10);
-    expect(res.body.types[0].description).toMatch(/illustrative/i);
+    expect(res.body.note).toMatch(/illustrative/i);
+    for (const t of res.body.types) expect(t.description).toBe('');
+    expect(res.body.types).toContainEqual(expect.objectContaining({ name: 'middle, 4 atoms', heavyAtomsPerBead: 4, charge: 0 }));
+    expect(res.body.types).toContainEqual(expect.objectContaining({ name: 'anion, 2 atoms', heavyAtomsPerBead: 2, charge: -1 }));
+    expect(res.body.types).toContainEqual(expect.objectContaining({ name: 'cation, 3 atoms', heavyAtomsPerBead: 3, charge: 1 }));
   });
 
   it('exports CSV and imports it back unchanged', async () => {
     const before = (await modeller.get(`/api/projects/${projectId}/bead-types`).expect(200)).body.types;
     const csv = await modeller.get(`/api/projects/${projectId}/bead-types?format=csv`).expect(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    expect(csv.text.split('\n')[0]).toBe('name,size_class,charge,delta_g_min,delta_g_max,description');
+    expect(csv.text.split('\n')[0]).toBe('name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max,description');
     const res = await modeller.put(`/api/projects/${projectId}/bead-types`, { csv: csv.text }).expect(200);
     expect(res.body.types).toEqual(before);
   });
 
   it('replaces the library, and suggestions come from it', async () => {
-    const res = await lib([{ name: 'ANY', sizeClass: 'regular', charge: 0, deltaGMin: -1000, deltaGMax: 1000 }]).expect(200);
-    expect(res.body.types).toEqual([{ name: 'ANY', sizeClass: 'regular', charge: 0, deltaGMin: -1000, deltaGMax: 1000, description: '' }]);
+    const res = await lib([{ name: 'ANY', heavyAtomsPerBead: 4, charge: 0, deltaGMin: -1000, deltaGMax: 1000 }]).expect(200);
+    expect(res.body.types).toEqual([{ name: 'ANY', heavyAtomsPerBead: 4, charge: 0, deltaGMin: -1000, deltaGMax: 1000, description: '' }]);
     expect(res.body.updatedAt).toEqual(expect.any(String));
+    expect(res.body.note).toMatch(/illustrative/i); // kept when the body does not give one
     const m = (await modeller.get(`/api/mappings/${mappingId}`).expect(200)).body as MappingDetail;
-    const regular = m.evaluation!.beads.filter((b) => b.sizeClass === 'regular');
+    const regular = m.evaluation!.beads.filter((b) => b.sizeClass === 4 && !b.ionic);
     expect(regular.length).toBeGreaterThan(0);
     for (const b of regular) expect(b.suggestedType).toBe('ANY');
   });
 
   it.each([
-    ['duplicate names', { types: [{ name: 'A', sizeClass: 'regular', charge: 0, deltaGMin: 0, deltaGMax: 1 }, { name: 'A', sizeClass: 'small', charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
-    ['a range whose minimum exceeds its maximum', { types: [{ name: 'A', sizeClass: 'regular', charge: 0, deltaGMin: 5, deltaGMax: 1 }] }],
-    ['an unknown size class', { types: [{ name: 'A', sizeClass: 'huge', charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
-    ['a fractional charge', { types: [{ name: 'A', sizeClass: 'regular', charge: 0.5, deltaGMin: 0, deltaGMax: 1 }] }],
-    ['a CSV row with a missing number', { csv: 'name,size_class,charge,delta_g_min,delta_g_max\nA,regular,0,,1\n' }],
+    ['duplicate names', { types: [{ name: 'A', heavyAtomsPerBead: 4, charge: 0, deltaGMin: 0, deltaGMax: 1 }, { name: 'A', heavyAtomsPerBead: 3, charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a range whose minimum exceeds its maximum', { types: [{ name: 'A', heavyAtomsPerBead: 4, charge: 0, deltaGMin: 5, deltaGMax: 1 }] }],
+    ['an unknown size class', { types: [{ name: 'A', heavyAtomsPerBead: 5, charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['the old size words', { types: [{ name: 'A', sizeClass: 'regular', charge: 0, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a fractional charge', { types: [{ name: 'A', heavyAtomsPerBead: 4, charge: 0.5, deltaGMin: 0, deltaGMax: 1 }] }],
+    ['a note that is too long', { types: [], note: 'x'.repeat(501) }],
+    ['a CSV row with a missing number', { csv: 'name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max\nA,4,0,,1\n' }],
     ['a CSV without its header', { csv: 'A,regular,0,0,1\n' }],
     ['neither types nor csv', { rows: [] }],
   ])('refuses %s and changes nothing', async (_what, body) => {

@@ -174,7 +174,7 @@ export const ROUTE_CASES: RouteCase[] = [
     path: '/api/projects/:id/bead-types',
     request: async (env, c) => ({
       url: `/api/projects/${env.projectId}/bead-types`,
-      body: { types: [{ name: `X-${c}`, sizeClass: 'regular', charge: 0, deltaGMin: -5, deltaGMax: 5 }] },
+      body: { types: [{ name: `X-${c}`, heavyAtomsPerBead: 4, charge: 0, deltaGMin: -5, deltaGMax: 5 }] },
     }),
     expect: inProject(200, EDITORS),
   },

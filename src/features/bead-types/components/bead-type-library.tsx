@@ -8,7 +8,7 @@ import { usePutBeadTypes } from '../api/put-bead-types';
 import { CsvImportButton } from './csv-import-button';
 import { BeadTypeRowEditor } from './bead-type-row';
 
-const blank = (): BeadTypeRow => ({ name: '', sizeClass: 'regular', charge: 0, deltaGMin: -5, deltaGMax: 5, description: '' });
+const blank = (): BeadTypeRow => ({ name: '', heavyAtomsPerBead: 4, charge: 0, deltaGMin: -5, deltaGMax: 5, description: '' });
 
 /** The project's bead type library: a table everyone reads and modellers edit, saved as a whole. */
 export function BeadTypeLibrary({ projectId, canEdit }: { projectId: number; canEdit: boolean }) {
@@ -39,11 +39,12 @@ export function BeadTypeLibrary({ projectId, canEdit }: { projectId: number; can
 
   return (
     <div className="flex flex-col gap-3">
+      {library.data.note && <p role="note" className="rounded-md border border-paper-300 bg-paper-100 px-3 py-2 text-sm text-ink-700">{library.data.note}</p>}
       <div className="overflow-x-auto">
         <table aria-label="Bead types" className="w-full border-collapse text-sm">
           <thead>
             <tr className="border-b border-paper-300 text-left text-xs text-ink-600">
-              {['Name', 'Size class', 'Charge', 'ΔG_OW min (kJ/mol)', 'ΔG_OW max (kJ/mol)', 'Description', ...(editable ? [''] : [])].map((h, i) => (
+              {['Name', 'Heavy atoms per bead', 'Charge', 'ΔG_OW min (kJ/mol)', 'ΔG_OW max (kJ/mol)', 'Description', ...(editable ? [''] : [])].map((h, i) => (
                 <th key={i} scope="col" className="px-2 py-1.5 font-semibold whitespace-nowrap">{h || <span className="sr-only">Actions</span>}</th>
               ))}
             </tr>

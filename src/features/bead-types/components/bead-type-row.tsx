@@ -20,7 +20,7 @@ export function BeadTypeRowEditor({ row, index, canEdit, onChange, onRemove }: R
     return (
       <tr className="border-b border-paper-200 tabular-nums">
         <td className="px-2 py-1.5 font-semibold">{row.name}</td>
-        <td className="px-2 py-1.5">{row.sizeClass}</td>
+        <td className="px-2 py-1.5">{row.heavyAtomsPerBead}</td>
         <td className="px-2 py-1.5">{row.charge}</td>
         <td className="px-2 py-1.5">{row.deltaGMin}</td>
         <td className="px-2 py-1.5">{row.deltaGMax}</td>
@@ -32,7 +32,7 @@ export function BeadTypeRowEditor({ row, index, canEdit, onChange, onRemove }: R
     <tr className="border-b border-paper-200">
       <td className="px-1 py-1"><input aria-label={`Name of type ${index + 1}`} value={row.name} onChange={(e) => onChange({ ...row, name: e.target.value })} className={`${cell} w-24 font-semibold`} /></td>
       <td className="px-1 py-1">
-        <select aria-label={label('Size class')} value={row.sizeClass} onChange={(e) => onChange({ ...row, sizeClass: e.target.value as BeadTypeRow['sizeClass'] })} className={cell}>
+        <select aria-label={label('Heavy atoms per bead')} value={row.heavyAtomsPerBead} onChange={(e) => onChange({ ...row, heavyAtomsPerBead: Number(e.target.value) as BeadTypeRow['heavyAtomsPerBead'] })} className={cell}>
           {SIZE_CLASSES.map((s) => <option key={s} value={s}>{s}</option>)}
         </select>
       </td>

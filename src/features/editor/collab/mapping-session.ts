@@ -12,7 +12,7 @@ import {
   type EvaluationMessage,
   type SessionMessage,
 } from '../../../shared/collab-protocol';
-import { ATOMS, BEADS } from '../../../shared/mapping-doc';
+import { ATOMS, BEADS, SETTINGS } from '../../../shared/mapping-doc';
 import { presenceColour } from '../model/palette';
 import type { PresenceState } from '../model/presence';
 
@@ -49,7 +49,7 @@ export class MappingSession {
   private everConnected = false;
 
   constructor(mappingId: number) {
-    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS)], { trackedOrigins: new Set([this.origin]), captureTimeout: 0 });
+    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS), this.doc.getMap(SETTINGS)], { trackedOrigins: new Set([this.origin]), captureTimeout: 0 });
     const scheme = window.location.protocol === 'https:' ? 'wss' : 'ws';
     this.provider = new WebsocketProvider(`${scheme}://${window.location.host}/collab`, String(mappingId), this.doc, BROADCAST_CHANNEL_OFF);
     this.provider.messageHandlers[MESSAGE_EVALUATION] = (_enc, dec) => this.set({ evaluation: readJson<EvaluationMessage>(dec) });

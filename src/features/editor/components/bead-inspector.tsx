@@ -5,6 +5,7 @@ import { BEAD_NAME_MAX, CENTRE_RULES, renameBead, setCentre, setType } from '../
 import type { EditorContext } from '../commands/registry';
 import type { BeadView } from '../model/bead-view';
 import { AtomWeights } from './atom-weights';
+import { MeasuredValue } from './measured-value';
 
 const CENTRE_LABEL: Record<CentreRule, string> = { mass: 'Centre of mass', geometry: 'Centre of geometry', 'geometry-heavy': 'Geometry of heavy atoms' };
 const control = 'w-full rounded-md border border-paper-400 bg-paper-50 px-2 py-1 text-sm text-ink-900 focus:border-ink-500 disabled:opacity-60';
@@ -65,7 +66,7 @@ export const BeadInspector = memo(function BeadInspector({ ctx, bead, evaluation
           <select value={bead.type ?? ''} disabled={ctx.readOnly} onChange={(e) => setType(ctx.doc, bead.id, e.target.value || null, ctx.origin)} className={control}>
             <option value="">No type</option>
             {types.map((t) => (
-              <option key={t.name} value={t.name}>{t.name}{t.sizeClass ? ` · ${t.sizeClass}` : ''}</option>
+              <option key={t.name} value={t.name}>{t.name}</option>
             ))}
           </select>
         </label>
@@ -79,6 +80,7 @@ export const BeadInspector = memo(function BeadInspector({ ctx, bead, evaluation
       {suggestion && (
         <p className="flex flex-wrap items-center gap-2 text-sm text-ink-700">
           Suggested: <strong>{suggestion}</strong>
+          {evaluation?.ionic && <span className="text-xs">(from charge and size: a charged bead has no partition value)</span>}
           {evaluation?.suggestedTypeFits === false && <span className="text-xs">(nearest; ΔG outside every range)</span>}
           {!ctx.readOnly && bead.type !== suggestion && (
             <button type="button" onClick={() => setType(ctx.doc, bead.id, suggestion, ctx.origin)} className="rounded-md bg-ink-700 px-2 py-0.5 text-xs font-semibold text-paper-50 hover:bg-ink-800">
@@ -87,6 +89,7 @@ export const BeadInspector = memo(function BeadInspector({ ctx, bead, evaluation
           )}
         </p>
       )}
+      <MeasuredValue ctx={ctx} bead={bead} evaluation={evaluation} />
       <AtomWeights ctx={ctx} bead={bead} />
     </section>
   );

@@ -1,8 +1,8 @@
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type Row as TableRow } from '@tanstack/react-table';
 import { memo, useMemo } from 'react';
 import type * as Y from 'yjs';
-import type { BeadEvaluation, Evaluation } from '../../../shared/chem';
-import { setType } from '../../../shared/mapping-doc';
+import type { BeadEvaluation, Evaluation, PartitionBasis, PartitionSource } from '../../../shared/chem';
+import { PARTITION_BASES, setPartitionBasis, setType } from '../../../shared/mapping-doc';
 import type { BeadView, MappingView } from '../model/bead-view';
 import { formatFixed, formatMass, formatSigned } from '../model/number-format';
 import { ThreadCountButton, type EditorThreads } from './thread-badges';
@@ -29,6 +29,13 @@ interface BeadTableProps extends Editing {
 
 const col = createColumnHelper<Row>();
 const CENTRE_LABEL = { mass: 'Mass', geometry: 'Geometry', 'geometry-heavy': 'Geometry (heavy)' } as const;
+export const IONIC_TEXT = 'n/a (ionic)';
+const BASIS_LABEL: Record<PartitionBasis, string> = { fragment: 'fragment (bead cut out and capped)', atoms: 'atom sum (Σ atom contributions)' };
+const SOURCE_LABEL: Record<PartitionSource, string> = { measured: 'measured', fragment: 'fragment', atoms: 'atom sum', ionic: IONIC_TEXT };
+
+/** A partition estimate of a bead, or "n/a (ionic)" for a charged bead, which has none. */
+const estimate = (ev: BeadEvaluation | undefined, v: number | null | undefined, digits: number) =>
+  ev?.ionic ? <span className="text-ink-600">{IONIC_TEXT}</span> : formatSigned(v, digits);
 
 /**
  * One row per bead with the server's live numbers; a row press selects the bead. The columns stay
@@ -57,12 +64,21 @@ export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation,
       }),
       col.accessor((r) => r.bead.type ?? '', { id: 'type', header: 'Type', cell: (c) => c.getValue() || <span className="text-ink-400">none</span> }),
       col.accessor((r) => r.ev?.heavyAtoms, { id: 'heavy', header: 'Heavy atoms', cell: (c) => formatFixed(c.getValue(), 2).replace(/\.00$/, '') }),
+      col.accessor((r) => r.ev?.sizeClass ?? null, { id: 'size', header: 'Size class (heavy atoms per bead)', cell: (c) => c.getValue() ?? '–' }),
       col.accessor((r) => r.ev?.mass, { id: 'mass', header: 'Mass (g/mol)', cell: (c) => formatMass(c.getValue()) }),
-      col.accessor((r) => r.ev?.charge, { id: 'charge', header: 'Charge', cell: (c) => formatSigned(c.getValue(), 0) }),
-      col.accessor((r) => r.ev?.logP, { id: 'logp', header: 'logP', cell: (c) => formatSigned(c.getValue(), 2) }),
-      col.accessor((r) => r.ev?.fragmentLogP, { id: 'fraglogp', header: 'Fragment logP', cell: (c) => formatSigned(c.getValue(), 2) }),
-      col.accessor((r) => r.ev?.deltaG, { id: 'dg', header: 'ΔG_OW (kJ/mol)', cell: (c) => formatSigned(c.getValue(), 1) }),
-      col.accessor((r) => r.ev?.sizeClass ?? null, { id: 'size', header: 'Size class', cell: (c) => c.getValue() ?? '–' }),
+      col.accessor((r) => r.ev?.charge, { id: 'charge', header: 'Charge', cell: (c) => formatSigned(c.getValue(), 2) }),
+      col.accessor((r) => r.ev?.deltaG, { id: 'dg', header: 'ΔG from atom sum (kJ/mol)', cell: (c) => estimate(c.row.original.ev, c.getValue(), 1) }),
+      col.accessor((r) => r.ev?.fragmentDeltaG, { id: 'dg-fragment', header: 'ΔG from fragment (kJ/mol)', cell: (c) => estimate(c.row.original.ev, c.getValue(), 1) }),
+      col.display({
+        id: 'dg-measured',
+        header: 'Measured ΔG (kJ/mol)',
+        cell: ({ row }) => {
+          const ev = row.original.ev;
+          if (typeof ev?.measuredDeltaG !== 'number') return <span className="text-ink-400">–</span>;
+          return <span title={`Source: ${ev.measuredSource ?? ''}`}>{formatSigned(ev.measuredDeltaG, 1)} <span className="text-xs text-ink-600">(measured)</span></span>;
+        },
+      }),
+      col.accessor((r) => r.ev?.partitionSource ?? null, { id: 'dg-used', header: 'Suggestion uses', cell: (c) => { const v = c.getValue(); return v ? SOURCE_LABEL[v] : '–'; } }),
       col.display({
         id: 'suggested',
         header: 'Suggested type',
@@ -87,6 +103,8 @@ export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation,
   // The table and its header are there from the start (an empty draft shows one message row), so the
   // first bead adds a row instead of mounting the table, its column model and its header mid-command.
   return (
+    <div className="flex flex-col gap-2">
+      <PartitionBar evaluation={evaluation} editing={editing} />
     <div className="overflow-x-auto">
       <table aria-label="Beads" className="w-full border-collapse text-sm">
         <thead>
@@ -114,8 +132,33 @@ export const BeadTable = memo(function BeadTable({ view, activeBead, evaluation,
         </tbody>
       </table>
     </div>
+    </div>
   );
 });
+
+/** The mapping's partition basis (who may edit sets it) and what the ΔG numbers are. */
+function PartitionBar({ evaluation, editing }: { evaluation: Evaluation | null; editing: Editing }) {
+  const basis = evaluation?.partitionBasis ?? 'fragment';
+  const t = evaluation?.temperature ?? 298.15;
+  return (
+    <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-700">
+      <label className="flex items-center gap-1.5 font-semibold">
+        Type suggestions use
+        <select
+          aria-label="Partition basis of suggestions"
+          value={basis}
+          disabled={editing.readOnly}
+          onChange={(e) => setPartitionBasis(editing.doc, e.target.value as PartitionBasis, editing.origin)}
+          className="rounded border border-paper-400 bg-paper-50 px-1.5 py-0.5 text-xs text-ink-900 disabled:opacity-60"
+        >
+          {PARTITION_BASES.map((b) => <option key={b} value={b}>{BASIS_LABEL[b]}</option>)}
+        </select>
+      </label>
+      <span>A measured value, where a bead has one, comes first. Charged beads have no partition value ({IONIC_TEXT}).</span>
+      <span>logP is a 298 K quantity; ΔG_OW = ln10·R·T·logP at T = {t.toFixed(2)} K, so ΔG scales linearly with T.</span>
+    </div>
+  );
+}
 
 interface BeadRowProps {
   row: TableRow<Row>;

@@ -1,5 +1,5 @@
 import type * as Y from 'yjs';
-import type { Bond, CentreRule } from '../../../shared/chem';
+import type { Bond, CentreRule, MeasuredPartition } from '../../../shared/chem';
 import { docToMapping } from '../../../shared/mapping-doc';
 import { BEAD_COLOURS } from './palette';
 
@@ -18,6 +18,8 @@ export interface BeadView {
   centre: CentreRule;
   atoms: { index: number; weight: number }[];
   colour: string;
+  /** The modeller's measured or literature partition value, if any. */
+  measured: MeasuredPartition | null;
 }
 
 export interface MappingView {
@@ -56,7 +58,7 @@ export function mappingView(doc: Y.Doc, bonds: readonly Bond[]): MappingView {
       }
     }
     colourOf.set(b.id, colour);
-    return { id: b.id, name: b.name, type: b.type ?? null, centre: b.centre, atoms: b.atoms, colour };
+    return { id: b.id, name: b.name, type: b.type ?? null, centre: b.centre, atoms: b.atoms, colour, measured: b.measured ?? null };
   });
   return { beads, byId: new Map(beads.map((b) => [b.id, b])), atomBeads, links };
 }

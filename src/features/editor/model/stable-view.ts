@@ -20,6 +20,7 @@ export function keepUnchanged(previous: MappingView, next: MappingView): Mapping
 
 function sameBead(a: BeadView, b: BeadView): boolean {
   if (a.name !== b.name || a.type !== b.type || a.centre !== b.centre || a.colour !== b.colour || a.atoms.length !== b.atoms.length) return false;
+  if (JSON.stringify(a.measured) !== JSON.stringify(b.measured)) return false;
   return a.atoms.every((x, i) => x.index === b.atoms[i].index && x.weight === b.atoms[i].weight);
 }
 

@@ -14,7 +14,7 @@ export function MoleculeFacts({ molecule }: { molecule: MoleculeDetail }) {
   const facts: [string, string][] = [
     ['Formula', molecule.formula],
     ['Molecular weight', `${molecule.molecularWeight.toFixed(2)} g/mol`],
-    ['logP (Wildman–Crippen)', minus(molecule.logP, 2)],
+    ['logP (Wildman–Crippen, 298 K)', molecule.logPWarning ? `${minus(molecule.logP, 2)} (charged species: not a partition value)` : minus(molecule.logP, 2)],
     ['Heavy atoms', String(molecule.heavyAtoms)],
     ['Net charge', String(molecule.netCharge)],
     ['Canonical SMILES', molecule.canonicalSmiles],
@@ -30,6 +30,7 @@ export function MoleculeFacts({ molecule }: { molecule: MoleculeDetail }) {
           </div>
         ))}
       </dl>
+      {molecule.logPWarning && <p role="note" className="rounded-md border border-alert-600/30 bg-alert-50 px-3 py-2 text-sm text-ink-800">{molecule.logPWarning}</p>}
       {molecule.model.warnings.length > 0 && (
         <ul className="list-disc pl-5 text-sm text-ink-700">
           {molecule.model.warnings.map((w) => <li key={w}>{w}</li>)}
