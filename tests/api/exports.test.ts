@@ -45,7 +45,9 @@ describe('exports', () => {
     expect(parsed.data.map((r) => [r.bead, r.type, r.atoms])).toEqual([['A', 'C1', '1 2'], ['B', '', '3 4']]);
     const v = (await student.get(`/api/mappings/${mappingId}/versions/2`).expect(200)).body;
     expect(Number(parsed.data[0].mass)).toBeCloseTo(v.evaluation.beads[0].mass, 3);
-    expect(Number(parsed.data[1].dG_OW_kJ_per_mol)).toBeCloseTo(v.evaluation.beads[1].deltaG, 1);
+    expect(Number(parsed.data[1].dG_atom_sum_kJ_per_mol)).toBeCloseTo(v.evaluation.beads[1].deltaG, 1);
+    expect(Number(parsed.data[1].dG_OW_kJ_per_mol)).toBeCloseTo(v.evaluation.beads[1].partitionDeltaG, 1);
+    expect(parsed.data[1].partition_source).toBe("fragment");
     expect(text).toContain('# mapping: Export test');
     expect(text).toContain('# version: v2 (production)');
     expect(text).toContain(`# sha256: ${v.sha256}`);
