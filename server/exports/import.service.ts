@@ -2,7 +2,7 @@ import * as Y from 'yjs';
 import { createHash } from 'node:crypto';
 import type { Db } from '../db/knex';
 import type { Mapping } from '../../src/shared/chem';
-import { contentText, type ContentBead, type ImportBody, type ImportCorrespondence, type ImportPreview } from '../../src/shared/exports';
+import { contentText, contentToMapping, type ContentBead, type ImportBody, type ImportCorrespondence, type ImportPreview } from '../../src/shared/exports';
 import { mappingToDoc } from '../../src/shared/mapping-doc';
 import { checkDoc } from '../../src/shared/mapping-doc-check';
 import { unprocessable } from '../http/errors';
@@ -59,7 +59,7 @@ export async function planImport(db: Db, moleculeId: number, body: ImportBody): 
     ...b,
     atoms: b.atoms.map(([n, w]): [number, number] => [correspondence.atoms[n - 1], w]).sort((p, q) => p[0] - q[0]),
   }));
-  const draft: Mapping = { beads: beads.map((b) => ({ id: b.id, name: b.name, ...(b.type ? { type: b.type } : {}), centre: b.centre, atoms: b.atoms.map(([n, weight]) => ({ index: n - 1, weight })) })) };
+  const draft: Mapping = contentToMapping({ canonicalSmiles: body.content.canonicalSmiles, beads, ...(body.content.partitionBasis ? { partitionBasis: body.content.partitionBasis } : {}) });
   const doc = new Y.Doc();
   mappingToDoc(doc, draft);
   const problem = checkDoc(doc, model.atoms.length);

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import type { CentreRule, Mapping } from './chem';
+import type { CentreRule, Mapping, MeasuredPartition, PartitionBasis } from './chem';
+import { measuredSchema, partitionBasisSchema } from './mapping-schema';
 import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES } from './mapping-doc';
 import { versionRef, type VersionRef } from './versions';
 
@@ -37,12 +38,18 @@ export interface ContentBead {
   type: string | null;
   centre: CentreRule;
   atoms: [number, number][];
+  /** Present only when the bead has a measured or literature partition value (older hashes are unchanged). */
+  measured?: MeasuredPartition;
 }
 
-/** What a version's SHA-256 covers: the molecule (canonical SMILES) and the beads, nothing else. */
+/**
+ * What a version's SHA-256 covers: the molecule (canonical SMILES), the beads and, when set, the
+ * mapping's partition basis; nothing else.
+ */
 export interface VersionContent {
   canonicalSmiles: string;
   beads: ContentBead[];
+  partitionBasis?: PartitionBasis;
 }
 
 /** The content of a mapping, keys in the documented order (the hash depends on that order). */
@@ -55,7 +62,9 @@ export function versionContent(canonicalSmiles: string, mapping: Mapping): Versi
       type: b.type ?? null,
       centre: b.centre,
       atoms: b.atoms.map((a): [number, number] => [a.index + 1, a.weight]),
+      ...(b.measured ? { measured: { kind: b.measured.kind, value: b.measured.value, source: b.measured.source } } : {}),
     })),
+    ...(mapping.partitionBasis ? { partitionBasis: mapping.partitionBasis } : {}),
   };
 }
 
@@ -64,7 +73,8 @@ export const contentText = (content: VersionContent): string => JSON.stringify(c
 
 export function contentToMapping(content: VersionContent): Mapping {
   return {
-    beads: content.beads.map((b) => ({ id: b.id, name: b.name, ...(b.type ? { type: b.type } : {}), centre: b.centre, atoms: b.atoms.map(([n, weight]) => ({ index: n - 1, weight })) })),
+    beads: content.beads.map((b) => ({ id: b.id, name: b.name, ...(b.type ? { type: b.type } : {}), centre: b.centre, atoms: b.atoms.map(([n, weight]) => ({ index: n - 1, weight })), ...(b.measured ? { measured: b.measured } : {}) })),
+    ...(content.partitionBasis ? { partitionBasis: content.partitionBasis } : {}),
   };
 }
 
@@ -74,6 +84,7 @@ const contentBead = z.strictObject({
   type: z.string().max(BEAD_TYPE_MAX).nullable(),
   centre: z.enum(CENTRE_RULES as [CentreRule, ...CentreRule[]]),
   atoms: z.array(z.tuple([z.number().int().min(1, 'Atom numbers start at 1.'), z.number().gt(0).lte(1)])).min(1),
+  measured: measuredSchema.optional(),
 });
 
 /** One heavy atom of the exported molecule (the JSON export's `molecule.atoms`). */
@@ -110,7 +121,7 @@ export const importBody = z.looseObject({
   mapping: z.looseObject({ name: z.string().trim().min(1).max(200), resolution: z.enum(['4:1', '3:1', '2:1']) }),
   /** The exported molecule's atoms and bonds: the beads are placed by matching this structure. */
   molecule: z.looseObject({ atoms: z.array(exportAtom).max(100_000), bonds: z.array(exportBond).max(200_000).optional() }).optional(),
-  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000) }),
+  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000), partitionBasis: partitionBasisSchema.optional() }),
   sha256: z.string().regex(/^[0-9a-f]{64}$/, 'sha256 is 64 lower-case hex digits.'),
   /** Name for the new mapping; defaults to the exported mapping's name. */
   name: z.string().trim().min(1).max(200).optional(),

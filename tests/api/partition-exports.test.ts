@@ -78,6 +78,17 @@ describe('partition values of ionic beads and measured values', () => {
     expect(body.evaluation.partitionBasis).toBe('atoms');
   });
 
+  it('the JSON content carries the measured value and the basis, and imports back with them (hash unchanged)', async () => {
+    const body = JSON.parse((await exported('json')).text);
+    expect(body.content.partitionBasis).toBe('atoms');
+    expect(body.content.beads[0].measured).toEqual({ kind: 'logP', value: 1.5, source: 'invented for this test' });
+    expect(body.content.beads[1].measured).toBeUndefined();
+    const res = await modeller.post(`/api/molecules/${moleculeId}/mappings/import`, { ...body, name: 'Re-imported salt' }).expect(201);
+    const copy = (await modeller.get(`/api/mappings/${res.body.id}`).expect(200)).body as MappingDetail;
+    expect(copy.draft.partitionBasis).toBe('atoms');
+    expect(copy.draft.beads.find((b) => b.name === 'TAIL')!.measured).toEqual({ kind: 'logP', value: 1.5, source: 'invented for this test' });
+  });
+
   it('PDB: a REMARK 3 line per bead with its charge and partition value', async () => {
     const text = (await exported('pdb')).text;
     expect(text).toMatch(/^REMARK   3 bead +1 charge 0\.00 dG_OW 8\.56 kJ\/mol \(measured\)$/m);
