@@ -82,7 +82,8 @@ export function runChecks(x: CheckInput): Check[] {
     if (typeSize !== undefined && e.sizeClass !== null && typeSize !== e.sizeClass) {
       add('type_size_mismatch', 'warning', `Bead ${bead.name} has ${fmt(e.heavyAtoms)} heavy atoms (size class ${e.sizeClass}), but its type ${bead.type} is for ${typeSize} heavy atoms per bead.`, bead.atoms.map((a) => a.index), [bead.id], `Choose a type for ${e.sizeClass} heavy atoms per bead, or resize the bead.`);
     }
-    if (e.ionic) {
+    // A free ion (Na⁺ in its own bead) is plainly ionic; the note is for beads cut from a molecule.
+    if (e.ionic && !bead.atoms.every((a) => isFreeIon(x.molecule, x.p, a.index))) {
       add('ionic_bead', 'info', `Bead ${bead.name} carries a net charge of ${signed(e.charge)}: its partition value is n/a (ionic), and its type is suggested from charge and size.`, [], [bead.id], 'Enter a measured value if you have one; the additive logP of an ion is not a partition value.');
     }
   });
