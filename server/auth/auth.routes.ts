@@ -20,19 +20,22 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
     res.json({ token: csrf.issue(req, res) });
   });
 
+  /** Starts a session for `user` and answers LoginResponse; passport regenerates the session id (no session fixation). */
+  const signIn = (req: Request, res: Response, next: NextFunction, user: Express.User) =>
+    req.logIn(user, async (loginErr) => {
+      if (loginErr) return next(loginErr);
+      try {
+        const body: LoginResponse = { user: await buildMe(ctx.db, user), csrfToken: csrf.issue(req, res) };
+        res.json(body);
+      } catch (e) {
+        next(e);
+      }
+    });
+
   r.post('/api/auth/login', ...createLoginLimiters(ctx.config), validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
     passport.authenticate('local', (err: unknown, user: Express.User | false) => {
       if (err || !user) return next(err);
-      // passport regenerates the session id here (no session fixation).
-      req.logIn(user, async (loginErr) => {
-        if (loginErr) return next(loginErr);
-        try {
-          const body: LoginResponse = { user: await buildMe(ctx.db, user), csrfToken: csrf.issue(req, res) };
-          res.json(body);
-        } catch (e) {
-          next(e);
-        }
-      });
+      signIn(req, res, next, user);
     })(req, res, next);
   });
 
@@ -49,9 +52,12 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
     res.status(202).json({ ok: true });
   });
 
-  r.post('/api/auth/reset', validate({ body: resetBody }), async (req, res) => {
-    await resetPassword(ctx, req.body.token, req.body.password);
-    res.status(204).end();
+  // Whoever just chose a password from their e-mailed link is signed in with it (a new session, as
+  // at sign-in): 200 with the same body as a sign-in. 204 when the account is disabled.
+  r.post('/api/auth/reset', validate({ body: resetBody }), async (req, res, next) => {
+    const user = await resetPassword(ctx, req.body.token, req.body.password);
+    if (!user) return void res.status(204).end();
+    signIn(req, res, next, user);
   });
 
   r.get('/api/me', async (req, res) => {

@@ -1,7 +1,7 @@
 import type { AppContext } from '../context';
 import { hashPassword, verifyPassword } from './passwords';
 import { consumeToken, issueToken } from './tokens';
-import { endSessions, findUserByEmail, findUserById } from '../users/users.service';
+import { endSessions, findUserByEmail, findUserById, toSessionUser } from '../users/users.service';
 import { resetMail } from '../mail/messages';
 import { AppError, badRequest } from '../http/errors';
 
@@ -17,13 +17,16 @@ export async function requestPasswordReset(ctx: AppContext, email: string): Prom
   await ctx.mailer.send(resetMail({ email: user.email, displayName: user.display_name }, passwordLink(ctx, token)));
 }
 
-export async function resetPassword(ctx: AppContext, token: string, password: string): Promise<void> {
+/** Sets the password of the token's account; returns that account to sign in (null when it is disabled). */
+export async function resetPassword(ctx: AppContext, token: string, password: string): Promise<Express.User | null> {
   // Hash first so a valid token is not spent when hashing fails.
   const hash = await hashPassword(password, ctx.config.bcryptCost);
   const userId = await consumeToken(ctx.db, token);
   if (userId === null) throw badRequest('invalid_token', 'This link has already been used or has expired. Ask for a new one.');
   await ctx.db('users').where({ id: userId }).update({ password_hash: hash, updated_at: ctx.db.fn.now() });
   await endSessions(ctx.db, userId);
+  const row = await findUserById(ctx.db, userId);
+  return row && !row.disabled_at ? toSessionUser(row) : null;
 }
 
 export async function changePassword(ctx: AppContext, userId: number, current: string, next: string): Promise<number> {

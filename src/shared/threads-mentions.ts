@@ -39,3 +39,20 @@ export function mentionQueryAt(text: string, caret: number): { start: number; qu
   if (!m) return null;
   return { start: caret - (m[2] as string).length - 1, query: m[2] as string };
 }
+
+/**
+ * The composer shows a mention as `@Display Name` (never the raw token) and keeps the picked people
+ * aside; these two turn a body into that text and back. Only people picked (or already mentioned)
+ * become tokens again, so typing "@Ada" by hand mentions nobody.
+ */
+export function mentionsAsText(body: string): { text: string; mentions: Mention[] } {
+  return { text: body.replace(MENTION_PATTERN, (_all, label: string) => `@${label}`), mentions: parseMentions(body) };
+}
+
+export function textWithMentions(text: string, mentions: readonly Mention[]): string {
+  const byLabel = new Map(mentions.map((m) => [m.label, m.userId]));
+  if (!byLabel.size) return text;
+  // Longest label first, so "@Ada Lovelace" wins over "@Ada"; a label ends where a word does.
+  const labels = [...byLabel.keys()].sort((a, b) => b.length - a.length).map((l) => l.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'));
+  return text.replace(new RegExp(`@(${labels.join('|')})(?![\\p{L}\\p{N}_])`, 'gu'), (_all, label: string) => mentionToken(byLabel.get(label)!, label));
+}

@@ -115,8 +115,12 @@ describe('passwords', () => {
     expect(mail!.text).toContain(`${t.ctx.config.appUrl}/reset-password?token=`);
     const stored = await t.ctx.db('password_tokens').where({ user_id: await userId(t.ctx.db, 'student@example.org') }).first();
     expect(stored.token_hash).not.toContain(token);
-    await c.post('/api/auth/reset', { token, password: 'student secret 42' }).expect(204);
-    const again = await c.post('/api/auth/reset', { token, password: 'another secret 42' });
+    // Choosing the password signs the person in (issue 13, point 9).
+    const done = await c.post('/api/auth/reset', { token, password: 'student secret 42' }).expect(200);
+    expect(done.body.user.email).toBe('student@example.org');
+    expect(done.body.csrfToken).toEqual(expect.any(String));
+    expect((await c.get('/api/me').expect(200)).body.email).toBe('student@example.org');
+    const again = await (await anonymous(t.app)).post('/api/auth/reset', { token, password: 'another secret 42' });
     expect(again.status).toBe(400);
     expect(again.body.error.code).toBe('invalid_token');
     expect((await new ApiClient(t.app).signIn('student@example.org', 'student secret 42')).status).toBe(200);
@@ -152,8 +156,9 @@ describe('accounts made by an admin', () => {
     expect(mail.subject).toMatch(/set your password/i);
     const c = await anonymous(t.app);
     expect((await c.signIn('new.person@example.org', 'whatever it is')).status).toBe(401);
-    await c.post('/api/auth/reset', { token: tokenFrom(mail.text), password: 'my own password' }).expect(204);
-    expect((await c.signIn('new.person@example.org', 'my own password')).status).toBe(200);
+    await c.post('/api/auth/reset', { token: tokenFrom(mail.text), password: 'my own password' }).expect(200);
+    expect((await c.get('/api/me').expect(200)).body.email).toBe('new.person@example.org');
+    expect((await new ApiClient(t.app).signIn('new.person@example.org', 'my own password')).status).toBe(200);
   });
 
   it('disabling an account ends its sessions and refuses sign-in', async () => {

@@ -78,11 +78,9 @@ describe('inviting a new member', () => {
     await newcomer.getByLabel('New password').fill(NEWCOMER.password);
     await newcomer.getByLabel('Repeat the password').fill(NEWCOMER.password);
     await newcomer.getByRole('button', { name: 'Set password' }).click();
-    await newcomer.waitForURL(/\/sign-in\?password=set/);
-    await newcomer.getByText('Your password is set.').waitFor();
-
-    await signIn(newcomer, NEWCOMER.email, NEWCOMER.password);
+    // Setting the password signs the newcomer in (issue 13, point 9).
     await newcomer.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+    await newcomer.getByText('Your password is set and you are signed in.').waitFor();
     await newcomer.getByRole('link', { name: new RegExp(`Your account \\(${NEWCOMER.name}\\)`) }).waitFor();
 
     const card = newcomer.getByRole('link', { name: new RegExp(PROJECT) });

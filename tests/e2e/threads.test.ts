@@ -57,6 +57,9 @@ describe('threads on beads', () => {
     await box.pressSequentially('Is this right, @Ine');
     await modeller.getByRole('option', { name: /Dr Ines Marlow/ }).waitFor();
     await box.press('Enter');
+    // The box shows the name, not the raw token; a chip says who is mentioned (issue 13, point 14).
+    expect(await box.inputValue()).toBe('Is this right, @Dr Ines Marlow ');
+    await panel.getByRole('list', { name: 'Mentioned' }).getByText('@Dr Ines Marlow').waitFor();
     await box.pressSequentially(`?${BODY_PAYLOADS}`);
     await panel.getByRole('button', { name: 'Start thread' }).click();
     // The supervisor, on the projects page, sees the bell count arrive without reloading.

@@ -1,5 +1,6 @@
 import { useState } from 'react';
-import { useNavigate } from 'react-router';
+import { useLocation, useNavigate } from 'react-router';
+import { Notice } from '../../components/ui/alert';
 import { Button } from '../../components/ui/button';
 import { PageHeader } from '../../components/ui/page-header';
 import { Section } from '../../components/ui/section';
@@ -14,6 +15,8 @@ export function ProjectsRoute() {
   const me = useCurrentUser();
   const navigate = useNavigate();
   const [creating, setCreating] = useState(false);
+  // A one-time message from the page that sent us here (e.g. after choosing a password).
+  const notice = (useLocation().state as { notice?: string } | null)?.notice;
 
   return (
     <>
@@ -25,6 +28,7 @@ export function ProjectsRoute() {
           !creating && <Button onClick={() => setCreating(true)}>New project</Button>
         }
       />
+      {notice && <div className="mb-4"><Notice>{notice}</Notice></div>}
       {creating && (
         <Section title="New project" description="You become its supervisor and can add members next." className="mb-6">
           <CreateProjectForm onCreated={(project) => navigate(paths.project(project.id))} onCancel={() => setCreating(false)} />

@@ -16,7 +16,12 @@ export function ResetPasswordRoute() {
   return (
     <AuthLayout title="Choose a password" intro="Set the password you will sign in to Beadloom with.">
       {token ? (
-        <ResetPasswordForm token={token} onDone={() => navigate(`${paths.signIn}?password=set`, { replace: true })} />
+        <ResetPasswordForm
+          token={token}
+          onDone={(signedIn) =>
+            signedIn ? navigate(paths.projects, { replace: true, state: { notice: 'Your password is set and you are signed in.' } }) : navigate(`${paths.signIn}?password=set`, { replace: true })
+          }
+        />
       ) : (
         <ErrorAlert>This link is incomplete. Open the link from your e-mail again, or ask for a new one.</ErrorAlert>
       )}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { mentionedIds, mentionQueryAt, mentionToken, normaliseMentions, parseMentions } from '../../../src/shared/threads-mentions';
+import { mentionedIds, mentionQueryAt, mentionsAsText, mentionToken, normaliseMentions, parseMentions, textWithMentions } from '../../../src/shared/threads-mentions';
 
 describe('mentions', () => {
   it('parses mention tokens, ids first-seen and distinct', () => {
@@ -23,5 +23,15 @@ describe('mentions', () => {
     expect(mentionQueryAt('@', 1)).toEqual({ start: 0, query: '' });
     expect(mentionQueryAt('mail@exa', 8)).toBeNull();
     expect(mentionQueryAt('Ask @In now', 11)).toBeNull();
+  });
+
+  it('shows mentions as @Name in the composer and turns picked names back into tokens', () => {
+    const body = `Hi ${mentionToken(2, 'Ada Lovelace')} and ${mentionToken(3, 'Ada')}!`;
+    const { text, mentions } = mentionsAsText(body);
+    expect(text).toBe('Hi @Ada Lovelace and @Ada!');
+    expect(textWithMentions(text, mentions)).toBe(body);
+    // Only picked people become tokens; a hand-typed @name and a longer word stay text.
+    expect(textWithMentions('@Ada and @Adam and @Bob', [{ userId: 3, label: 'Ada' }])).toBe(`${mentionToken(3, 'Ada')} and @Adam and @Bob`);
+    expect(textWithMentions('no one', [])).toBe('no one');
   });
 });

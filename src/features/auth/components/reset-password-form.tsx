@@ -13,14 +13,15 @@ const schema = resetBody
   .extend({ repeat: z.string() })
   .refine((v) => v.password === v.repeat, { path: ['repeat'], message: 'The two passwords differ.' });
 
-export function ResetPasswordForm({ token, onDone }: { token: string; onDone: () => void }) {
+/** `onDone(signedIn)`: whether the server signed the person in with the new password. */
+export function ResetPasswordForm({ token, onDone }: { token: string; onDone: (signedIn: boolean) => void }) {
   const reset = useResetPassword();
   const form = useForm(schema, { password: '', repeat: '' }, { serverError: reset.error });
 
   return (
     <form
       noValidate
-      onSubmit={form.handleSubmit(({ password }) => reset.mutate({ token, password }, { onSuccess: onDone }))}
+      onSubmit={form.handleSubmit(({ password }) => reset.mutate({ token, password }, { onSuccess: (response) => onDone(!!response) }))}
       className="flex flex-col gap-4"
     >
       <TextField

@@ -1,5 +1,6 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { commentText } from '../../../shared/threads';
+import { mentionsAsText, textWithMentions, type Mention } from '../../../shared/threads-mentions';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { controlClass } from '../../../components/ui/field';
@@ -22,21 +23,25 @@ interface ComposerProps {
 export function CommentComposer({ projectId, label, submitText, initial = '', pending, error, onSubmit, onCancel }: ComposerProps) {
   const id = useId();
   const ref = useRef<HTMLTextAreaElement>(null);
-  const [value, setValue] = useState(initial);
+  // The box shows mentions as @Name; the people behind them are kept aside (and shown as chips).
+  const [start] = useState(() => mentionsAsText(initial));
+  const [value, setValue] = useState(start.text);
+  const [picked, setPicked] = useState<Mention[]>(start.mentions);
   const [problem, setProblem] = useState<string | null>(null);
   const members = useMentionCandidates(projectId);
-  const mentions = useMentionAutocomplete(ref, value, setValue, members.data ?? []);
+  const mentions = useMentionAutocomplete(ref, value, setValue, members.data ?? [], (m) => setPicked((p) => [...p.filter((x) => x.userId !== m.userId), m]));
+  const present = picked.filter((m) => value.includes(`@${m.label}`));
 
   const submit = async (e: FormEvent) => {
     e.preventDefault();
-    const parsed = commentText.safeParse(value);
+    const parsed = commentText.safeParse(textWithMentions(value, present));
     if (!parsed.success) {
       setProblem(parsed.error.issues[0]?.message ?? 'Check the comment.');
       ref.current?.focus();
       return;
     }
     setProblem(null);
-    await onSubmit(parsed.data).then(() => setValue(''), () => undefined);
+    await onSubmit(parsed.data).then(() => (setValue(''), setPicked([])), () => undefined);
   };
 
   return (
@@ -67,6 +72,14 @@ export function CommentComposer({ projectId, label, submitText, initial = '', pe
         className={controlClass}
       />
       <MentionOptions id={`${id}-mentions`} options={mentions.options} active={mentions.active} onPick={mentions.pick} />
+      {present.length > 0 && (
+        <ul aria-label="Mentioned" className="flex flex-wrap items-center gap-1 text-xs">
+          <li className="text-ink-600">Mentions:</li>
+          {present.map((m) => (
+            <li key={m.userId} data-mention-chip={m.userId} className="rounded-full bg-ink-100 px-2 py-0.5 font-semibold text-ink-800">@{m.label}</li>
+          ))}
+        </ul>
+      )}
       <p id={`${id}-hint`} className="text-xs text-ink-600">
         *emphasis*, lists, `code` and [links](https://…) work; type @ to mention someone; Ctrl+Enter sends.
       </p>

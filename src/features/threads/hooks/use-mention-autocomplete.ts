@@ -1,9 +1,13 @@
 import { useMemo, useState, type KeyboardEvent, type RefObject } from 'react';
-import { mentionQueryAt, mentionToken } from '../../../shared/threads-mentions';
+import { mentionLabel, mentionQueryAt, type Mention } from '../../../shared/threads-mentions';
 import type { MentionCandidate } from '../api/get-mention-candidates';
 
-/** The @ autocomplete's state: which members match the `@query` before the caret, and picking one. */
-export function useMentionAutocomplete(ref: RefObject<HTMLTextAreaElement | null>, value: string, setValue: (v: string) => void, members: readonly MentionCandidate[]) {
+/**
+ * The @ autocomplete's state: which members match the `@query` before the caret, and picking one.
+ * A pick writes `@Display Name` into the text and reports the person through `onPick`; the composer
+ * turns picked names back into mention tokens when it sends (shared/threads-mentions.ts).
+ */
+export function useMentionAutocomplete(ref: RefObject<HTMLTextAreaElement | null>, value: string, setValue: (v: string) => void, members: readonly MentionCandidate[], onPick: (m: Mention) => void) {
   const [caret, setCaret] = useState(0);
   const [active, setActive] = useState(0);
   const [dismissed, setDismissed] = useState<number | null>(null);
@@ -16,7 +20,9 @@ export function useMentionAutocomplete(ref: RefObject<HTMLTextAreaElement | null
 
   const pick = (c: MentionCandidate) => {
     if (!query) return;
-    const token = `${mentionToken(c.userId, c.displayName)} `;
+    const label = mentionLabel(c.displayName);
+    onPick({ userId: c.userId, label });
+    const token = `@${label} `;
     const next = value.slice(0, query.start) + token + value.slice(caret);
     setValue(next);
     const at = query.start + token.length;

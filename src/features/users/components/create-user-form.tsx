@@ -1,3 +1,4 @@
+import type { FormEvent } from 'react';
 import { createUserBody } from '../../../shared/users';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
@@ -12,7 +13,12 @@ export function CreateUserForm() {
   const create = useCreateUser();
   const form = useForm(createUserBody, empty, { serverError: create.error });
 
-  const submit = form.handleSubmit((body) => create.mutate(body, { onSuccess: () => form.setValues(empty) }));
+  const check = form.handleSubmit((body) => create.mutate(body, { onSuccess: () => form.setValues(empty) }));
+  // A new attempt forgets the last answer, so an old server error never stands beside a new one.
+  const submit = (e: FormEvent<HTMLFormElement>) => {
+    create.reset();
+    check(e);
+  };
 
   return (
     <form noValidate aria-label="Create an account" onSubmit={submit} className="flex flex-col gap-4">
