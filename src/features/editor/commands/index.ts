@@ -1,9 +1,10 @@
 import { beadCommands } from './bead-commands';
+import { ionCommands } from './ion-commands';
 import { historyCommands, selectionCommands, viewCommands } from './other-commands';
 import type { EditorCommand } from './registry';
 
 /** Every editor command, in the order the help overlay lists them. */
-export const editorCommands: readonly EditorCommand[] = [...beadCommands, ...selectionCommands, ...historyCommands, ...viewCommands];
+export const editorCommands: readonly EditorCommand[] = [...beadCommands, ...ionCommands, ...selectionCommands, ...historyCommands, ...viewCommands];
 
 export const commandNamed = (name: string): EditorCommand => {
   const found = editorCommands.find((c) => c.name === name);

@@ -14,6 +14,8 @@ export interface EditorContext {
   readOnly: boolean;
   view: MappingView;
   atomCount: number;
+  /** Atoms that are free ions (charged, bonded to nothing): each belongs in a bead of its own. */
+  freeIons?: readonly number[];
   selection: Selection;
   setSelection(next: Selection): void;
   activeBead: string | null;

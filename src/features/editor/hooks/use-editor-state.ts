@@ -1,5 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import type { Molecule } from '../../../shared/chem';
+import { freeIonAtoms } from '../../../shared/free-ions';
 import type { MappingSession } from '../collab/mapping-session';
 import type { EditorContext, EditorUi } from '../commands/registry';
 import type { GestureHandlers } from './use-canvas-gestures';
@@ -66,6 +67,7 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
     },
   }), [fit]);
   const atomCount = molecule.atoms.length;
+  const freeIons = useMemo(() => freeIonAtoms(molecule), [molecule]);
   const ctx = useMemo<EditorContext>(() => ({
     doc: session.doc,
     origin: session.origin,
@@ -73,13 +75,14 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
     readOnly,
     view,
     atomCount,
+    freeIons,
     selection,
     setSelection,
     activeBead,
     setActiveBead,
     suggestions,
     ui,
-  }), [session, readOnly, view, atomCount, selection, setSelection, activeBead, suggestions, ui]);
+  }), [session, readOnly, view, atomCount, freeIons, selection, setSelection, activeBead, suggestions, ui]);
   const endRename = useCallback(() => setRenaming(null), []);
 
   const sendPointer = useMemo(() => throttle((p: { x: number; y: number } | null) => session.setPresence({ pointer: p }), 40), [session]);
