@@ -13,6 +13,7 @@ import { ConformerGenerator, ForceFieldMMFF94, Resources } from 'openchemlib';
 import type { Molecule } from '../../src/shared/chem';
 import { ChemError } from './errors';
 import { componentsOf } from './graph';
+import { contactDistance, contactPosition } from './ion-placement';
 import { toOcl } from './ocl-build';
 
 let registered = false;
@@ -40,27 +41,78 @@ export async function generateConformer(molecule: Molecule, options: ConformerOp
     Resources.registerFromNodejs();
     registered = true;
   }
-  const iterations = options.maxIterations ?? defaultIterations(molecule.atoms.length);
-  // Each disconnected part (a salt's ions) is built on its own and the parts are set side by side with
-  // a 4 Å gap along x: openchemlib's generator fails on some multi-part inputs.
+  const iterations = options.maxIterations ?? defaultIterations(molecule.heavyAtoms ?? molecule.atoms.length);
+  // Each disconnected part is built on its own (openchemlib's generator fails on some multi-part
+  // inputs). Parts of more than one atom are set side by side with a 4 Å gap along x; free ions are
+  // then put in contact with an atom of opposite charge (ion-placement.ts).
   const parts = componentsOf(molecule.atoms.length, molecule.bonds);
-  const heavy: number[][] = new Array(molecule.atoms.length);
+  const isFreeIon = (members: number[]) => members.length === 1 && molecule.atoms[members[0]].charge !== 0 && !molecule.atoms[members[0]].attachment;
+  const heavy: (number[] | undefined)[] = new Array(molecule.atoms.length);
   const hydrogens: number[][][] = molecule.atoms.map(() => []);
-  let shift = 0;
-  for (const members of parts) {
+  const build = (members: number[]): number[][] => {
     const sub = subModel(molecule, members);
     const xyz = members.length === 1 && sub.atoms[0].hydrogens === 0 ? [[0, 0, 0]] : conformerOf(sub, options.seed, iterations);
-    const xs = xyz.map((c) => c[0]);
-    const dx = shift - Math.min(...xs);
-    const moved = xyz.map(([x, y, z]) => [x + dx, y, z]);
-    shift += Math.max(...xs) - Math.min(...xs) + 4;
+    return standardHydrogens(sub, xyz);
+  };
+  const store = (members: number[], xyz: number[][]): void => {
+    const sub = subModel(molecule, members);
     let h = members.length;
     members.forEach((a, i) => {
-      heavy[a] = moved[i];
-      for (let k = 0; k < sub.atoms[i].hydrogens; k++, h++) if (!molecule.atoms[a].attachment) hydrogens[a].push(moved[h]);
+      heavy[a] = xyz[i];
+      for (let k = 0; k < sub.atoms[i].hydrogens; k++, h++) if (!molecule.atoms[a].attachment) hydrogens[a].push(xyz[h]);
     });
+  };
+  let shift = 0;
+  const sideBySide = (members: number[], xyz: number[][]): void => {
+    const xs = xyz.map((c) => c[0]);
+    const dx = shift - Math.min(...xs);
+    shift += Math.max(...xs) - Math.min(...xs) + 4;
+    store(members, xyz.map(([x, y, z]) => [x + dx, y, z]));
+  };
+  const ions = parts.filter(isFreeIon).map((p) => p[0]);
+  const rest = parts.filter((p) => !isFreeIon(p));
+  for (const members of rest) sideBySide(members, build(members));
+  if (rest.length === 0 && ions.length > 0) sideBySide([ions[0]], build([ions[0]]));
+  const partnerUse = new Map<number, number>();
+  for (const ion of ions) {
+    if (heavy[ion]) continue;
+    const q = molecule.atoms[ion].charge;
+    const partners = molecule.atoms.filter((a) => heavy[a.index] && a.charge * q < 0).map((a) => a.index);
+    const xyz = build([ion]);
+    if (partners.length === 0) {
+      sideBySide([ion], xyz);
+      continue;
+    }
+    const partner = partners.reduce((best, p) => ((partnerUse.get(p) ?? 0) < (partnerUse.get(best) ?? 0) ? p : best));
+    partnerUse.set(partner, (partnerUse.get(partner) ?? 0) + 1);
+    const neighbours = [...molecule.bonds.filter((b) => b.a === partner || b.b === partner).map((b) => heavy[b.a === partner ? b.b : b.a]!), ...hydrogens[partner]];
+    const others = [...heavy.filter((p): p is number[] => !!p), ...hydrogens.flat()];
+    const at = contactPosition(heavy[partner]!, neighbours, others, contactDistance(molecule.atoms[ion].element));
+    store([ion], xyz.map((p) => p.map((v, k) => v - xyz[0][k] + at[k])));
   }
-  return [...heavy, ...hydrogens.flat()];
+  return [...(heavy as number[][]), ...hydrogens.flat()];
+}
+
+/**
+ * X–H bonds set to typical lengths along the generator's direction (C–H 1.09, N–H 1.01, O–H 0.96,
+ * S–H 1.34 Å; common practice, no source): openchemlib's generator places hydrogens about 1.04 Å from
+ * carbon, and the short minimisation that fits the time budget does not move them far enough.
+ */
+const XH_LENGTH: Record<string, number> = { C: 1.09, N: 1.01, O: 0.96, S: 1.34 };
+
+function standardHydrogens(sub: Pick<Molecule, 'atoms'>, xyz: number[][]): number[][] {
+  const out = xyz.map((p) => [...p]);
+  let h = sub.atoms.length;
+  sub.atoms.forEach((a, i) => {
+    const length = XH_LENGTH[a.element];
+    for (let k = 0; k < a.hydrogens; k++, h++) {
+      if (!length) continue;
+      const d = out[h].map((v, c) => v - out[i][c]);
+      const n = Math.hypot(...d);
+      if (n > 1e-6) out[h] = out[i].map((v, c) => v + (d[c] * length) / n);
+    }
+  });
+  return out;
 }
 
 function conformerOf(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number, iterations: number): number[][] {

@@ -37,12 +37,34 @@ describe('generateConformer', () => {
     }
   }, 60_000);
 
-  it('places the parts of a salt apart', async () => {
+  it('puts a counter-ion in contact with its charged partner, nothing closer', async () => {
+    // Contact distance = Shannon radius of the ion + 1.40 Å (ion-placement.ts): Na+ 1.02 → 2.42 Å.
     const m = await parseMolecule({ smiles: 'CC(=O)[O-].[Na+]' });
     const xyz = await generateConformer(m, { seed: 1, maxIterations: 100 });
     const na = m.atoms.findIndex((a) => a.element === 'Na');
-    const closest = Math.min(...xyz.filter((_, i) => i !== na).map((p) => dist(p, xyz[na])));
-    expect(closest).toBeGreaterThan(3);
+    const oMinus = m.atoms.findIndex((a) => a.charge === -1);
+    expect(dist(xyz[na], xyz[oMinus])).toBeCloseTo(2.42, 6);
+    const others = xyz.filter((_, i) => i !== na && i !== oMinus).map((p) => dist(p, xyz[na]));
+    expect(Math.min(...others)).toBeGreaterThan(2.0);
+  }, 60_000);
+
+  it('pairs free ions of a simple salt and shares out partners (CaCl2: two Cl- at 3.21 Å from Ca2+)', async () => {
+    const nacl = await parseMolecule({ smiles: '[Na+].[Cl-]' });
+    const a = await generateConformer(nacl, { seed: 1 });
+    expect(dist(a[0], a[1])).toBeCloseTo(1.81 + 1.4, 6);
+    const cacl2 = await parseMolecule({ smiles: '[Ca+2].[Cl-].[Cl-]' });
+    const b = await generateConformer(cacl2, { seed: 1 });
+    expect(dist(b[0], b[1])).toBeCloseTo(3.21, 6);
+    expect(dist(b[0], b[2])).toBeCloseTo(3.21, 6);
+    expect(dist(b[1], b[2])).toBeGreaterThan(3.5);
+  }, 60_000);
+
+  it('builds a repeat unit: attachment points sit where the next unit’s carbon would be', async () => {
+    const m = await parseMolecule({ smiles: '*CC(*)c1ccccc1' });
+    const xyz = await generateConformer(m, { seed: 3 });
+    expect(xyz).toHaveLength(m.atoms.length + 8);
+    expect(dist(xyz[0], xyz[1])).toBeGreaterThan(1.4);
+    expect(dist(xyz[0], xyz[1])).toBeLessThan(1.65);
   }, 60_000);
 
   it('refuses a seed that is not a whole number', async () => {
