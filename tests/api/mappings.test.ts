@@ -104,9 +104,9 @@ describe('bead type libraries', () => {
     expect(res.body.updatedAt).toEqual(expect.any(String));
     expect(res.body.note).toMatch(/illustrative/i); // kept when the body does not give one
     const m = (await modeller.get(`/api/mappings/${mappingId}`).expect(200)).body as MappingDetail;
-    const regular = m.evaluation!.beads.filter((b) => b.sizeClass === 4 && !b.ionic);
-    expect(regular.length).toBeGreaterThan(0);
-    for (const b of regular) expect(b.suggestedType).toBe('ANY');
+    const fourAtomBeads = m.evaluation!.beads.filter((b) => b.sizeClass === 4 && !b.ionic);
+    expect(fourAtomBeads.length).toBeGreaterThan(0);
+    for (const b of fourAtomBeads) expect(b.suggestedType).toBe('ANY');
   });
 
   it.each([
@@ -117,7 +117,7 @@ describe('bead type libraries', () => {
     ['a fractional charge', { types: [{ name: 'A', heavyAtomsPerBead: 4, charge: 0.5, deltaGMin: 0, deltaGMax: 1 }] }],
     ['a note that is too long', { types: [], note: 'x'.repeat(501) }],
     ['a CSV row with a missing number', { csv: 'name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max\nA,4,0,,1\n' }],
-    ['a CSV without its header', { csv: 'A,regular,0,0,1\n' }],
+    ['a CSV without its header', { csv: 'A,4,0,0,1\n' }],
     ['neither types nor csv', { rows: [] }],
   ])('refuses %s and changes nothing', async (_what, body) => {
     const before = await snapshot(t.ctx.db, TABLES);

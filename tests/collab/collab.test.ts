@@ -131,7 +131,7 @@ describe('live collaboration', () => {
     const draftBefore = await restDraft();
     atomsOf(bad.doc).set('999', { 'from-a': 1 });
     await until('refusal', () => bad.errors.some((e) => e.code === 'update_refused'));
-    expect(bad.errors.at(-1)).toMatchObject({ code: 'update_refused', message: expect.stringMatching(/Atom 999 does not exist/), details: { code: 'atom_out_of_range', path: 'atoms.999' } });
+    expect(bad.errors.at(-1)).toMatchObject({ code: 'update_refused', message: expect.stringMatching(/Atom 1000 \(index 999\) does not exist/), details: { code: 'atom_out_of_range', path: 'atoms.999' } });
     createBead(a.doc, [0], { id: 'marker-after-bad' });
     await until('marker reaches b', () => beadsOf(b.doc).has('marker-after-bad'));
     expect(atomsOf(b.doc).has('999')).toBe(false);

@@ -38,12 +38,12 @@ describe('mapping document helpers', () => {
   it('creates beads and reads them back in the chemistry core’s form', () => {
     const doc = new Y.Doc();
     const a = createBead(doc, [3, 2], { id: 'bA' });
-    const b = createBead(doc, [0, 1], { id: 'bB', type: 'W1', centre: 'geometry' });
+    const b = createBead(doc, [0, 1], { id: 'bB', type: 'water-loving 1, 4 atoms', centre: 'geometry' });
     expect(a).toBe('bA');
     expect(b).toBe('bB');
     expect(docToMapping(doc)).toEqual({
       beads: [
-        { id: 'bB', name: 'B2', type: 'W1', centre: 'geometry', atoms: [{ index: 0, weight: 1 }, { index: 1, weight: 1 }] },
+        { id: 'bB', name: 'B2', type: 'water-loving 1, 4 atoms', centre: 'geometry', atoms: [{ index: 0, weight: 1 }, { index: 1, weight: 1 }] },
         { id: 'bA', name: 'B1', centre: 'mass', atoms: [{ index: 2, weight: 1 }, { index: 3, weight: 1 }] },
       ],
     });

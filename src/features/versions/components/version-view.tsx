@@ -1,9 +1,12 @@
+import type { BeadEvaluation } from '../../../shared/chem';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Loading } from '../../../components/ui/loading';
 import { useVersion } from '../api/get-version';
 import { VersionPicture } from './version-picture';
 
 const fmt = (v: number | null | undefined, d: number) => (typeof v === 'number' ? v.toFixed(d) : '–');
+/** The ΔG the version's suggestions used ("n/a (ionic)" for a charged bead); older evaluations have only the atom sum. */
+const partition = (e: BeadEvaluation | undefined) => (e?.ionic ? 'n/a (ionic)' : fmt(e?.partitionDeltaG ?? e?.deltaG, 1));
 
 /** One version, read-only: its picture and its bead table as saved (with the evaluation of then). */
 export function VersionView({ mappingId, number }: { mappingId: number; number: number }) {
@@ -27,7 +30,7 @@ export function VersionView({ mappingId, number }: { mappingId: number; number: 
                 <td>{b.type ?? '–'}</td>
                 <td>{b.atoms.map((a) => a.index + 1).join(' ')}</td>
                 <td>{fmt(evals.get(b.id)?.mass, 2)}</td>
-                <td>{fmt(evals.get(b.id)?.deltaG, 1)}</td>
+                <td>{partition(evals.get(b.id))}</td>
               </tr>
             ))}
           </tbody>
