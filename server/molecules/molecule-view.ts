@@ -1,6 +1,7 @@
 import type { Molecule } from '../../src/shared/chem';
 import { logPWarningOf } from '../chem/charged-groups';
 import type { CoordinatesState, MoleculeDetail, MoleculeSketch, MoleculeSummary } from '../../src/shared/molecules';
+import { isAttachmentAtom } from '../../src/shared/drawing/layout';
 
 // Database rows of `molecules` → the API's MoleculeSummary / MoleculeDetail.
 
@@ -40,12 +41,13 @@ export function parseModel(row: Pick<MoleculeRow, 'model' | 'id'>): Molecule {
   return JSON.parse(row.model) as Molecule;
 }
 
+
 const round = (v: number) => Math.round(v * 100) / 100;
 
 export function sketchOf(model: Molecule): MoleculeSketch {
   return {
-    atoms: model.atoms.map((a) => [a.element, round(a.x), round(a.y)]),
-    bonds: model.bonds.map((b) => [b.a, b.b, b.aromatic ? 1.5 : b.order]),
+    atoms: model.atoms.map((a) => [a.element, round(a.x), round(a.y), a.charge, a.hydrogens, a.isotope ?? 0, isAttachmentAtom(a) ? 1 : 0]),
+    bonds: model.bonds.map((b) => [b.a, b.b, b.order, b.aromatic ? 1 : 0]),
   };
 }
 

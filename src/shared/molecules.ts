@@ -76,10 +76,14 @@ export interface CoordinatesState {
   error: string | null;
 }
 
-/** A small drawing for lists: [element, x, y] per heavy atom and [a, b, order] per bond. */
+/**
+ * A small drawing for lists, enough for the app's renderer (src/shared/drawing/sketch.ts):
+ * [element, x, y, charge, hydrogens, isotope (0 = none), attachment (1 = `*`)] per heavy atom and
+ * [a, b, Kekulé order, aromatic (1/0)] per bond.
+ */
 export interface MoleculeSketch {
-  atoms: [string, number, number][];
-  bonds: [number, number, number][];
+  atoms: [string, number, number, number, number, number, number][];
+  bonds: [number, number, number, number][];
 }
 
 export interface MoleculeSummary {

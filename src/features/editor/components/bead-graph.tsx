@@ -2,8 +2,8 @@ import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node
 import '@xyflow/react/dist/style.css';
 import { memo, useMemo, useRef } from 'react';
 import type { BeadView, MappingView } from '../model/bead-view';
-import { textOn } from '../model/contrast';
-import { centroid, type Point } from '../model/hull';
+import { textOn } from '../../../shared/drawing/contrast';
+import { centroid, type Point } from '../../../shared/drawing/hull';
 import { ThreadCountButton, type EditorThreads } from './thread-badges';
 
 const CENTRE = { top: '50%', left: '50%', transform: 'translate(-50%, -50%)', opacity: 0, border: 0, minWidth: 1, minHeight: 1, width: 1, height: 1 } as const;

@@ -1,6 +1,6 @@
 import { memo } from 'react';
-import type { Point } from '../model/hull';
-import { BOND } from '../model/layout';
+import type { Point } from '../../../shared/drawing/hull';
+import { BOND } from '../../../shared/drawing/layout';
 import type { Peer } from '../model/presence';
 
 interface HighlightLayerProps {

@@ -1,10 +1,13 @@
-import { memo } from 'react';
-import { centroid, hullPath, type Point } from '../model/hull';
-import { BOND } from '../model/layout';
+import { memo, useMemo } from 'react';
+import { hullPath, type Point } from '../../../shared/drawing/hull';
+import { placeBeadTags, TAG_HEIGHT, type TagPlacement } from '../../../shared/drawing/bead-labels';
+import { BOND } from '../../../shared/drawing/layout';
 import type { BeadView, MappingView } from '../model/bead-view';
-import { textOn } from '../model/contrast';
+import { textOn } from '../../../shared/drawing/contrast';
 
-const MARGIN = BOND * 0.42;
+import { HULL_MARGIN } from '../../../shared/drawing/svg-markup';
+
+const MARGIN = HULL_MARGIN;
 
 interface HullLayerProps {
   view: MappingView;
@@ -71,26 +74,23 @@ const HullTarget = memo(function HullTarget({ bead, points }: { bead: BeadView; 
   return <path d={outline(bead, points)} data-bead={bead.id} />;
 });
 
-/** Bead names, drawn above the structure so labels are never hidden under bonds. */
-export const BeadTags = memo(function BeadTags({ view, points }: Omit<HullLayerProps, 'activeBead'>) {
+/** Bead names, drawn above the structure so labels are never hidden under bonds; placed off atom symbols (shared placement). */
+export const BeadTags = memo(function BeadTags({ view, points, labelled }: Omit<HullLayerProps, 'activeBead'> & { labelled?: (i: number) => boolean }) {
+  const tags = useMemo(() => placeBeadTags(view.beads, points, labelled ?? (() => false), MARGIN), [view.beads, points, labelled]);
   return (
     <g fontSize={BOND * 0.3} fontWeight={700} textAnchor="middle" dominantBaseline="central" pointerEvents="none">
-      {view.beads.map((b) => (
-        <BeadTag key={b.id} bead={b} points={points} />
+      {view.beads.map((b, i) => (
+        <BeadTag key={b.id} bead={b} tag={tags[i]} />
       ))}
     </g>
   );
 });
 
-const BeadTag = memo(function BeadTag({ bead, points }: { bead: BeadView; points: readonly Point[] }) {
-  const pts = beadPoints(bead, points);
-  if (pts.length === 0) return null;
-  const c = centroid(pts);
-  const top = Math.min(...pts.map((p) => p.y)) - MARGIN - BOND * 0.12;
-  const width = Math.max(BOND * 0.7, bead.name.length * BOND * 0.2 + BOND * 0.3);
+const BeadTag = memo(function BeadTag({ bead, tag }: { bead: BeadView; tag: TagPlacement | null }) {
+  if (!tag) return null;
   return (
-    <g transform={`translate(${c.x},${top})`} data-bead-tag={bead.name}>
-      <rect x={-width / 2} y={-BOND * 0.2} width={width} height={BOND * 0.4} rx={BOND * 0.2} fill={bead.colour} />
+    <g transform={`translate(${tag.x},${tag.y})`} data-bead-tag={bead.name}>
+      <rect x={-tag.width / 2} y={-TAG_HEIGHT / 2} width={tag.width} height={TAG_HEIGHT} rx={TAG_HEIGHT / 2} fill={bead.colour} />
       <text fill={textOn(bead.colour)}>{bead.name}</text>
     </g>
   );

@@ -2,7 +2,7 @@ import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { useCanvasGestures, type GestureHandlers } from '../hooks/use-canvas-gestures';
 import { nextAtom, type Direction } from '../model/atom-cursor';
 import type { MappingView } from '../model/bead-view';
-import type { Drawing } from '../model/layout';
+import type { Drawing } from '../../../shared/drawing/layout';
 import type { Peer } from '../model/presence';
 import type { Viewport } from '../model/viewport';
 import { HighlightLayer } from './highlight-layer';
@@ -37,6 +37,7 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
   const svg = useRef<SVGSVGElement>(null);
   const { box, bind } = useCanvasGestures(svg, viewport, setViewport, gestures);
   const points = useMemo(() => drawing.atoms.map((a) => ({ x: a.x, y: a.y })), [drawing]);
+  const labelled = useMemo(() => (i: number) => drawing.atoms[i]?.label !== null, [drawing]);
   const onSize = useRef(props.onSize);
   onSize.current = props.onSize;
 
@@ -96,7 +97,7 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
         <g transform={transform}>
           <HullTargets view={view} points={points} />
           <AtomTargets drawing={drawing} />
-          <BeadTags view={view} points={points} />
+          <BeadTags view={view} points={points} labelled={labelled} />
           <ThreadBadgeLayer view={view} points={points} threads={props.threads} />
         </g>
         <PeerPointers peers={props.peers} viewport={viewport} />

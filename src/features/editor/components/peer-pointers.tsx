@@ -1,4 +1,4 @@
-import { textOn } from '../model/contrast';
+import { textOn } from '../../../shared/drawing/contrast';
 import type { Peer } from '../model/presence';
 import { toScreen, type Viewport } from '../model/viewport';
 

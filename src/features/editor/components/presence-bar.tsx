@@ -1,5 +1,5 @@
 import type { ConnectionState } from '../collab/mapping-session';
-import { textOn } from '../model/contrast';
+import { textOn } from '../../../shared/drawing/contrast';
 import { initials, type Peer } from '../model/presence';
 
 const CONNECTION: Record<ConnectionState, { label: string; dot: string; hint: string }> = {

@@ -1,50 +1,15 @@
-import { memo } from 'react';
-import { BOND, type Drawing } from '../model/layout';
+import { memo, useMemo } from 'react';
+import { BOND, type Drawing } from '../../../shared/drawing/layout';
+import { structureMarkup } from '../../../shared/drawing/svg-markup';
 
-// The molecule itself: bonds, aromatic circles, hydrogens and atom labels. It depends only on
-// the drawing, so selections and bead edits never repaint it.
+// The molecule itself: bonds, aromatic circles, hydrogens, atom labels, charges and attachment
+// points, drawn by the app's one renderer (src/shared/drawing/svg-markup.ts, also used by the
+// molecule pages and the SVG/PNG exports). It depends only on the drawing, so selections and bead
+// edits never repaint it.
 
 export const StructureLayer = memo(function StructureLayer({ drawing }: { drawing: Drawing }) {
-  return (
-    <g aria-hidden="true" pointerEvents="none">
-      <g className="stroke-ink-900" strokeWidth={2} strokeLinecap="round">
-        {drawing.lines.map((l, i) => (
-          <line key={i} x1={l.x1} y1={l.y1} x2={l.x2} y2={l.y2} />
-        ))}
-        {drawing.hydrogens.map((h, i) => (
-          <line key={`h${i}`} x1={h.from.x} y1={h.from.y} x2={h.x - (h.x - h.from.x) * 0.3} y2={h.y - (h.y - h.from.y) * 0.3} className="stroke-ink-400" strokeWidth={1.4} />
-        ))}
-      </g>
-      <g fill="none" className="stroke-ink-900" strokeWidth={1.6}>
-        {drawing.aromaticRings.map((r, i) => (
-          <circle key={i} cx={r.x} cy={r.y} r={r.r} />
-        ))}
-      </g>
-      <g className="fill-ink-400" fontSize={BOND * 0.3} textAnchor="middle" dominantBaseline="central">
-        {drawing.hydrogens.map((h, i) => (
-          <text key={i} x={h.x} y={h.y}>H</text>
-        ))}
-      </g>
-      <g fontSize={BOND * 0.42} fontWeight={600} textAnchor="middle" dominantBaseline="central">
-        {drawing.atoms.map((a) =>
-          a.label || a.charge ? (
-            <g key={a.index}>
-              {a.label && (
-                <text x={a.x} y={a.y} className="fill-ink-900 stroke-paper-50" strokeWidth={5} paintOrder="stroke" strokeLinejoin="round">
-                  {a.label}
-                </text>
-              )}
-              {a.charge && (
-                <text x={a.x + BOND * 0.34} y={a.y - BOND * 0.3} fontSize={BOND * 0.3} className="fill-ink-900 stroke-paper-50" strokeWidth={4} paintOrder="stroke">
-                  {a.charge}
-                </text>
-              )}
-            </g>
-          ) : null,
-        )}
-      </g>
-    </g>
-  );
+  const markup = useMemo(() => ({ __html: structureMarkup(drawing) }), [drawing]);
+  return <g aria-hidden="true" pointerEvents="none" data-structure-layer="" dangerouslySetInnerHTML={markup} />;
 });
 
 /**

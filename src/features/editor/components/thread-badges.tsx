@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { BOND } from '../model/layout';
+import { BOND } from '../../../shared/drawing/layout';
 import type { MappingView } from '../model/bead-view';
-import { centroid, type Point } from '../model/hull';
+import { centroid, type Point } from '../../../shared/drawing/hull';
 
 /**
  * What the editor needs of comment threads; the app route fills it from the threads feature, so the

@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState, type PointerEvent as ReactPointerEvent, type RefObject } from 'react';
-import type { Point } from '../model/hull';
+import type { Point } from '../../../shared/drawing/hull';
 import type { Box } from '../model/selection';
 import { panBy, toModel, zoomAt, type Viewport } from '../model/viewport';
 

@@ -5,7 +5,7 @@ import type { MappingSession } from '../collab/mapping-session';
 import type { EditorContext, EditorUi } from '../commands/registry';
 import type { GestureHandlers } from './use-canvas-gestures';
 import type { MappingView } from '../model/bead-view';
-import { layoutMolecule } from '../model/layout';
+import { layoutMolecule } from '../../../shared/drawing/layout';
 import { atomsInBox, clickAtom, EMPTY, selectMany, type Selection } from '../model/selection';
 import { fitView, zoomAt, type Viewport } from '../model/viewport';
 

@@ -1,4 +1,4 @@
-import type { Point } from './hull';
+import type { Point } from '../../../shared/drawing/hull';
 
 /**
  * Keyboard travel over the drawing: an arrow key moves the atom cursor to the bonded neighbour

@@ -1,27 +1,11 @@
 import theme from '../../../../tailwind.config';
 
-// Bead colours come from the theme's colour-blind-safe categorical palette, so the
-// canvas, the bead table and the graph always agree. Black is kept last and used
-// only after the seven chromatic colours are taken; hulls are drawn translucent.
+// Bead colours live in src/shared/drawing/palette.ts (the exports use them too); presence colours
+// of collaborators are the editor's own.
 
 const bead = theme.theme.extend.colors.bead;
 
-export const BEAD_COLOURS: readonly string[] = [
-  bead.orange,
-  bead.sky,
-  bead.green,
-  bead.yellow,
-  bead.blue,
-  bead.vermillion,
-  bead.purple,
-  bead.black,
-];
-
-/** The colour of the n-th bead (in the document's stable bead order). */
-export function beadColour(n: number): string {
-  const k = BEAD_COLOURS.length;
-  return BEAD_COLOURS[((n % k) + k) % k];
-}
+export { BEAD_COLOURS, beadColour } from '../../../shared/drawing/palette';
 
 // Presence colours: taken from the same palette, skipping yellow and black, which
 // are hard to read as thin pointer outlines on paper.

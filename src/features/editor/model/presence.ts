@@ -4,7 +4,7 @@
  * Remote states are untrusted input (any member can publish anything), so they are read
  * defensively: wrong fields are dropped, never thrown on.
  */
-import type { Point } from './hull';
+import type { Point } from '../../../shared/drawing/hull';
 
 export interface PresenceState {
   user: { id: number; name: string; colour: string };

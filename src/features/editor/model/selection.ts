@@ -1,4 +1,4 @@
-import type { Point } from './hull';
+import type { Point } from '../../../shared/drawing/hull';
 
 /**
  * Atom selection as plain set operations. A plain click replaces the selection; shift adds or

@@ -1,4 +1,4 @@
-import type { Point } from './hull';
+import type { Point } from '../../../shared/drawing/hull';
 
 /**
  * Zoom and pan of the drawing: screen = model × k + (x, y). Kept as plain numbers so the SVG

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { centroid, convexHull, hullPath, withinHull, type Point } from '../../../src/features/editor/model/hull';
+import { centroid, convexHull, hullPath, withinHull, type Point } from '../../../src/shared/drawing/hull';
 
 // Hand-worked shapes: a unit square, a line of three atoms, a single atom.
 

@@ -1,4 +1,4 @@
-import type { Bond } from '../../../shared/chem';
+import type { Bond } from '../chem';
 
 /**
  * Small rings of the molecule graph, for drawing: the smallest cycle through each bond (up to

@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { Molecule } from '../../../src/shared/chem';
 import { parseMolecule } from '../../../server/chem';
-import { BOND, layoutMolecule } from '../../../src/features/editor/model/layout';
-import { hydrogenDirections } from '../../../src/features/editor/model/hydrogens';
+import { BOND, layoutMolecule } from '../../../src/shared/drawing/layout';
+import { hydrogenDirections } from '../../../src/shared/drawing/hydrogens';
 
 // The drawing is made from the chemistry core's own parse, never from a second SMILES reader.
 

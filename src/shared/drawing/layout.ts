@@ -1,4 +1,4 @@
-import type { Atom, Bond, Molecule } from '../../../shared/chem';
+import type { Atom, Bond, Molecule } from '../chem';
 import { centroid, type Point } from './hull';
 import { hydrogenDirections } from './hydrogens';
 import { smallRings } from './rings';
@@ -21,6 +21,8 @@ export interface DrawnAtom extends Point {
   element: string;
   label: string | null;
   charge: string | null;
+  /** An attachment point (`*` in a repeat unit): drawn as a marker, not as an element symbol. */
+  attachment: boolean;
 }
 
 export interface DrawnLine {
@@ -44,6 +46,9 @@ export interface Drawing {
   hydrogens: DrawnHydrogen[];
   bounds: { minX: number; minY: number; maxX: number; maxY: number };
 }
+
+/** `*` in a repeat unit's SMILES: the model marks it `attachment` (or leaves the element '*'). */
+export const isAttachmentAtom = (a: Atom) => (a as Atom & { attachment?: boolean }).attachment === true || a.element === '*';
 
 export function chargeLabel(charge: number): string | null {
   if (charge === 0) return null;
@@ -70,19 +75,24 @@ export function layoutMolecule(molecule: Pick<Molecule, 'atoms' | 'bonds'>, show
     neighbours[b.a].push(b.b);
     neighbours[b.b].push(b.a);
   }
-  const drawnAtoms: DrawnAtom[] = atoms.map((a, i) => ({
-    index: i,
-    element: a.element,
-    ...pos[i],
-    label: atomLabel(a, neighbours[i].length, showHydrogens),
-    charge: chargeLabel(a.charge),
-  }));
+  const drawnAtoms: DrawnAtom[] = atoms.map((a, i) => {
+    const attachment = isAttachmentAtom(a);
+    return {
+      index: i,
+      element: a.element,
+      ...pos[i],
+      label: attachment ? null : atomLabel(a, neighbours[i].length, showHydrogens),
+      charge: chargeLabel(a.charge),
+      attachment,
+    };
+  });
+  const gapAt = (i: number) => drawnAtoms[i].label !== null || drawnAtoms[i].attachment;
 
   const rings = smallRings(atoms.length, bonds);
   const ringOf = (b: Bond) => rings.find((r) => r.includes(b.a) && r.includes(b.b) && Math.abs(r.indexOf(b.a) - r.indexOf(b.b)) % (r.length - 1) <= 1);
   const lines: DrawnLine[] = [];
   bonds.forEach((b, k) => {
-    const [p, q] = trimmed(pos[b.a], pos[b.b], drawnAtoms[b.a].label !== null, drawnAtoms[b.b].label !== null);
+    const [p, q] = trimmed(pos[b.a], pos[b.b], gapAt(b.a), gapAt(b.b));
     lines.push({ bond: k, x1: p.x, y1: p.y, x2: q.x, y2: q.y });
     if (b.aromatic || b.order < 2) return;
     const ring = ringOf(b);
@@ -106,6 +116,7 @@ export function layoutMolecule(molecule: Pick<Molecule, 'atoms' | 'bonds'>, show
   const hydrogens: DrawnHydrogen[] = [];
   if (showHydrogens) {
     atoms.forEach((a, i) => {
+      if (drawnAtoms[i].attachment) return;
       const dirs = hydrogenDirections(pos[i], neighbours[i].map((j) => pos[j]), a.hydrogens);
       const gap = drawnAtoms[i].label ? LABEL_GAP : 0;
       for (const d of dirs) {
