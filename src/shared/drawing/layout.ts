@@ -48,7 +48,7 @@ export interface Drawing {
 }
 
 /** `*` in a repeat unit's SMILES: the model marks it `attachment` (or leaves the element '*'). */
-export const isAttachmentAtom = (a: Atom) => (a as Atom & { attachment?: boolean }).attachment === true || a.element === '*';
+export const isAttachmentAtom = (a: Atom) => a.attachment === true || a.element === '*';
 
 export function chargeLabel(charge: number): string | null {
   if (charge === 0) return null;

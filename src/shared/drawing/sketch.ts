@@ -3,7 +3,7 @@ import type { MoleculeSketch } from '../molecules';
 
 /** A list's compact sketch back as the atoms and bonds the renderer draws from. */
 export function sketchToMolecule(sketch: MoleculeSketch): Pick<Molecule, 'atoms' | 'bonds'> {
-  const atoms = sketch.atoms.map(([element, x, y, charge, hydrogens, isotope, attachment], index): Atom & { attachment: boolean } => ({
+  const atoms = sketch.atoms.map(([element, x, y, charge, hydrogens, isotope, attachment], index): Atom => ({
     index,
     element,
     isotope: isotope ? isotope : null,
@@ -14,7 +14,7 @@ export function sketchToMolecule(sketch: MoleculeSketch): Pick<Molecule, 'atoms'
     radical: 0,
     x,
     y,
-    attachment: attachment === 1,
+    ...(attachment === 1 ? { attachment: true as const } : {}),
   }));
   const bonds = sketch.bonds.map(([a, b, order, aromatic]): Bond => ({ a, b, order, aromatic: aromatic === 1 }));
   return { atoms, bonds };
