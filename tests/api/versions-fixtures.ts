@@ -71,7 +71,13 @@ export async function lockedMapping(db: Db, name: string): Promise<number> {
 export async function importBodyFor(db: Db, moleculeId: number, atoms = 2) {
   const { contentSha256 } = await import('../../server/exports/content-hash');
   const { versionContent } = await import('../../src/shared/exports');
-  const { canonical_smiles: smiles } = await db('molecules').where({ id: moleculeId }).first('canonical_smiles');
+  const { canonical_smiles: smiles, model } = await db('molecules').where({ id: moleculeId }).first('canonical_smiles', 'model');
   const mapping = { beads: [{ id: 'imp1', name: 'I1', centre: 'mass' as const, atoms: Array.from({ length: atoms }, (_, index) => ({ index, weight: 1 })) }] };
-  return { format: 'beadloom-mapping', formatVersion: 1, mapping: { name: 'Imported', resolution: '4:1' }, content: versionContent(smiles, mapping), sha256: contentSha256(smiles, mapping) };
+  // The molecule's graph, as a JSON export carries it: the import places the beads by matching it.
+  const m = JSON.parse(model) as { atoms: { index: number; element: string; isotope: number | null; charge: number; hydrogens: number }[]; bonds: { a: number; b: number; order: number; aromatic: boolean }[] };
+  const molecule = {
+    atoms: m.atoms.map((a) => ({ number: a.index + 1, element: a.element, isotope: a.isotope, charge: a.charge, hydrogens: a.hydrogens })),
+    bonds: m.bonds.map((b) => ({ a: b.a + 1, b: b.b + 1, order: b.order, aromatic: b.aromatic })),
+  };
+  return { format: 'beadloom-mapping', formatVersion: 1, mapping: { name: 'Imported', resolution: '4:1' }, molecule, content: versionContent(smiles, mapping), sha256: contentSha256(smiles, mapping) };
 }
