@@ -79,8 +79,6 @@ describe('partition values in the editor', () => {
     expect(await note.count()).toBe(1);
     expect(await page.getByRole('table', { name: 'Bead types' }).getByText(/Illustrative only/).count()).toBe(0);
     await page.getByRole('table', { name: 'Bead types' }).getByRole('columnheader', { name: 'Heavy atoms per bead' }).waitFor();
-    // The molecule page's stray request for /api/projects/0 (issue 13, item 9; another change fixes it)
-    // is a 404 resource error in the console; anything else is a real failure.
-    expect(session.errors.filter((e) => !/status of 404/.test(e))).toEqual([]);
+    expect(session.errors).toEqual([]);
   });
 });
