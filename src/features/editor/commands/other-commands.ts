@@ -62,6 +62,8 @@ export const historyCommands: EditorCommand[] = [
 
 export const viewCommands: EditorCommand[] = [
   { name: 'toggle-hydrogens', label: 'Show or hide hydrogens', group: 'view', shortcut: 'H', keyTest: plainKey('h'), edits: false, perform: (ctx) => ctx.ui.toggleHydrogens() },
+  { name: 'toggle-atom-numbers', label: 'Show or hide atom numbers', group: 'view', shortcut: 'I', keyTest: plainKey('i'), edits: false, perform: (ctx) => ctx.ui.toggleAtomNumbers() },
+  { name: 'toggle-atom-colours', label: 'Colour atoms by bead', group: 'view', shortcut: 'K', keyTest: plainKey('k'), edits: false, perform: (ctx) => ctx.ui.toggleAtomColours() },
   { name: 'fit-view', label: 'Fit molecule to view', group: 'view', shortcut: 'F', keyTest: plainKey('f', '0'), edits: false, perform: (ctx) => ctx.ui.fit() },
   { name: 'zoom-in', label: 'Zoom in', group: 'view', shortcut: '+', keyTest: plainKey('+', '='), edits: false, perform: (ctx) => ctx.ui.zoom(1.25) },
   { name: 'zoom-out', label: 'Zoom out', group: 'view', shortcut: '−', keyTest: plainKey('-', '_'), edits: false, perform: (ctx) => ctx.ui.zoom(0.8) },

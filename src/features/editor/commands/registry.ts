@@ -27,6 +27,8 @@ export interface EditorContext {
 
 export interface EditorUi {
   toggleHydrogens(): void;
+  toggleAtomNumbers(): void;
+  toggleAtomColours(): void;
   fit(): void;
   zoom(factor: number): void;
   openHelp(): void;

@@ -1,6 +1,6 @@
-import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from '@xyflow/react';
+import { Background, Controls, Handle, Position, ReactFlow, useReactFlow, type Edge, type Node, type NodeProps } from '@xyflow/react';
 import '@xyflow/react/dist/style.css';
-import { memo, useMemo, useRef } from 'react';
+import { memo, useEffect, useMemo, useRef, type RefObject } from 'react';
 import type { BeadView, MappingView } from '../model/bead-view';
 import { textOn } from '../../../shared/drawing/contrast';
 import { centroid, type Point } from '../../../shared/drawing/hull';
@@ -85,6 +85,9 @@ export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onS
     edgeCache.current = next;
     return [...next.values()];
   }, [view.links]);
+  // Which beads are drawn: the graph re-fits when this changes, unless the person moved the view.
+  const membership = useMemo(() => nodes.map((n) => n.id).sort().join(' '), [nodes]);
+  const userMoved = useRef(false);
 
   return (
     // Sized by its panel, never by its nodes: React Flow measuring a new node relays out this box only.
@@ -101,19 +104,44 @@ export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onS
         fitView={nodes.length > 0}
         fitViewOptions={FIT}
         minZoom={0.2}
+        // A move with a source event is the person's (wheel, drag, pinch); fitView's own moves have none.
+        onMoveStart={(event) => void (event && (userMoved.current = true))}
         onNodeClick={(_e, node) => onSelectBead(node.id)}
         onNodesChange={(changes) => {
           for (const c of changes) if (c.type === 'select' && c.selected) onSelectBead(c.id);
         }}
       >
         <Background gap={24} color="#e2d7bf" />
-        <Controls showInteractive={false} position="bottom-right" />
+        <Controls
+          showInteractive={false}
+          position="bottom-right"
+          onZoomIn={() => void (userMoved.current = true)}
+          onZoomOut={() => void (userMoved.current = true)}
+          onFitView={() => void (userMoved.current = false)}
+        />
+        <RefitOnChange membership={membership} userMoved={userMoved} />
       </ReactFlow>
     </div>
   );
 });
 
 const FIT = { padding: 0.25 };
+
+/**
+ * Fits the graph to its panel whenever beads are added or removed, so no node ends up outside it —
+ * unless the person zoomed or panned (then their view stays; the fit button hands it back).
+ * React Flow queues the fit until the new nodes are measured.
+ */
+function RefitOnChange({ membership, userMoved }: { membership: string; userMoved: RefObject<boolean> }) {
+  const flow = useReactFlow();
+  const first = useRef(true);
+  useEffect(() => {
+    // The first fit is the fitView prop's.
+    if (first.current) return void (first.current = false);
+    if (membership && !userMoved.current) void flow.fitView(FIT);
+  }, [membership, flow, userMoved]);
+  return null;
+}
 const EDGE_STYLE = { stroke: '#174c4a', strokeWidth: 2.5 };
 
 function beadNode(b: BeadView, active: boolean, points: readonly Point[], scale: number, threads: EditorThreads | undefined): BeadNode {

@@ -50,7 +50,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         </div>
       </div>
       {p.readOnlyReason && <p className="rounded-md border border-ink-200 bg-ink-50 px-3 py-1.5 text-sm text-ink-800">{READ_ONLY_TEXT[p.readOnlyReason]}</p>}
-      <EditorToolbar ctx={state.ctx} showHydrogens={state.showHydrogens} />
+      <EditorToolbar ctx={state.ctx} toggles={state.toggles} />
       <div className="grid gap-3 xl:grid-cols-[minmax(0,1fr)_22rem]">
         {/* Fixed size and strict containment: an edit relays out and repaints the drawing inside this box only. */}
         <div className="h-[34rem] overflow-hidden rounded-lg border border-paper-300 shadow-card [contain:strict]">
@@ -70,6 +70,8 @@ export function EditorLayout(p: EditorLayoutProps) {
             gestures={state.gestures}
             readOnly={state.ctx.readOnly}
             threads={p.threads}
+            showNumbers={state.showNumbers}
+            colourAtoms={state.colourAtoms}
           />
         </div>
         <div className="flex flex-col gap-3">

@@ -7,11 +7,14 @@ import { ariaKeyShortcut, shortcutLabel } from '../model/platform-keys';
 const GROUPS: { group: CommandGroup; label: string; only?: string[] }[] = [
   { group: 'beads', label: 'Bead editing' },
   { group: 'history', label: 'History' },
-  { group: 'view', label: 'View', only: ['toggle-hydrogens', 'fit-view', 'zoom-in', 'zoom-out', 'show-shortcuts'] },
+  { group: 'view', label: 'View', only: ['toggle-hydrogens', 'toggle-atom-numbers', 'toggle-atom-colours', 'fit-view', 'zoom-in', 'zoom-out', 'show-shortcuts'] },
 ];
 
 /** The toolbar: the same registered commands the keyboard runs, disabled where they would not apply. */
-export const EditorToolbar = memo(function EditorToolbar({ ctx, showHydrogens }: { ctx: EditorContext; showHydrogens: boolean }) {
+/** Which view toggles are on (aria-pressed), by command name. */
+export type ToggleState = Partial<Record<string, boolean>>;
+
+export const EditorToolbar = memo(function EditorToolbar({ ctx, toggles }: { ctx: EditorContext; toggles: ToggleState }) {
   return (
     <div role="toolbar" aria-label="Mapping tools" className="flex flex-wrap items-center gap-x-3 gap-y-2">
       {GROUPS.map(({ group, label, only }) => (
@@ -20,7 +23,7 @@ export const EditorToolbar = memo(function EditorToolbar({ ctx, showHydrogens }:
             .filter((c) => c.group === group && (!only || only.includes(c.name)))
             .filter((c) => !(ctx.readOnly && c.edits))
             .map((c) => {
-              const pressed = c.name === 'toggle-hydrogens' ? showHydrogens : undefined;
+              const pressed = toggles[c.name];
               return (
                 <button
                   key={c.name}

@@ -5,6 +5,7 @@ import type { MappingView } from '../model/bead-view';
 import type { Drawing } from '../../../shared/drawing/layout';
 import type { Peer } from '../model/presence';
 import type { Viewport } from '../model/viewport';
+import { AtomColours, AtomNumbers } from './atom-marks-layer';
 import { HighlightLayer } from './highlight-layer';
 import { BeadTags, HullLayer, HullTargets } from './hull-layer';
 import { PeerPointers } from './peer-pointers';
@@ -27,6 +28,10 @@ interface MoleculeCanvasProps {
   gestures: GestureHandlers;
   readOnly: boolean;
   threads?: EditorThreads;
+  /** Atom numbers (from 1) beside the atoms. */
+  showNumbers: boolean;
+  /** Each atom as a disc in its bead's colour. */
+  colourAtoms: boolean;
 }
 
 const ARROWS: Record<string, Direction> = { ArrowLeft: 'left', ArrowRight: 'right', ArrowUp: 'up', ArrowDown: 'down' };
@@ -76,12 +81,14 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
           <HullLayer view={view} points={points} activeBead={props.activeBead} />
           {/* Highlights sit under the structure so element labels stay readable on selected atoms. */}
           <HighlightLayer points={points} selection={props.selection} highlight={props.highlight} peers={props.peers} cursor={cursor} />
+          {props.colourAtoms && <AtomColours drawing={drawing} view={view} />}
         </g>
       </svg>
       {/* A compositor layer of its own: edits around it re-raster the layers above and below only. */}
       <svg aria-hidden="true" className="pointer-events-none absolute inset-0 size-full will-change-transform">
         <g transform={transform}>
           <StructureLayer drawing={drawing} />
+          {props.showNumbers && <AtomNumbers drawing={drawing} />}
         </g>
       </svg>
       <svg

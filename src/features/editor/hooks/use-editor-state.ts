@@ -18,6 +18,8 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   const [activeBead, setActiveBead] = useState<string | null>(null);
   const [cursor, setCursor] = useState<number | null>(null);
   const [showHydrogens, setShowHydrogens] = useState(false);
+  const [showNumbers, setShowNumbers] = useState(false);
+  const [colourAtoms, setColourAtoms] = useState(false);
   const [helpOpen, setHelpOpen] = useState(false);
   const [renaming, setRenaming] = useState<string | null>(null);
   const [highlight, setHighlight] = useState<number[]>([]);
@@ -58,6 +60,8 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   // and the inspector alone: they re-render when the context they read changes.
   const ui = useMemo<EditorUi>(() => ({
     toggleHydrogens: () => setShowHydrogens((v) => !v),
+    toggleAtomNumbers: () => setShowNumbers((v) => !v),
+    toggleAtomColours: () => setColourAtoms((v) => !v),
     fit,
     zoom: (factor) => size.current && setViewport((v) => zoomAt(v, { x: size.current!.width / 2, y: size.current!.height / 2 }, factor)),
     openHelp: () => setHelpOpen(true),
@@ -66,6 +70,8 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
       setRenaming(id);
     },
   }), [fit]);
+  // What the toolbar's toggle buttons show as pressed (one stable object per state, for its memo).
+  const toggles = useMemo(() => ({ 'toggle-hydrogens': showHydrogens, 'toggle-atom-numbers': showNumbers, 'toggle-atom-colours': colourAtoms }), [showHydrogens, showNumbers, colourAtoms]);
   const atomCount = molecule.atoms.length;
   const freeIons = useMemo(() => freeIonAtoms(molecule), [molecule]);
   const ctx = useMemo<EditorContext>(() => ({
@@ -116,7 +122,7 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   };
 
   return {
-    ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, viewport, setViewport, onSize, gestures,
+    ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, showNumbers, colourAtoms, toggles, viewport, setViewport, onSize, gestures,
     selectBead, selectOnly, highlight, setHighlight, helpOpen, setHelpOpen, renaming, endRename,
   };
 }
