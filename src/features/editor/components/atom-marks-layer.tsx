@@ -1,6 +1,6 @@
 import { memo } from 'react';
 import type { MappingView } from '../model/bead-view';
-import { BOND, type Drawing } from '../model/layout';
+import { BOND, type Drawing } from '../../../shared/drawing/layout';
 
 /**
  * Atom numbers on the drawing, counted from 1 as every export and message counts them, set beside
