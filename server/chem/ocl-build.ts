@@ -7,6 +7,7 @@ import { Molecule } from 'openchemlib';
 import type { Atom, Bond } from '../../src/shared/chem';
 import { atomicNumber } from './elements';
 import type { OclMolecule } from './parse';
+import { cleanLayout } from './layout-cleanup';
 
 
 function bondType(order: number): number {
@@ -45,9 +46,13 @@ export function toOcl(model: { atoms: Atom[]; bonds: Bond[] }, withHydrogens: bo
   return mol;
 }
 
-/** 2D drawing coordinates (y up) laid out by openchemlib for the model's heavy atoms. */
+/**
+ * 2D drawing coordinates (y up) for the model's heavy atoms: openchemlib's coordinate inventor, then
+ * a clean-up that moves branches apart where it drew atoms on top of each other (layout-cleanup.ts).
+ */
 export function layout2d(model: { atoms: Atom[]; bonds: Bond[] }): { x: number; y: number }[] {
   const mol = toOcl(model, false);
   mol.inventCoordinates();
-  return model.atoms.map((_, i) => ({ x: Math.round(mol.getAtomX(i) * 1e4) / 1e4, y: Math.round(-mol.getAtomY(i) * 1e4) / 1e4 }));
+  const raw = model.atoms.map((_, i) => ({ x: mol.getAtomX(i), y: -mol.getAtomY(i) }));
+  return cleanLayout(raw, model.bonds).map((p) => ({ x: Math.round(p.x * 1e4) / 1e4, y: Math.round(p.y * 1e4) / 1e4 }));
 }

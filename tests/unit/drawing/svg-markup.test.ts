@@ -14,7 +14,7 @@ let dye: Molecule;
 beforeAll(async () => {
   // A disulfonated azo dye with two Na+ (our own example molecule).
   dye = await parseMolecule({ smiles: 'Nc1ccc(cc1)N=Nc1ccc(cc1S(=O)(=O)[O-])S(=O)(=O)[O-].[Na+].[Na+]' });
-});
+}, 60_000); // the first parse loads RDKit's WebAssembly
 
 describe('molecule pictures', () => {
   it('draw aromatic rings as rings with a circle and every formal charge', () => {

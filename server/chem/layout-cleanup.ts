@@ -1,0 +1,205 @@
+/**
+ * 2D layout clean-up: removes atoms drawn on top of each other (openchemlib's coordinate inventor
+ * can fold a long chain with many side rings back onto itself, e.g. a polystyrene 18-mer).
+ *
+ * A clash is two atoms closer than CLASH × the median bond length. Each clash is repaired by moving
+ * a whole branch rigidly: for a chain bond on the path between the two atoms (a bond in no ring,
+ * a "bridge"), the smaller side is reflected across the bond's line — a mirror image of a branch
+ * keeps every bond length and angle — or, failing that, turned about the bond's atom by a few
+ * angles. A move is kept only when it lowers the crowding penalty, Σ (CLEAR − d)² over atom pairs
+ * closer than CLEAR × the median bond length, between the moved branch and the rest. The bridges are
+ * found with Tarjan's bridge-finding depth-first search (R. E. Tarjan, Inf. Process. Lett. 2 (1974) 160).
+ * Pure: positions in, positions out.
+ */
+
+export interface XY {
+  x: number;
+  y: number;
+}
+
+const CLASH = 0.55;
+const CLEAR = 0.8;
+const MAX_ROUNDS = 60;
+const TURNS = [Math.PI / 6, -Math.PI / 6, Math.PI / 3, -Math.PI / 3, Math.PI / 2, -Math.PI / 2, (2 * Math.PI) / 3, (-2 * Math.PI) / 3];
+
+export function medianBondLength(points: readonly XY[], bonds: readonly { a: number; b: number }[]): number {
+  const lens = bonds.map((b) => Math.hypot(points[b.a].x - points[b.b].x, points[b.a].y - points[b.b].y)).sort((p, q) => p - q);
+  return lens.length ? lens[Math.floor(lens.length / 2)] : 1;
+}
+
+/** Pairs of atoms closer than `factor` × the median bond length (grid of one bond length). */
+export function closePairs(points: readonly XY[], bonds: readonly { a: number; b: number }[], factor: number): [number, number][] {
+  const limit = factor * medianBondLength(points, bonds);
+  const size = Math.max(limit, 1e-6);
+  const grid = new Map<string, number[]>();
+  const out: [number, number][] = [];
+  points.forEach((p, i) => {
+    const cx = Math.floor(p.x / size);
+    const cy = Math.floor(p.y / size);
+    for (let dx = -1; dx <= 1; dx++)
+      for (let dy = -1; dy <= 1; dy++)
+        for (const j of grid.get(`${cx + dx},${cy + dy}`) ?? []) if (Math.hypot(points[j].x - p.x, points[j].y - p.y) < limit) out.push([j, i]);
+    const key = `${cx},${cy}`;
+    grid.set(key, [...(grid.get(key) ?? []), i]);
+  });
+  return out;
+}
+
+function adjacency(n: number, bonds: readonly { a: number; b: number }[]): number[][] {
+  const adj: number[][] = Array.from({ length: n }, () => []);
+  for (const b of bonds) {
+    adj[b.a].push(b.b);
+    adj[b.b].push(b.a);
+  }
+  return adj;
+}
+
+/** Bonds in no ring, as "a,b" keys with a < b (iterative Tarjan). */
+function bridges(adj: number[][]): Set<string> {
+  const n = adj.length;
+  const disc = new Int32Array(n).fill(-1);
+  const low = new Int32Array(n);
+  const out = new Set<string>();
+  let time = 0;
+  for (let root = 0; root < n; root++) {
+    if (disc[root] !== -1) continue;
+    const stack: [number, number, number][] = [[root, -1, 0]];
+    disc[root] = low[root] = time++;
+    while (stack.length) {
+      const top = stack[stack.length - 1];
+      const [u, parent, k] = top;
+      if (k < adj[u].length) {
+        top[2]++;
+        const v = adj[u][k];
+        if (v === parent) continue;
+        if (disc[v] === -1) {
+          disc[v] = low[v] = time++;
+          stack.push([v, u, 0]);
+        } else low[u] = Math.min(low[u], disc[v]);
+      } else {
+        stack.pop();
+        if (parent >= 0) {
+          low[parent] = Math.min(low[parent], low[u]);
+          if (low[u] > disc[parent]) out.add(parent < u ? `${parent},${u}` : `${u},${parent}`);
+        }
+      }
+    }
+  }
+  return out;
+}
+
+function path(adj: number[][], from: number, to: number): number[] | null {
+  const prev = new Int32Array(adj.length).fill(-2);
+  prev[from] = -1;
+  const queue = [from];
+  for (let q = 0; q < queue.length; q++) {
+    const u = queue[q];
+    if (u === to) break;
+    for (const v of adj[u]) if (prev[v] === -2) (prev[v] = u), queue.push(v);
+  }
+  if (prev[to] === -2) return null;
+  const out = [to];
+  for (let w = prev[to]; w !== -1; w = prev[w]) out.push(w);
+  return out.reverse();
+}
+
+/** Atoms reached from `start` without crossing the bond start–`not`. */
+function side(adj: number[][], start: number, not: number): number[] {
+  const seen = new Uint8Array(adj.length);
+  seen[start] = 1;
+  seen[not] = 1;
+  const out = [start];
+  for (let q = 0; q < out.length; q++) for (const v of adj[out[q]]) if (!seen[v]) (seen[v] = 1), out.push(v);
+  return out;
+}
+
+export function cleanLayout(input: readonly XY[], bonds: readonly { a: number; b: number }[]): XY[] {
+  const points = input.map((p) => ({ ...p }));
+  const n = points.length;
+  if (n < 4) return points;
+  const adj = adjacency(n, bonds);
+  const chainBonds = bridges(adj);
+  const L = medianBondLength(points, bonds);
+  const clear = CLEAR * L;
+  const inSide = new Uint8Array(n);
+  const slot = new Int32Array(n);
+
+  /** Crowding between the atoms of `moved` (at `at`) and every other atom. */
+  const penalty = (moved: number[], at: (i: number) => XY): number => {
+    const grid = new Map<string, number[]>();
+    const cell = (v: number) => Math.floor(v / clear);
+    for (let i = 0; i < n; i++) {
+      if (inSide[i]) continue;
+      const key = `${cell(points[i].x)},${cell(points[i].y)}`;
+      grid.set(key, [...(grid.get(key) ?? []), i]);
+    }
+    let total = 0;
+    for (const a of moved) {
+      const p = at(a);
+      const [cx, cy] = [cell(p.x), cell(p.y)];
+      for (let dx = -1; dx <= 1; dx++)
+        for (let dy = -1; dy <= 1; dy++)
+          for (const b of grid.get(`${cx + dx},${cy + dy}`) ?? []) {
+            const d = Math.hypot(points[b].x - p.x, points[b].y - p.y);
+            if (d < clear) total += (clear - d) ** 2;
+          }
+    }
+    return total;
+  };
+
+  for (let round = 0; round < MAX_ROUNDS; round++) {
+    const clashes = closePairs(points, bonds, CLASH);
+    if (!clashes.length) break;
+    let improved = false;
+    for (const [i, j] of clashes) {
+      const route = path(adj, i, j);
+      if (!route) continue;
+      let best: { moved: number[]; to: XY[]; gain: number } | null = null;
+      for (let k = 0; k + 1 < route.length; k++) {
+        const [u, v] = [route[k], route[k + 1]];
+        if (!chainBonds.has(u < v ? `${u},${v}` : `${v},${u}`)) continue;
+        const sv = side(adj, v, u);
+        const su = side(adj, u, v);
+        const [moved, pivot, other] = sv.length <= su.length ? [sv, u, v] : [su, v, u];
+        moved.forEach((a, k) => ((inSide[a] = 1), (slot[a] = k)));
+        const before = penalty(moved, (a) => points[a]);
+        const candidates: XY[][] = [reflect(moved, points, points[pivot], points[other])];
+        for (const t of TURNS) candidates.push(turn(moved, points, points[pivot], t));
+        for (const to of candidates) {
+          const after = penalty(moved, (a) => to[slot[a]]);
+          if (after < before - 1e-9 && (!best || before - after > best.gain)) best = { moved, to, gain: before - after };
+        }
+        moved.forEach((a) => (inSide[a] = 0));
+      }
+      if (best) {
+        best.moved.forEach((a, k) => (points[a] = best!.to[k]));
+        improved = true;
+        break; // positions changed: find the clashes afresh
+      }
+    }
+    if (!improved) break;
+  }
+  return points;
+}
+
+function reflect(atoms: number[], points: XY[], p: XY, q: XY): XY[] {
+  const dx = q.x - p.x;
+  const dy = q.y - p.y;
+  const len2 = dx * dx + dy * dy || 1;
+  return atoms.map((a) => {
+    const { x, y } = points[a];
+    const t = ((x - p.x) * dx + (y - p.y) * dy) / len2;
+    const fx = p.x + t * dx;
+    const fy = p.y + t * dy;
+    return { x: 2 * fx - x, y: 2 * fy - y };
+  });
+}
+
+function turn(atoms: number[], points: XY[], c: XY, angle: number): XY[] {
+  const [cos, sin] = [Math.cos(angle), Math.sin(angle)];
+  return atoms.map((a) => {
+    const dx = points[a].x - c.x;
+    const dy = points[a].y - c.y;
+    return { x: c.x + dx * cos - dy * sin, y: c.y + dx * sin + dy * cos };
+  });
+}
