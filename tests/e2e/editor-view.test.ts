@@ -67,6 +67,17 @@ describe('the editor drawing’s view options', () => {
     await modeller.screenshot({ path: '/tmp/beadloom-colour-atoms.png' });
     await tool(modeller, 'Colour atoms by bead').click();
     await expect.poll(() => modeller.locator('[data-atom-colour]').count()).toBe(0);
+
+    // Point 13's pictures: ΔG per bead on the library's bands, and Σ bead mass against the weight.
+    const chart = modeller.getByRole('img', { name: "Partition free energy of each bead against the library's type bands" });
+    await chart.waitFor();
+    expect(await chart.locator('[data-chart-bead]').count()).toBe(mapping.draft.beads.length);
+    const sum = mapping.evaluation.beads.reduce((s: number, b: { mass: number }) => s + b.mass, 0);
+    expect(await modeller.locator('[data-total="bead-mass"]').textContent()).toBe(sum.toFixed(2));
+    const dots = await chart.locator('[data-delta-g]').evaluateAll((cs) => cs.map((c) => Number(c.getAttribute('data-delta-g'))));
+    expect(dots.sort()).toEqual(mapping.evaluation.beads.map((b: { partitionDeltaG: number | null }) => b.partitionDeltaG).filter((v: number | null) => v !== null).sort());
+    await chart.scrollIntoViewIfNeeded();
+    await modeller.getByRole('region', { name: 'Partition free energy per bead, and mass balance' }).screenshot({ path: '/tmp/beadloom-partition-chart.png' });
     expect(session.errors).toEqual([]);
   });
 

@@ -13,6 +13,7 @@ import { EditorToolbar } from './editor-toolbar';
 import { FontPrimer } from './font-primer';
 import { MoleculeCanvas } from './molecule-canvas';
 import { Panel } from './panel';
+import { MassBalance, PartitionChart } from './partition-chart';
 import { ConnectionBadge, PresenceList } from './presence-bar';
 import { ShortcutHelp } from './shortcut-help';
 import { TotalsBar } from './totals-bar';
@@ -111,6 +112,12 @@ export function EditorLayout(p: EditorLayoutProps) {
           origin={state.ctx.origin}
           readOnly={state.ctx.readOnly}
         />
+      </Panel>
+      <Panel title="Partition free energy per bead, and mass balance">
+        <div className="flex flex-col gap-3">
+          <MassBalance evaluation={p.evaluation} molecularWeight={p.molecule.molecularWeight} />
+          <PartitionChart view={view} evaluation={p.evaluation} library={p.library} />
+        </div>
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
       <FontPrimer />

@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { paths } from '../../../lib/paths';
 import { UPLOAD_MAX_BYTES } from '../../../shared/molecules';
 import { useUploadMolecules } from '../api/upload-molecules';
+import { DuplicateLink, duplicateOf } from './duplicate-link';
 
 /** A molfile or SDF upload; a multi-record SDF becomes one molecule per record, each reported. */
 export function UploadMoleculesForm({ projectId }: { projectId: number }) {
@@ -41,7 +42,13 @@ export function UploadMoleculesForm({ projectId }: { projectId: number }) {
             {upload.data.records.map((r) => (
               <li key={r.record} className={r.ok ? 'text-ok-700' : 'text-alert-700'}>
                 <span className="font-semibold">Record {r.record}</span> {r.name && `(${r.name})`}:{' '}
-                {r.ok ? <Link className="underline" to={paths.molecule(r.molecule.id)}>added as {r.molecule.name}</Link> : r.error.message}
+                {r.ok ? (
+                  <Link className="underline" to={paths.molecule(r.molecule.id)}>added as {r.molecule.name}</Link>
+                ) : duplicateOf(r.error.code, r.error.details) ? (
+                  <DuplicateLink duplicate={duplicateOf(r.error.code, r.error.details)!} />
+                ) : (
+                  r.error.message
+                )}
               </li>
             ))}
           </ol>
