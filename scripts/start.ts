@@ -6,6 +6,7 @@ import { bin, run } from './lib/run';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../seeds/demo-data';
 import { configFromEnv } from '../server/config';
 import { startServer, type RunningServer } from '../server/index';
+import { devMailMounted } from '../server/mail/dev-mail.routes';
 
 const production = process.env.NODE_ENV === 'production';
 const wantSeed = !production || process.env.BEADLOOM_SEED === '1';
@@ -39,7 +40,8 @@ try {
   server = await startServer(config, process.env.HOST ?? '127.0.0.1');
 
   console.log(`\nBeadloom is running at ${config.appUrl}${seeded ? ' (demo data seeded)' : ''}`);
-  if (server.ctx.mailSinkInUse) console.log(`Caught e-mail: ${config.appUrl}/dev/mail`);
+  if (devMailMounted(server.ctx)) console.log(`Caught e-mail: ${config.appUrl}/dev/mail (signed in as a site admin)`);
+  else if (server.ctx.mailSinkInUse) console.log('[beadloom] No SMTP_URL: e-mail is caught by the local sink and not delivered; /dev/mail is off in production (BEADLOOM_DEV_MAIL=1 turns it on for admins).');
   if (wantSeed) {
     console.log(`Demo accounts (password: ${DEMO_PASSWORD}):`);
     for (const a of DEMO_ACCOUNTS) console.log(`  ${a.email.padEnd(24)} ${a.isAdmin ? 'admin' : a.role}`);

@@ -16,7 +16,7 @@ import { userRoutes } from './users/users.routes';
 import { projectRoutes } from './projects/projects.routes';
 import { moleculeRoutes } from './molecules/molecules.routes';
 import { healthRoutes } from './health/health.routes';
-import { devMailRoutes } from './mail/dev-mail.routes';
+import { devMailMounted, devMailRoutes } from './mail/dev-mail.routes';
 import { uploadRoutes } from './molecules/uploads.routes';
 import { ConformerQueue } from './molecules/conformer-queue';
 import { mappingRoutes } from './mappings/mappings.routes';
@@ -91,7 +91,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   chemRoutes(routes, ctx);
   registerThreads(routes, ctx);
   registerVersions(routes, ctx, collab);
-  if (ctx.mailSinkInUse) devMailRoutes(routes, ctx);
+  if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);
 

@@ -11,6 +11,8 @@ export interface Config {
   smtpUrl: string | null;
   mailFrom: string;
   production: boolean;
+  /** BEADLOOM_DEV_MAIL=1: serve /dev/mail (admins only) even with NODE_ENV=production. */
+  devMail: boolean;
   /** Where the built client lives; null serves no client (API-only tests). */
   clientDir: string | null;
   bcryptCost: number;
@@ -32,6 +34,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
     smtpUrl: env.SMTP_URL || null,
     mailFrom: env.MAIL_FROM ?? 'Beadloom <no-reply@beadloom.localhost>',
     production: env.NODE_ENV === 'production',
+    devMail: env.BEADLOOM_DEV_MAIL === '1',
     clientDir: env.CLIENT_DIR ?? 'dist',
     bcryptCost: Math.max(12, Number(env.BCRYPT_COST ?? 12)),
     loginLimits: {

@@ -9,6 +9,6 @@ export interface AppContext {
   db: Db;
   mailer: Mailer;
   log: Logger;
-  /** True while mail goes to the local sink; /dev/mail exists only then. */
+  /** True while mail goes to the local sink; /dev/mail can exist only then (see mail/dev-mail.routes.ts). */
   mailSinkInUse: boolean;
 }

@@ -1,9 +1,26 @@
+import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
+import { canSite } from '../auth/permissions';
 import { escapeHtml } from './messages';
 
-// Development-only view of the local SMTP sink. Mounted only while the sink is
-// in use; with a real SMTP server configured these routes do not exist.
+// Development-only view of the local SMTP sink. The caught mail holds every
+// account's invitation and password-reset links, so reading it is taking over
+// any account: only a signed-in site admin may, and everyone else (anonymous
+// included) gets the same 404 as when the routes do not exist. Mounted only
+// while the sink is in use, and never with NODE_ENV=production unless
+// BEADLOOM_DEV_MAIL=1 asks for it; with a real SMTP server these routes do not exist.
+
+/** Whether the app serves /dev/mail at all. */
+export function devMailMounted(ctx: AppContext): boolean {
+  return ctx.mailSinkInUse && (!ctx.config.production || ctx.config.devMail);
+}
+
+/**
+ * Unless the caller is a site admin, the request leaves these routes and falls through to the app's
+ * unknown-route answer, exactly as when the routes are not mounted.
+ */
+const mailReaderOnly: RequestHandler = (req, _res, next) => next(canSite(req.user, 'mail:read', { roles: [] }) ? undefined : 'route');
 
 interface DevMail {
   id: number;
@@ -31,11 +48,11 @@ async function caughtMail(ctx: AppContext): Promise<DevMail[]> {
 const linkify = (text: string) => escapeHtml(text).replace(/(https?:\/\/[^\s<]+)/g, '<a href="$1">$1</a>');
 
 export function devMailRoutes(r: RouteTable, ctx: AppContext): void {
-  r.get('/dev/mail.json', async (_req, res) => {
+  r.get('/dev/mail.json', mailReaderOnly, async (_req, res) => {
     res.json(await caughtMail(ctx));
   });
 
-  r.get('/dev/mail', async (_req, res) => {
+  r.get('/dev/mail', mailReaderOnly, async (_req, res) => {
     const mails = await caughtMail(ctx);
     const items = mails
       .map(

@@ -178,8 +178,9 @@ export const ROUTE_CASES: RouteCase[] = [
     }),
     expect: inProject(200, EDITORS),
   },
-  { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: all(200) },
-  { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: all(200) },
+  // The caught mail holds reset links: a site admin only; anyone else gets the unknown-route 404.
+  { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: { ...all(404), admin: 200 } },
+  { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: { ...all(404), admin: 200 } },
   // Threads and notifications (docs/threads.md). Event streams answer 406 to a caller that does not ask
   // for text/event-stream, after the permission check; tests/api/threads-live.test.ts reads the streams.
   { method: 'get', path: '/api/mappings/:id/threads', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/threads` }), expect: inProject(200, EVERYONE) },

@@ -56,28 +56,4 @@ describe('projects and members', () => {
     const res = await sup.patch(`/api/projects/${projectId}`, { description: 'New words.' }).expect(200);
     expect(res.body.description).toBe('New words.');
   });
-
-  it('/dev/mail lists caught mail as HTML and JSON', async () => {
-    const sup = await signedIn(t.app, 'supervisor@example.org');
-    const json = await sup.get('/dev/mail.json').expect(200);
-    expect(json.body[0]).toEqual(expect.objectContaining({ to: expect.any(Array), subject: expect.any(String), text: expect.any(String), createdAt: expect.any(String) }));
-    const html = await sup.get('/dev/mail').expect(200);
-    expect(html.text).toContain('Caught mail');
-  });
-});
-
-describe('without the local sink', () => {
-  it('has no /dev/mail once a real SMTP server is configured', async () => {
-    const real = await createTestApp();
-    try {
-      const { createApp } = await import('../../server/app');
-      const built = createApp({ ...real.ctx, mailSinkInUse: false });
-      const request = (await import('supertest')).default;
-      await request(built.app).get('/dev/mail.json').expect(404);
-      await request(built.app).get('/dev/mail').expect(404);
-      await built.close();
-    } finally {
-      await real.stop();
-    }
-  });
 });

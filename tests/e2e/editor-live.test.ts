@@ -38,8 +38,7 @@ async function addSecondModeller(): Promise<void> {
     headers: { 'x-csrf-token': login.csrfToken },
   });
   expect(res.ok(), await res.text()).toBe(true);
-  const mail = await (await request.get('/dev/mail.json')).json();
-  const invitation = mail.find((m: { to: string[] }) => m.to.includes(SECOND.email));
+  const invitation = (await session.mail()).find((m) => m.to.includes(SECOND.email))!;
   const token = /token=([^\s&]+)/.exec(invitation.text)![1];
   const reset = await request.post('/api/auth/reset', { data: { token, password: SECOND.password }, headers: { 'x-csrf-token': login.csrfToken } });
   expect(reset.ok(), await reset.text()).toBe(true);

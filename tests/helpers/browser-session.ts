@@ -1,6 +1,14 @@
 import type { Browser, BrowserContext, BrowserContextOptions, Page } from 'playwright-core';
 import { startTestServer } from './app-server';
 import { launchBrowser, signedInPage } from './browser';
+import { DEMO_PASSWORD } from '../../seeds/demo-data';
+
+/** One message of the local mail sink, as /dev/mail.json gives it. */
+export interface CaughtMail {
+  to: string[];
+  subject: string;
+  text: string;
+}
 
 /**
  * One browser test file's app server and Chromium: `open()` in beforeAll, `close()` in afterAll.
@@ -30,6 +38,19 @@ export function browserSession() {
       const context = await ready(browser).newContext({ baseURL: ready(server).url, ...options });
       contexts.push(context);
       return context;
+    },
+    /**
+     * The caught mail, newest first, read from /dev/mail.json as the demo's site admin (no one else
+     * may read it) in a context of its own, so no page's sign-in changes.
+     */
+    async mail(): Promise<CaughtMail[]> {
+      const { request } = await this.context();
+      const { token } = await (await request.get('/api/auth/csrf')).json();
+      const login = await request.post('/api/auth/login', { data: { email: 'admin@example.org', password: DEMO_PASSWORD }, headers: { 'x-csrf-token': token } });
+      if (!login.ok()) throw new Error(`admin sign-in failed: ${login.status()}`);
+      const res = await request.get('/dev/mail.json');
+      if (!res.ok()) throw new Error(`/dev/mail.json answered ${res.status()}`);
+      return res.json();
     },
     async signedIn(email: string, password: string): Promise<Page> {
       const { context, page } = await signedInPage(ready(browser), ready(server).url, email, password, errors);
