@@ -17,6 +17,8 @@ export interface Config {
   clientDir: string | null;
   bcryptCost: number;
   loginLimits: { perAccount: number; perIp: number; windowMs: number };
+  /** COLLAB_MAX_FRAME_BYTES: the largest collaboration frame (a Yjs update) a client may send; 1 MiB. */
+  collabMaxFrameBytes: number;
   logLevel: string;
 }
 
@@ -42,6 +44,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
       perIp: Number(env.LOGIN_LIMIT_IP ?? 100),
       windowMs: 15 * 60_000,
     },
+    collabMaxFrameBytes: Math.max(64 * 1024, Number(env.COLLAB_MAX_FRAME_BYTES ?? 1024 * 1024) || 1024 * 1024),
     logLevel: env.LOG_LEVEL ?? 'info',
   };
 }

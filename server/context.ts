@@ -2,6 +2,7 @@ import type { Logger } from 'pino';
 import type { Config } from './config';
 import type { Db } from './db/knex';
 import type { Mailer } from './mail/mailer';
+import type { AccessChanges } from './auth/access-changes';
 
 /** What every route module and service is given; built once in server/app.ts. */
 export interface AppContext {
@@ -11,4 +12,6 @@ export interface AppContext {
   log: Logger;
   /** True while mail goes to the local sink; /dev/mail can exist only then (see mail/dev-mail.routes.ts). */
   mailSinkInUse: boolean;
+  /** Role, membership, account, lock and sign-out changes, for open sockets to follow. */
+  accessChanges: AccessChanges;
 }

@@ -8,6 +8,7 @@ import { startMailSink, type MailSink } from './mail/sink';
 import { createApp } from './app';
 import type { AppContext } from './context';
 import { backfillModels } from './molecules/model-backfill';
+import { createLocalAccessChanges } from './auth/access-changes';
 
 // Starts Beadloom: database pool, mail (real SMTP or the local sink), the
 // Express app, and the HTTP server. `npm start` and `npm run dev` call this
@@ -27,7 +28,8 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
   let sink: MailSink | null = null;
   if (!config.smtpUrl) sink = await startMailSink(db);
   const mailer = createMailer(config.smtpUrl ?? (sink as MailSink).url, config.mailFrom);
-  const ctx: AppContext = { config, db, log, mailer, mailSinkInUse: sink !== null };
+  const accessChanges = createLocalAccessChanges((err) => log.error({ err }, 'access change listener failed'));
+  const ctx: AppContext = { config, db, log, mailer, mailSinkInUse: sink !== null, accessChanges };
   const built = createApp(ctx);
   const server = createServer(built.app);
   server.on('upgrade', built.collab.handleUpgrade);

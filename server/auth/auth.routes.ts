@@ -40,9 +40,14 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
   });
 
   r.post('/api/auth/logout', (req, res, next) => {
+    // passport gives the session a new id on sign-out; the collab sockets know the one they opened with.
+    const sessionId = req.sessionID;
     req.logOut((err) => {
       if (err) return next(err);
-      req.session.destroy(() => res.status(204).end());
+      req.session.destroy(() => {
+        ctx.accessChanges.publish({ kind: 'signed_out', sessionId });
+        res.status(204).end();
+      });
     });
   });
 
@@ -67,6 +72,7 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
   r.patch('/api/me', validate({ body: updateMeBody }), async (req, res) => {
     const user = requireUser(req);
     await ctx.db('users').where({ id: user.id }).update({ display_name: req.body.displayName, updated_at: ctx.db.fn.now() });
+    ctx.accessChanges.publish({ kind: 'account', userId: user.id }); // open sockets take the new name
     res.json(await buildMe(ctx.db, { ...user, displayName: req.body.displayName }));
   });
 

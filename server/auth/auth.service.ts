@@ -24,7 +24,7 @@ export async function resetPassword(ctx: AppContext, token: string, password: st
   const userId = await consumeToken(ctx.db, token);
   if (userId === null) throw badRequest('invalid_token', 'This link has already been used or has expired. Ask for a new one.');
   await ctx.db('users').where({ id: userId }).update({ password_hash: hash, updated_at: ctx.db.fn.now() });
-  await endSessions(ctx.db, userId);
+  await endSessions(ctx, userId);
   const row = await findUserById(ctx.db, userId);
   return row && !row.disabled_at ? toSessionUser(row) : null;
 }
@@ -36,6 +36,6 @@ export async function changePassword(ctx: AppContext, userId: number, current: s
   }
   const hash = await hashPassword(next, ctx.config.bcryptCost);
   await ctx.db('users').where({ id: userId }).update({ password_hash: hash, updated_at: ctx.db.fn.now() });
-  await endSessions(ctx.db, userId);
+  await endSessions(ctx, userId);
   return row.session_version + 1;
 }

@@ -10,9 +10,19 @@ import { findUserByEmail, findUserById, toSessionUser } from '../users/users.ser
 // disabled account, or one whose version moved on (disable, password change),
 // is signed out on its next request.
 
-interface SessionRef {
+export interface SessionRef {
   id: number;
   v: number;
+}
+
+/**
+ * The account a session stands for, or null once the account is disabled or gone or its sessions were
+ * ended. Asked on every request, and by open collaboration sockets when access changes.
+ */
+export async function sessionUser(db: Db, ref: SessionRef): Promise<Express.User | null> {
+  const row = await findUserById(db, ref.id);
+  if (!row || row.disabled_at || row.session_version !== ref.v) return null;
+  return toSessionUser(row);
 }
 
 export function configurePassport(db: Db, config: Config): passport.PassportStatic {
@@ -33,9 +43,7 @@ export function configurePassport(db: Db, config: Config): passport.PassportStat
   pp.serializeUser((user, done) => done(null, { id: user.id, v: user.sessionVersion } satisfies SessionRef));
   pp.deserializeUser(async (ref: SessionRef, done) => {
     try {
-      const row = await findUserById(db, ref.id);
-      if (!row || row.disabled_at || row.session_version !== ref.v) return done(null, false);
-      return done(null, toSessionUser(row));
+      return done(null, (await sessionUser(db, ref)) ?? false);
     } catch (err) {
       return done(err);
     }

@@ -2,9 +2,11 @@
  * The live-collaboration endpoint, /collab/:mappingId, on y-protocols (sync + awareness).
  *
  * The HTTP upgrade is authenticated by running the app's own express-session and passport
- * middleware on the upgrade request, and authorised by the permission module: non-members (and
- * unknown mappings) are refused with 404, anonymous callers with 401, before any WebSocket exists.
- * Members without 'mapping:edit' — and everyone while the mapping is locked — join read-only.
+ * middleware on the upgrade request, and authorised by the permission module (collab-access.ts):
+ * non-members (and unknown mappings) are refused with 404, anonymous callers with 401, before any
+ * WebSocket exists. Members without 'mapping:edit' — and everyone while the mapping is locked — join
+ * read-only. Open connections follow later access changes (ctx.accessChanges). Frames larger than
+ * `maxFrameBytes` are refused by the socket itself (close 1009) before they are buffered whole.
  * This module also answers the REST side's questions about drafts (DraftAccess).
  */
 import { ServerResponse, type IncomingMessage } from 'node:http';
@@ -12,14 +14,13 @@ import type { Duplex } from 'node:stream';
 import type { RequestHandler } from 'express';
 import { WebSocketServer } from 'ws';
 import type { AppContext } from '../context';
-import { roleInProject } from '../auth/access';
-import { can, canSee } from '../auth/permissions';
 import type { DraftAccess } from '../mappings/mappings.routes';
 import { readStoredDraft } from '../mappings/evaluation';
 import { notFound } from '../http/errors';
 import { serveConnection } from './connection';
 import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room';
 import { Rooms } from './rooms';
+import { decide, followAccessChanges, redecide, type OpenConnection } from './collab-access';
 
 export interface Collab extends DraftAccess {
   handleUpgrade(req: IncomingMessage, socket: Duplex, head: Buffer): void;
@@ -28,7 +29,6 @@ export interface Collab extends DraftAccess {
 }
 
 const PATH = /^\/collab\/([1-9][0-9]{0,9})\/?(?:\?.*)?$/;
-const MAX_FRAME = 16 * 1024 * 1024;
 
 /** Browsers send Origin; a page from another site must not open a socket with our cookie. */
 function sameOrigin(req: IncomingMessage): boolean {
@@ -42,9 +42,16 @@ function sameOrigin(req: IncomingMessage): boolean {
 }
 
 export function createCollab(ctx: AppContext, middleware: RequestHandler[], options: Partial<CollabOptions> = {}): Collab {
-  const opts = { ...DEFAULT_COLLAB_OPTIONS, ...options };
+  const opts = { ...DEFAULT_COLLAB_OPTIONS, maxFrameBytes: ctx.config.collabMaxFrameBytes, ...options };
   const rooms = new Rooms(ctx, opts);
-  const wss = new WebSocketServer({ noServer: true, maxPayload: MAX_FRAME });
+  const wss = new WebSocketServer({ noServer: true, maxPayload: opts.maxFrameBytes });
+  // Every open connection from its upgrade on, for access changes to reach; and a count of the
+  // changes, so an upgrade decided just before one re-decides at once.
+  const connections = new Set<OpenConnection>();
+  let accessChanges = 0;
+  const onAccessError = (err: unknown) => ctx.log.error({ err }, 'collab access change failed');
+  const unfollow = followAccessChanges(ctx.accessChanges, () => connections, () => rooms.all(), onAccessError);
+  const unCount = ctx.accessChanges.subscribe(() => void accessChanges++);
 
   const refuse = (socket: Duplex, status: number, text: string) => {
     socket.end(`HTTP/1.1 ${status} ${text}\r\nConnection: close\r\nContent-Length: 0\r\n\r\n`);
@@ -53,13 +60,8 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
   async function authorise(req: IncomingMessage, mappingId: number) {
     const res = new ServerResponse(req);
     for (const mw of middleware) await new Promise<void>((resolve, reject) => mw(req as never, res as never, (err?: unknown) => (err ? reject(err) : resolve())));
-    const user = (req as unknown as { user?: Express.User }).user;
-    if (!user) return { status: 401 as const };
-    const row = await ctx.db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('m.project_id');
-    if (!row) return { status: 404 as const };
-    const standing = await roleInProject(ctx.db, row.project_id, user.id);
-    if (!canSee(user, standing) || !can(user, 'mapping:read', standing)) return { status: 404 as const };
-    return { status: 200 as const, user, role: standing.role, roleReadOnly: !can(user, 'mapping:edit', standing) };
+    const { user, sessionID } = req as unknown as { user?: Express.User; sessionID?: string };
+    return { decision: await decide(ctx.db, user, mappingId), sessionId: sessionID ?? null };
   }
 
   function handleUpgrade(req: IncomingMessage, socket: Duplex, head: Buffer): void {
@@ -67,13 +69,25 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
     if (!match) return refuse(socket, 404, 'Not Found');
     if (!sameOrigin(req)) return refuse(socket, 403, 'Forbidden');
     const mappingId = Number(match[1]);
+    const changesBefore = accessChanges;
     authorise(req, mappingId).then(
-      (a) => {
+      ({ decision: a, sessionId }) => {
         if (a.status === 401) return refuse(socket, 401, 'Unauthorized');
         if (a.status === 404) return refuse(socket, 404, 'Not Found');
         wss.handleUpgrade(req, socket, head, (ws) => {
-          const session = { mappingId, userId: a.user.id, displayName: a.user.displayName, role: a.role };
-          serveConnection(ws, { userId: a.user.id, displayName: a.user.displayName, session, roleReadOnly: a.roleReadOnly }, () => rooms.open(mappingId), opts.pingIntervalMs);
+          const { id: userId, displayName, sessionVersion } = a.user;
+          const session = { mappingId, userId, displayName, role: a.role };
+          const peer = serveConnection(
+            ws,
+            { userId, displayName, sessionId, session, roleReadOnly: a.roleReadOnly, redecide: (signedOut) => redecide(ctx.db, { userId, sessionVersion, signedOut }, mappingId) },
+            () => rooms.open(mappingId),
+            opts.pingIntervalMs,
+          );
+          const open = { peer, projectId: a.projectId };
+          connections.add(open);
+          ws.on('close', () => connections.delete(open));
+          // Access changed while this upgrade was being decided: the decision may be stale.
+          if (accessChanges !== changesBefore) peer.reconsider({ kind: 'account', userId });
         });
       },
       (err) => {
@@ -109,6 +123,8 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
       });
     },
     async close() {
+      unfollow();
+      unCount();
       await rooms.closeAll();
       for (const ws of wss.clients) ws.terminate();
       wss.close();

@@ -3,8 +3,12 @@
  * them to the room. Frames are handled one at a time, in arrival order, and only after the room has
  * loaded the draft from MariaDB, so the first sync step 1 is answered with the stored state.
  * Read-only connections (students, locked mappings) may ask (sync step 1) but their step 2 and update
- * messages are dropped; awareness flows for everyone. A frame that cannot be decoded closes this
- * connection only. Keep-alive: a ping every `pingIntervalMs`; no pong by the next one ends the socket.
+ * messages are dropped; awareness flows for everyone, stamped with the account's identity
+ * (awareness-stamp.ts). A frame that cannot be decoded closes this connection only. Keep-alive: a ping
+ * every `pingIntervalMs`; no pong by the next one ends the socket.
+ * When access changes (collab-access.ts) the connection decides again: it turns read-only or back,
+ * or closes with 4401 (signed out, account disabled) or 4404 (no longer a member); from the moment
+ * it decided to close, nothing it sends is used.
  */
 import type { WebSocket } from 'ws';
 import * as encoding from 'lib0/encoding';
@@ -15,6 +19,7 @@ import {
   CLOSE_MALFORMED,
   CLOSE_NOT_FOUND,
   CLOSE_TRY_AGAIN,
+  CLOSE_UNAUTHENTICATED,
   MESSAGE_AWARENESS,
   MESSAGE_ERROR,
   MESSAGE_QUERY_AWARENESS,
@@ -24,23 +29,38 @@ import {
   type SessionMessage,
 } from '../../src/shared/collab-protocol';
 import type { Peer, Room } from './room';
+import type { CollabDecision } from './collab-access';
+import { stampAwareness } from './awareness-stamp';
 
 export interface ConnectionInfo {
   userId: number;
   displayName: string;
+  /** The session the socket was opened with. */
+  sessionId: string | null;
   session: Omit<SessionMessage, 'readOnly' | 'readOnlyReason'>;
   /** True when the role may not edit (the lock is checked per message, it may change). */
   roleReadOnly: boolean;
+  /** Decides again whether and how this connection may go on (collab-access.ts `redecide`). */
+  redecide(signedOut: boolean): Promise<CollabDecision>;
 }
 
 class Malformed extends Error {}
 
-export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: () => Promise<Room | null>, pingIntervalMs: number): void {
+export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: () => Promise<Room | null>, pingIntervalMs: number): Peer {
   let room: Room | null = null;
   let alive = true;
   let warnedReadOnly = false;
+  /** Set once the connection is being closed for lost access: every later frame is ignored. */
+  let revoked = false;
+  let signedOut = false;
+  let decisions = 0;
+  const revoke = (code: number, reason: string) => {
+    revoked = true;
+    ws.close(code, reason);
+  };
   const peer: Peer = {
     userId: info.userId,
+    sessionId: info.sessionId,
     controlled: new Set(),
     send(frame) {
       if (ws.readyState === ws.OPEN) ws.send(frame);
@@ -54,8 +74,31 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     retry(reason) {
       ws.close(CLOSE_TRY_AGAIN, reason.slice(0, 120));
     },
+    mayWrite: () => !readOnly(),
+    reconsider(change) {
+      if (change.kind === 'signed_out') signedOut = true;
+      const mine = ++decisions;
+      const decided = info.redecide(signedOut).then(
+        (d) => {
+          if (mine !== decisions || revoked) return; // a newer decision is on its way
+          if (d.status === 401) return revoke(CLOSE_UNAUTHENTICATED, 'You are signed out.');
+          if (d.status === 404) return revoke(CLOSE_NOT_FOUND, 'This mapping is no longer available to you.');
+          const before = JSON.stringify([info.roleReadOnly, info.session]);
+          info.roleReadOnly = d.roleReadOnly;
+          info.displayName = d.user.displayName;
+          info.session = { ...info.session, role: d.role, displayName: d.user.displayName };
+          if (JSON.stringify([info.roleReadOnly, info.session]) !== before) peer.sessionChanged?.();
+        },
+        // Access could not be checked (MariaDB away): fail closed; the reconnect's upgrade decides anew.
+        () => void (revoked || revoke(CLOSE_TRY_AGAIN, 'Your access could not be checked; reconnecting checks it again.')),
+      );
+      // Frames that arrive from now on wait for the decision: nothing sent after the change was
+      // published is used under the old access. (Updates already queued in the room are dropped
+      // there when this connection may no longer write.)
+      chain = chain.then(() => decided);
+    },
   };
-  const readOnly = () => info.roleReadOnly || !!room?.locked;
+  const readOnly = () => revoked || info.roleReadOnly || !!room?.locked;
   const sendSession = (r: Room) =>
     peer.send(stringFrame(MESSAGE_SESSION, JSON.stringify({ ...info.session, readOnly: readOnly(), readOnlyReason: info.roleReadOnly ? 'role' : r.locked ? 'locked' : null } satisfies SessionMessage)));
   peer.sessionChanged = () => {
@@ -82,8 +125,11 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
   })();
   let chain: Promise<void> = ready;
 
+  const ownerOf = (r: Room, clientId: number) =>
+    peer.controlled.has(clientId) ? 'self' : clientId === r.awareness.clientID || [...r.peers].some((p) => p !== peer && p.controlled.has(clientId)) ? 'other' : 'none';
+
   const handle = (data: Uint8Array) => {
-    if (!room) return;
+    if (!room || revoked) return;
     const d = decoding.createDecoder(data);
     const type = decoding.readVarUint(d);
     if (type === MESSAGE_SYNC) {
@@ -102,7 +148,9 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
         }
       } else throw new Malformed(`unknown sync message ${sub}`);
     } else if (type === MESSAGE_AWARENESS) {
-      applyAwarenessUpdate(room.awareness, decoding.readVarUint8Array(d), peer);
+      const r = room;
+      const stamped = stampAwareness(decoding.readVarUint8Array(d), info, (id) => ownerOf(r, id), peer.controlled.size);
+      if (stamped) applyAwarenessUpdate(r.awareness, stamped, peer);
     } else if (type === MESSAGE_QUERY_AWARENESS) {
       peer.send(awarenessFrame(encodeAwarenessUpdate(room.awareness, [...room.awareness.getStates().keys()])));
     } else throw new Malformed(`unknown message type ${type}`);
@@ -130,6 +178,7 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     clearInterval(pinger);
     void ready.finally(() => room?.leave(peer));
   });
+  return peer;
 }
 
 function toBytes(data: unknown): Uint8Array {

@@ -1,12 +1,15 @@
 import * as Y from 'yjs';
 import type { Db } from '../db/knex';
-import { applyChecked } from '../../src/shared/mapping-doc-check';
+import { applyChecked, hasPending } from '../../src/shared/mapping-doc-check';
 
 // Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
 // (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).
 // The draft is the snapshot with every later update applied, in id order. Loading makes the live
 // room's document checks again (same checks, same order): a row that fails them — not a Yjs update at
-// all, or one that would be refused live — is skipped instead of making the whole draft unloadable.
+// all, or one that would be refused live (content out of bounds, dependencies never received) — is
+// skipped instead of making the whole draft unloadable, and the next compaction drops it. A snapshot
+// written before pending structs were refused may hold some: they are dropped at load (they were
+// never part of anyone's visible draft).
 // Compaction writes the merged state and deletes the updates it contains, in one transaction, so a
 // crash at any point loses nothing.
 
@@ -45,6 +48,12 @@ export async function loadDraft(db: Db, mappingId: number, atomCount?: number): 
   const base: Uint8Array[] = snap ? [snap.state] : [];
   let doc = docOf(base);
   const kept: Uint8Array[] = [];
+  if (hasPending(doc)) {
+    const visible = Y.encodeStateAsUpdate(withoutPending(doc));
+    doc.destroy();
+    base.splice(0, 1, visible);
+    doc = docOf(base);
+  }
   for (const r of rows) {
     let accepted: boolean;
     try {
@@ -59,6 +68,13 @@ export async function loadDraft(db: Db, mappingId: number, atomCount?: number): 
     }
   }
   return { doc, lastUpdateId, pending: rows.length };
+}
+
+/** The document without its pending structs and deletions (encodeStateAsUpdate would include them). */
+function withoutPending(doc: Y.Doc): Y.Doc {
+  doc.store.pendingStructs = null;
+  doc.store.pendingDs = null;
+  return doc;
 }
 
 function docOf(updates: Uint8Array[]): Y.Doc {

@@ -30,6 +30,7 @@ import { RoomEvaluator } from './room-evaluator';
 import { touchMapping } from '../mappings/mappings.service';
 import { compactDoc, loadDraft } from './draft-store';
 import type { UpdateLog } from './update-log';
+import type { AccessChange } from '../auth/access-changes';
 
 export interface CollabOptions {
   pingIntervalMs: number;
@@ -39,16 +40,29 @@ export interface CollabOptions {
   evaluationMaxWaitMs: number;
   compactEvery: number;
   compactIntervalMs: number;
+  /** Largest frame (and so Yjs update) a client may send; larger ones are refused. */
+  maxFrameBytes: number;
 }
 
 /** How often at most a room rewrites its mapping row's "updated" time while the bead count stays the same. */
 const TOUCH_EVERY_MS = 2_000;
 
-export const DEFAULT_COLLAB_OPTIONS: CollabOptions = { pingIntervalMs: 10_000, evaluationDelayMs: 40, evaluationMaxWaitMs: 100, compactEvery: 500, compactIntervalMs: 60_000 };
+export const DEFAULT_MAX_FRAME_BYTES = 1024 * 1024;
+
+export const DEFAULT_COLLAB_OPTIONS: CollabOptions = {
+  pingIntervalMs: 10_000,
+  evaluationDelayMs: 40,
+  evaluationMaxWaitMs: 100,
+  compactEvery: 500,
+  compactIntervalMs: 60_000,
+  maxFrameBytes: DEFAULT_MAX_FRAME_BYTES,
+};
 
 /** What a room needs of a connection. */
 export interface Peer {
   readonly userId: number;
+  /** The session the socket was opened with (a sign-out of it closes the socket). */
+  readonly sessionId: string | null;
   /** Awareness client ids this connection has announced. */
   readonly controlled: Set<number>;
   send(frame: Uint8Array): void;
@@ -59,6 +73,10 @@ export interface Peer {
   retry(reason: string): void;
   /** The mapping was locked or unlocked: tell the client whether it may edit now. */
   sessionChanged?(): void;
+  /** Whether this connection may still change the draft (its role, its access, the lock). */
+  mayWrite(): boolean;
+  /** Access of this connection's account may have changed (collab-access.ts): decide again. */
+  reconsider(change: AccessChange): void;
 }
 
 export class Room {
@@ -175,6 +193,12 @@ export class Room {
     return encoding.toUint8Array(e);
   }
 
+  /** After a lock change was published: refreshes when this room's lock state is no longer MariaDB's. */
+  async recheckLock(): Promise<void> {
+    const row = await this.ctx.db('mappings').where({ id: this.id }).first('locked');
+    if (row && !!row.locked !== this.inputs.locked) await this.refresh();
+  }
+
   /** Re-reads resolution, lock, coordinates and library, then re-evaluates. */
   async refresh(): Promise<void> {
     const inputs = await loadEvaluationInputs(this.ctx.db, this.id);
@@ -240,12 +264,13 @@ export class Room {
 
   private async flush(): Promise<void> {
     this.flushQueued = false;
-    const batch = this.incoming.splice(0);
+    // A connection that lost write access after sending (a role change, a lock) sends nothing more.
+    const batch = this.incoming.splice(0).filter((item) => item.peer.mayWrite());
     const accepted: { peer: Peer; update: Uint8Array }[] = [];
     for (const item of batch) {
       let problem;
       try {
-        problem = applyChecked(this.shadow, item.update, this.atomCount);
+        problem = applyChecked(this.shadow, item.update, this.atomCount, { maxBytes: this.opts.maxFrameBytes });
       } catch {
         item.peer.fail('The update could not be decoded.');
         problem = undefined;

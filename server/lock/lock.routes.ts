@@ -22,12 +22,12 @@ export function lockRoutes(r: RouteTable, ctx: AppContext, rooms: Rooms): void {
     const id = Number(req.params.id);
     await authorizeMapping(ctx.db, req, id, 'mapping:lock');
     const body = req.body as LockBody;
-    res.json(await lockVersion(ctx.db, rooms, id, body.version, requireUser(req).id, body.note ?? ''));
+    res.json(await lockVersion(ctx, rooms, id, body.version, requireUser(req).id, body.note ?? ''));
   });
 
   r.post('/api/mappings/:id/unlock', validate({ params, body: unlockBody }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeMapping(ctx.db, req, id, 'mapping:lock');
-    res.json(await unlockMapping(ctx.db, rooms, id, requireUser(req).id, (req.body as UnlockBody).reason));
+    res.json(await unlockMapping(ctx, rooms, id, requireUser(req).id, (req.body as UnlockBody).reason));
   });
 }

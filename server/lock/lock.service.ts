@@ -1,4 +1,5 @@
 import type { Db } from '../db/knex';
+import type { AppContext } from '../context';
 import type { LockState } from '../../src/shared/versions';
 import { conflict, unprocessable } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
@@ -7,7 +8,9 @@ import type { Rooms } from '../collab/rooms';
 // The production lock. `mapping_locks` has one row per locked mapping (its primary key), so when two
 // supervisors lock at once exactly one INSERT succeeds and the other answers 409. The lock is taken on
 // the live room's queue when the mapping is open, so no edit slips in between the lock and the room
-// learning of it; the room then tells every connection that the draft is read-only.
+// learning of it; the room then tells every connection that the draft is read-only. The change is also
+// published as an access change (auth/access-changes.ts), for rooms this call cannot reach itself
+// (on another app server, once there is a relay).
 
 export async function lockState(db: Db, mappingId: number): Promise<LockState> {
   const row = await db('mapping_locks as l')
@@ -41,7 +44,8 @@ async function onRoomQueue<T>(rooms: Rooms, mappingId: number, work: () => Promi
   });
 }
 
-export async function lockVersion(db: Db, rooms: Rooms, mappingId: number, number: number, actorId: number, note: string): Promise<LockState> {
+export async function lockVersion(ctx: AppContext, rooms: Rooms, mappingId: number, number: number, actorId: number, note: string): Promise<LockState> {
+  const { db } = ctx;
   const version = await db('mapping_versions').where({ mapping_id: mappingId, number }).first('id');
   if (!version) throw unprocessable('unknown_version', `This mapping has no version ${number}.`, { version: number });
   await onRoomQueue(rooms, mappingId, () =>
@@ -59,10 +63,12 @@ export async function lockVersion(db: Db, rooms: Rooms, mappingId: number, numbe
       await appendAudit(trx, { mappingId, action: 'lock', actorId, version: number, reason: note });
     }),
   );
+  ctx.accessChanges.publish({ kind: 'lock', mappingId });
   return lockState(db, mappingId);
 }
 
-export async function unlockMapping(db: Db, rooms: Rooms, mappingId: number, actorId: number, reason: string): Promise<LockState> {
+export async function unlockMapping(ctx: AppContext, rooms: Rooms, mappingId: number, actorId: number, reason: string): Promise<LockState> {
+  const { db } = ctx;
   await onRoomQueue(rooms, mappingId, () =>
     db.transaction(async (trx) => {
       await trx('mappings').where({ id: mappingId }).forUpdate().first('id');
@@ -73,5 +79,6 @@ export async function unlockMapping(db: Db, rooms: Rooms, mappingId: number, act
       await appendAudit(trx, { mappingId, action: 'unlock', actorId, version: lock.number, reason });
     }),
   );
+  ctx.accessChanges.publish({ kind: 'lock', mappingId });
   return lockState(db, mappingId);
 }

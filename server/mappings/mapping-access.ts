@@ -1,17 +1,40 @@
 import type { Request } from 'express';
 import type { Db } from '../db/knex';
-import type { ProjectAction } from '../auth/permissions';
-import { authorizeProject, requireUser } from '../auth/access';
+import { can, canSee, type Actor, type ProjectAction } from '../auth/permissions';
+import { authorizeProject, requireUser, roleInProject } from '../auth/access';
 import { notFound } from '../http/errors';
 import type { ProjectRole } from '../../src/shared/roles';
+
+const projectOfMapping = async (db: Db, mappingId: number): Promise<number | null> =>
+  (await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('m.project_id'))?.project_id ?? null;
 
 /** A mapping's project, authorised for `action`: 401 anonymous, 404 unknown or invisible, 403 not allowed. */
 export async function authorizeMapping(db: Db, req: Request, mappingId: number, action: ProjectAction): Promise<{ projectId: number; role: ProjectRole | null }> {
   requireUser(req);
-  const row = await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('m.project_id');
-  if (!row) throw notFound('That mapping');
-  const role = await authorizeProject(db, req, row.project_id, action).catch((err) => {
+  const projectId = await projectOfMapping(db, mappingId);
+  if (projectId === null) throw notFound('That mapping');
+  const role = await authorizeProject(db, req, projectId, action).catch((err) => {
     throw err.status === 404 ? notFound('That mapping') : err;
   });
-  return { projectId: row.project_id, role };
+  return { projectId, role };
+}
+
+export interface MappingAccess {
+  projectId: number;
+  role: ProjectRole | null;
+  /** 'mapping:edit' (the production lock is the mapping's state, not a permission: checked apart). */
+  canEdit: boolean;
+}
+
+/**
+ * What `actor` may do with a mapping, asked of the permission module, for callers without a request
+ * (the collaboration socket, at its upgrade and whenever access changes): null when the mapping does
+ * not exist or is not visible to the actor (answered as 404).
+ */
+export async function mappingAccess(db: Db, actor: Actor, mappingId: number): Promise<MappingAccess | null> {
+  const projectId = await projectOfMapping(db, mappingId);
+  if (projectId === null) return null;
+  const standing = await roleInProject(db, projectId, actor.id);
+  if (!standing.exists || !canSee(actor, standing) || !can(actor, 'mapping:read', standing)) return null;
+  return { projectId, role: standing.role, canEdit: can(actor, 'mapping:edit', standing) };
 }

@@ -69,5 +69,7 @@ export async function changeMembership(ctx: AppContext, projectId: number, userI
     const q = trx('project_members').where({ project_id: projectId, user_id: userId });
     await (role === null ? q.delete() : q.update({ role }));
   });
+  // Committed: open sockets of this member re-decide (a student's socket turns read-only, a removed member's closes).
+  ctx.accessChanges.publish({ kind: 'membership', projectId, userId });
   return role === null ? null : getMember(ctx, projectId, userId);
 }

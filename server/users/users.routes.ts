@@ -5,7 +5,7 @@ import { validate } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { createUserBody, updateUserBody } from '../../src/shared/users';
 import { idParam } from '../../src/shared/fields';
-import { endSessions, findUserById, listUsers, toUserSummary } from './users.service';
+import { findUserById, listUsers, toUserSummary, updateAccount } from './users.service';
 import { createInvitedAccount } from './invitations';
 import { conflict, notFound } from '../http/errors';
 
@@ -32,15 +32,7 @@ export function userRoutes(r: RouteTable, ctx: AppContext): void {
     if (id === admin.id && (disabled === true || isAdmin === false)) {
       throw conflict('conflict', 'You cannot disable your own account or remove your own admin flag.');
     }
-    await ctx.db('users')
-      .where({ id })
-      .update({
-        ...(displayName !== undefined ? { display_name: displayName } : {}),
-        ...(isAdmin !== undefined ? { is_admin: isAdmin } : {}),
-        ...(disabled !== undefined ? { disabled_at: disabled ? ctx.db.fn.now() : null } : {}),
-        updated_at: ctx.db.fn.now(),
-      });
-    if (disabled === true) await endSessions(ctx.db, id);
+    await updateAccount(ctx, id, { displayName, isAdmin, disabled });
     res.json(toUserSummary((await findUserById(ctx.db, id))!));
   });
 }

@@ -1,4 +1,5 @@
 import type { Db } from '../db/knex';
+import type { AppContext } from '../context';
 import type { UserSummary } from '../../src/shared/users';
 
 // Knex access to accounts. Rows use snake_case; the API uses camelCase.
@@ -40,7 +41,29 @@ export const findUserById = (db: Db, id: number) => db<UserRow>('users').where({
 export const findUserByEmail = (db: Db, email: string) => db<UserRow>('users').where({ email: email.toLowerCase() }).first();
 export const listUsers = (db: Db) => db<UserRow>('users').orderBy('email');
 
-/** Ends every session of the account: their stored session version no longer matches. */
-export async function endSessions(db: Db, userId: number): Promise<void> {
-  await db('users').where({ id: userId }).increment('session_version', 1);
+/** Ends every session of the account: their stored session version no longer matches (open sockets close too). */
+export async function endSessions(ctx: AppContext, userId: number): Promise<void> {
+  await ctx.db('users').where({ id: userId }).increment('session_version', 1);
+  ctx.accessChanges.publish({ kind: 'account', userId });
+}
+
+export interface AccountChanges {
+  displayName?: string;
+  isAdmin?: boolean;
+  disabled?: boolean;
+}
+
+/** An admin's change to an account; disabling it ends its sessions. Open sockets follow (access-changes.ts). */
+export async function updateAccount(ctx: AppContext, id: number, changes: AccountChanges): Promise<void> {
+  const { displayName, isAdmin, disabled } = changes;
+  await ctx.db('users')
+    .where({ id })
+    .update({
+      ...(displayName !== undefined ? { display_name: displayName } : {}),
+      ...(isAdmin !== undefined ? { is_admin: isAdmin } : {}),
+      ...(disabled !== undefined ? { disabled_at: disabled ? ctx.db.fn.now() : null } : {}),
+      updated_at: ctx.db.fn.now(),
+    });
+  if (disabled === true) await endSessions(ctx, id);
+  else ctx.accessChanges.publish({ kind: 'account', userId: id });
 }

@@ -4,6 +4,10 @@
  * The collab server applies each incoming update to a shadow copy with `applyChecked`, which looks only
  * at what the update touched (Yjs reports the changed keys of every type in the transaction), so
  * checking costs the size of the edit, not of the document. `checkDoc` walks everything (tests, loads).
+ * Before that, `applyChecked` refuses an update larger than the caller's limit and bounds every struct
+ * the update carries, visible or not (mapping-update-check.ts); after it, an update that left structs
+ * or deletions pending (their dependencies never arrived) is refused: the check above would not have
+ * seen them, yet they would be stored and relayed.
  *
  * Refused: anything at the top level but `beads`, `atoms` and `settings`; list content anywhere; a bead
  * that is not a Y.Map of `name` (1–40 characters), `type` (string ≤ 40 or null), `centre` (a centre
@@ -14,8 +18,9 @@
  */
 import * as Y from 'yjs';
 import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, atomsOf, beadsOf, measuredProblem, settingsOf } from './mapping-doc';
+import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkUpdateStructs } from './mapping-update-check';
 
-export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range';
+export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range' | 'too_large' | 'missing_dependencies';
 
 export interface DocProblem {
   code: DocProblemCode;
@@ -25,8 +30,6 @@ export interface DocProblem {
 }
 
 const problem = (code: DocProblemCode, path: string, message: string): DocProblem => ({ code, path, message });
-const INDEX = /^(0|[1-9][0-9]{0,8})$/;
-const MAX_BEADS_PER_ATOM = 16;
 
 export function checkBead(id: string, value: unknown): DocProblem | null {
   const path = `beads.${id}`;
@@ -66,8 +69,8 @@ export function checkSetting(key: string, value: unknown): DocProblem | null {
 
 export function checkAtom(key: string, value: unknown, atomCount: number): DocProblem | null {
   const path = `atoms.${key}`;
-  if (!INDEX.test(key)) return problem('wrong_type', path, `Atom keys are atom indices written as decimal numbers; "${key}" is not.`);
-  if (Number(key) >= atomCount) return problem('atom_out_of_range', path, `Atom ${Number(key) + 1} (index ${key}) does not exist: the molecule has atoms 1 to ${atomCount}.`);
+  const keyProblem = atomKeyProblem(key, atomCount);
+  if (keyProblem) return keyProblem;
   if (value === undefined) return null; // deleted
   if (typeof value !== 'object' || value === null || Array.isArray(value) || value instanceof Uint8Array || value instanceof Y.AbstractType) {
     return problem('wrong_type', path, 'An atom entry is a plain object of bead id → weight.');
@@ -112,11 +115,24 @@ export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
   return null;
 }
 
+export interface ApplyOptions {
+  origin?: unknown;
+  /** Refuse updates larger than this many bytes. */
+  maxBytes?: number;
+}
+
+/** Whether the document holds structs or deletions whose dependencies it never received. */
+export const hasPending = (doc: Y.Doc): boolean => doc.store.pendingStructs !== null || doc.store.pendingDs !== null;
+
 /**
- * Applies `update` to `doc` and checks what it changed. On a problem, `doc` already holds the bad
- * update: the caller must throw this copy away and rebuild it from the accepted state.
+ * Applies `update` to `doc` and checks it and what it changed. On a problem, `doc` may already hold
+ * the bad update: the caller must throw this copy away and rebuild it from the accepted state.
+ * Throws when `update` is not a Yjs update.
  */
-export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, origin?: unknown): DocProblem | null {
+export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, { origin, maxBytes }: ApplyOptions = {}): DocProblem | null {
+  if (maxBytes !== undefined && update.length > maxBytes) return problem('too_large', 'update', `An update has at most ${maxBytes} bytes; this one has ${update.length}.`);
+  const structural = checkUpdateStructs(update, atomCount);
+  if (structural) return structural;
   // Typed access first: a top-level type that an update created is generic until getMap() converts
   // it, and the transaction would then name the generic one.
   const beads = beadsOf(doc) as Y.Map<unknown>;
@@ -130,6 +146,7 @@ export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, 
   } finally {
     doc.off('afterTransaction', collect);
   }
+  if (hasPending(doc)) return problem('missing_dependencies', 'update', 'The update depends on changes the server never received; reload the draft.');
   const top = checkTopLevel(doc);
   if (top) return top;
   for (const tr of transactions) {

@@ -112,7 +112,8 @@ describe('live collaboration', () => {
     createBead(s.doc, [24], { id: 'from-student' });
     s.provider.awareness.setLocalStateField('user', { name: 'Lea' });
     await until('read-only notice', () => s.errors.some((e) => e.code === 'read_only'));
-    await until('student awareness reaches a modeller', () => [...a.provider.awareness.getStates().values()].some((st) => st.user?.name === 'Lea'));
+    // Relayed with the name of the student's account (the server stamps presence), not the one claimed.
+    await until('student awareness reaches a modeller', () => [...a.provider.awareness.getStates().values()].some((st) => st.user?.name === 'Lea Okafor'));
     // A later modeller edit arrives at the student: anything the server relayed before it has arrived too.
     createBead(a.doc, [24], { id: 'after-student' });
     await until('modeller edit reaches the student', () => beadsOf(s.doc).has('after-student'));

@@ -2,8 +2,10 @@ import { createServer, type Server } from 'node:http';
 import WebSocket from 'ws';
 import * as Y from 'yjs';
 import * as decoding from 'lib0/decoding';
+import * as encoding from 'lib0/encoding';
+import { messageYjsUpdate } from 'y-protocols/sync';
 import { WebsocketProvider } from 'y-websocket';
-import { MESSAGE_ERROR, MESSAGE_EVALUATION, MESSAGE_SESSION, type CollabErrorMessage, type EvaluationMessage, type SessionMessage } from '../../src/shared/collab-protocol';
+import { MESSAGE_AWARENESS, MESSAGE_ERROR, MESSAGE_EVALUATION, MESSAGE_SESSION, MESSAGE_SYNC, type CollabErrorMessage, type EvaluationMessage, type SessionMessage } from '../../src/shared/collab-protocol';
 import { DEMO_PASSWORD } from '../../seeds/demo-data';
 import type { TestApp } from './test-app';
 
@@ -11,8 +13,8 @@ import type { TestApp } from './test-app';
 // the session cookie, and `disableBc: true` (Node's global BroadcastChannel would otherwise let
 // same-process clients sync around the server).
 
-/** Signs in over HTTP and returns the Cookie header value for the session. */
-export async function sessionCookie(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<string> {
+/** Signs in over HTTP: the Cookie header value for the session, and its CSRF token. */
+export async function signInOverHttp(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<{ cookie: string; csrfToken: string }> {
   const csrf = await fetch(`${baseUrl}/api/auth/csrf`);
   const csrfCookie = csrf.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
   const { token } = (await csrf.json()) as { token: string };
@@ -22,7 +24,13 @@ export async function sessionCookie(baseUrl: string, email: string, password = D
     body: JSON.stringify({ email, password }),
   });
   if (login.status !== 200) throw new Error(`sign-in as ${email} failed: ${login.status}`);
-  return login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  const { csrfToken } = (await login.json()) as { csrfToken: string };
+  return { cookie: login.headers.getSetCookie().map((c) => c.split(';')[0]).join('; '), csrfToken };
+}
+
+/** Signs in over HTTP and returns the Cookie header value for the session. */
+export async function sessionCookie(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<string> {
+  return (await signInOverHttp(baseUrl, email, password)).cookie;
 }
 
 export function cookieSocket(cookie: string): unknown {
@@ -39,6 +47,8 @@ export interface CollabClient {
   evaluations: EvaluationMessage[];
   errors: CollabErrorMessage[];
   session: SessionMessage | null;
+  /** Close codes of the server's closes, in order. */
+  closes: number[];
   destroy(): void;
 }
 
@@ -49,7 +59,8 @@ export function connectClient(baseUrl: string, mappingId: number, cookie: string
     WebSocketPolyfill: cookieSocket(cookie) as never,
     disableBc: true,
   });
-  const client: CollabClient = { doc, provider, evaluations: [], errors: [], session: null, destroy: () => (provider.destroy(), doc.destroy()) };
+  const client: CollabClient = { doc, provider, evaluations: [], errors: [], session: null, closes: [], destroy: () => (provider.destroy(), doc.destroy()) };
+  provider.on('connection-close', (event) => void (event && client.closes.push(event.code)));
   provider.messageHandlers[MESSAGE_EVALUATION] = (_e, d) => void client.evaluations.push(readJson(d));
   provider.messageHandlers[MESSAGE_ERROR] = (_e, d) => void client.errors.push(readJson(d));
   provider.messageHandlers[MESSAGE_SESSION] = (_e, d) => void (client.session = readJson(d));
@@ -82,5 +93,43 @@ export async function listen(t: TestApp): Promise<{ server: Server; url: string;
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
     },
+  };
+}
+
+/**
+ * A bare socket on /collab/:id that sends hand-made frames, as an attacker's client would: the
+ * server's error messages and the close code are collected.
+ */
+export interface RawCollabSocket {
+  ws: WebSocket;
+  errors: CollabErrorMessage[];
+  /** Resolves with the close code once the socket closed. */
+  closed: Promise<number>;
+  sendUpdate(update: Uint8Array): void;
+  sendAwareness(update: Uint8Array): void;
+}
+
+export async function rawCollabSocket(baseUrl: string, mappingId: number, cookie: string): Promise<RawCollabSocket> {
+  const ws = new WebSocket(`${baseUrl.replace(/^http/, 'ws')}/collab/${mappingId}`, { headers: { cookie } });
+  const errors: CollabErrorMessage[] = [];
+  const closed = new Promise<number>((resolve) => ws.on('close', (code) => resolve(code)));
+  ws.on('error', () => undefined);
+  ws.on('message', (data: Buffer) => {
+    const d = decoding.createDecoder(new Uint8Array(data));
+    if (decoding.readVarUint(d) === MESSAGE_ERROR) errors.push(readJson(d));
+  });
+  await new Promise((resolve, reject) => (ws.once('open', resolve), ws.once('unexpected-response', (_q, res) => reject(new Error(`upgrade answered ${res.statusCode}`)))));
+  const frame = (type: number, write: (e: encoding.Encoder) => void) => {
+    const e = encoding.createEncoder();
+    encoding.writeVarUint(e, type);
+    write(e);
+    ws.send(encoding.toUint8Array(e));
+  };
+  return {
+    ws,
+    errors,
+    closed,
+    sendUpdate: (update) => frame(MESSAGE_SYNC, (e) => (encoding.writeVarUint(e, messageYjsUpdate), encoding.writeVarUint8Array(e, update))),
+    sendAwareness: (update) => frame(MESSAGE_AWARENESS, (e) => encoding.writeVarUint8Array(e, update)),
   };
 }

@@ -5,6 +5,7 @@ import { createMailer } from '../../server/mail/mailer';
 import { startMailSink } from '../../server/mail/sink';
 import type { AppContext } from '../../server/context';
 import { seedDemo } from '../../seeds/demo';
+import { createLocalAccessChanges } from '../../server/auth/access-changes';
 import { createTestDatabase, type TestDatabase } from './db';
 import type { CollabOptions } from '../../server/collab/room';
 
@@ -30,7 +31,7 @@ export async function createTestApp(overrides: Partial<Config> = {}, collabOptio
     ...overrides,
   };
   const mailer = createMailer(sink.url, config.mailFrom);
-  const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true };
+  const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true, accessChanges: createLocalAccessChanges() };
   const built = createApp(ctx, collabOptions);
   return {
     ...built,

@@ -13,7 +13,7 @@ import {
   type SessionMessage,
 } from '../../../shared/collab-protocol';
 import { ATOMS, BEADS, SETTINGS } from '../../../shared/mapping-doc';
-import { presenceColour } from '../model/palette';
+import { presenceColour } from '../../../shared/presence-colour';
 import type { PresenceState } from '../model/presence';
 
 /**

@@ -1,0 +1,82 @@
+/**
+ * Checks every struct an incoming Yjs update carries, before it is applied. The checks of
+ * mapping-doc-check.ts look at what the update changed in the visible document; an update also
+ * carries content that never becomes visible there: a value overwritten or deleted by the same
+ * update, and structs whose dependencies the receiver lacks (Yjs keeps those pending, unapplied, yet
+ * they would be stored and relayed with the update). This bounds all of it to what a draft can hold:
+ *   - content is a Y.Map (a bead), a plain value, or a deleted range; no list, text, binary, embed,
+ *     format or sub-document content;
+ *   - a plain value is null, text of at most the longest bead field, an atom entry (≤ 16 bead
+ *     ids of ≤ BEAD_ID_MAX characters → finite numbers) or a valid measured value;
+ *   - a top-level name is "beads", "atoms" or "settings"; a key directly in "beads" is a bead id, in
+ *     "atoms" an atom index below the atom count, in "settings" a setting; a key in a nested map is a
+ *     bead field; list positions (no key) are refused.
+ * A struct whose parent comes from its left neighbour (an overwrite) carries no key: its value is
+ * still bounded as above, and where it lands is checked once it is applied.
+ */
+import * as Y from 'yjs';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, SETTING_KEYS, SETTINGS, measuredProblem } from './mapping-doc';
+import type { DocProblem } from './mapping-doc-check';
+
+const TEXT_MAX = Math.max(BEAD_NAME_MAX, BEAD_TYPE_MAX);
+const INDEX = /^(0|[1-9][0-9]{0,8})$/;
+export const MAX_BEADS_PER_ATOM = 16;
+
+const refuse = (code: DocProblem['code'], path: string, message: string): DocProblem => ({ code, path, message });
+
+function plainValue(value: unknown): boolean {
+  if (value === null) return true;
+  if (typeof value === 'string') return value.length <= TEXT_MAX;
+  if (typeof value !== 'object' || Array.isArray(value) || value instanceof Uint8Array) return false;
+  if (measuredProblem(value) === null) return true;
+  const entries = Object.entries(value);
+  return entries.length <= MAX_BEADS_PER_ATOM && entries.every(([k, w]) => k.length > 0 && k.length <= BEAD_ID_MAX && typeof w === 'number' && Number.isFinite(w));
+}
+
+/** An atom key is a decimal atom index below the atom count (shared with mapping-doc-check.ts). */
+export function atomKeyProblem(key: string, atomCount: number): DocProblem | null {
+  const path = `${ATOMS}.${key.slice(0, 80)}`;
+  if (!INDEX.test(key)) return refuse('wrong_type', path, `Atom keys are atom indices written as decimal numbers; "${key.slice(0, 80)}" is not.`);
+  if (Number(key) >= atomCount) return refuse('atom_out_of_range', path, `Atom ${Number(key) + 1} (index ${key}) does not exist: the molecule has atoms 1 to ${atomCount}.`);
+  return null;
+}
+
+function checkKey(item: Y.Item, atomCount: number): DocProblem | null {
+  // In a decoded (not yet integrated) update, a top-level parent is its name.
+  const parent = item.parent as unknown as string | Y.ID | null;
+  const parentSub = item.parentSub;
+  if (parent === null) return null; // positioned by its left neighbour; checked where it lands
+  if (typeof parent === 'string' && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS) {
+    return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}" and "${SETTINGS}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
+  }
+  const where = typeof parent === 'string' ? parent : 'beads.…';
+  if (parentSub === null) return refuse('wrong_type', where, 'The draft holds no list content.');
+  const key = parentSub.slice(0, 80);
+  if (parent === BEADS) return parentSub.length <= BEAD_ID_MAX ? null : refuse('wrong_type', `${BEADS}.${key}…`, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
+  if (parent === ATOMS) return atomKeyProblem(parentSub, atomCount);
+  if (parent === SETTINGS) {
+    return (SETTING_KEYS as readonly string[]).includes(parentSub) ? null : refuse('unknown_key', `${SETTINGS}.${key}`, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
+  }
+  return (BEAD_KEYS as readonly string[]).includes(parentSub) ? null : refuse('unknown_key', `${where}.${key}`, `A bead has only ${BEAD_KEYS.join(', ')}; "${key}" is not allowed.`);
+}
+
+function checkContent(item: Y.Item): DocProblem | null {
+  const path = item.parentSub ? `…${item.parentSub.slice(0, 80)}` : 'update';
+  const content = item.content;
+  if (content instanceof Y.ContentDeleted) return null;
+  if (content instanceof Y.ContentType) return content.type instanceof Y.Map ? null : refuse('wrong_type', path, 'Only beads may hold nested maps; no lists or text.');
+  if (content instanceof Y.ContentAny) {
+    return content.arr.every(plainValue) ? null : refuse('wrong_type', path, `A value is null, text of at most ${TEXT_MAX} characters, or an atom entry of at most ${MAX_BEADS_PER_ATOM} bead ids → weight.`);
+  }
+  return refuse('wrong_type', path, `The draft holds no ${content.constructor.name.replace(/^Content/, '').toLowerCase()} content.`);
+}
+
+/** The first problem among the update's structs, or null. Throws when `update` is not a Yjs update. */
+export function checkUpdateStructs(update: Uint8Array, atomCount: number): DocProblem | null {
+  for (const struct of Y.decodeUpdate(update).structs) {
+    if (!(struct instanceof Y.Item)) continue; // GC and skip ranges carry nothing
+    const problem = checkKey(struct, atomCount) ?? checkContent(struct);
+    if (problem) return problem;
+  }
+  return null;
+}

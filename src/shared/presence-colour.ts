@@ -1,0 +1,13 @@
+import theme from '../../tailwind.config';
+
+// Presence colours: from the bead palette (tailwind.config.ts), skipping yellow and black, which are
+// hard to read as thin pointer outlines on paper. Shared: the server stamps each connection's
+// awareness with its account's colour (server/collab/awareness-stamp.ts), the client draws it.
+
+const bead = theme.theme.extend.colors.bead;
+const PRESENCE: readonly string[] = [bead.blue, bead.vermillion, bead.green, bead.purple, bead.orange, bead.sky];
+
+/** A stable colour for a collaborator, from their user id. */
+export function presenceColour(userId: number): string {
+  return PRESENCE[Math.abs(userId) % PRESENCE.length];
+}
