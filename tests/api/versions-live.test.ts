@@ -71,7 +71,8 @@ describe('versions on a live draft', () => {
     open.push(a, b);
     await Promise.all([synced(a), synced(b)]);
     // Presence, as the editor announces it once its session starts: the server learns a's client id.
-    a.provider.awareness.setLocalStateField('user', { id: 0, name: 'a' });
+    // (With the account's own id: the server drops a state that claims another account.)
+    a.provider.awareness.setLocalStateField('user', { id: a.session!.userId, name: 'a' });
     await modeller.post(`/api/mappings/${mappingId}/versions`, { message: 'start' }).expect(201);
     assignAtoms(b.doc, 'a', [2, 3]);
     await until('a sees the edit', () => JSON.stringify(atomsOfBeads(a)) === JSON.stringify([['a', [0, 1, 2, 3]], ['b', []]]));
