@@ -20,6 +20,7 @@ export interface XY {
 const CLASH = 0.55;
 const CLEAR = 0.8;
 const MAX_ROUNDS = 60;
+const MAX_BONDS_TRIED = 12;
 const TURNS = [Math.PI / 6, -Math.PI / 6, Math.PI / 3, -Math.PI / 3, Math.PI / 2, -Math.PI / 2, (2 * Math.PI) / 3, (-2 * Math.PI) / 3];
 
 export function medianBondLength(points: readonly XY[], bonds: readonly { a: number; b: number }[]): number {
@@ -155,9 +156,10 @@ export function cleanLayout(input: readonly XY[], bonds: readonly { a: number; b
       const route = path(adj, i, j);
       if (!route) continue;
       let best: { moved: number[]; to: XY[]; gain: number } | null = null;
-      for (let k = 0; k + 1 < route.length; k++) {
-        const [u, v] = [route[k], route[k + 1]];
-        if (!chainBonds.has(u < v ? `${u},${v}` : `${v},${u}`)) continue;
+      // Chain bonds on the path, nearest the two clashing atoms first; a branch turned near the
+      // clash is the usual cure, and a long polymer's far bonds would only cost time.
+      const steps = route.slice(1).map((v, k) => [route[k], v, Math.min(k, route.length - 2 - k)] as const).filter(([u, v]) => chainBonds.has(u < v ? `${u},${v}` : `${v},${u}`));
+      for (const [u, v] of steps.sort((p, q) => p[2] - q[2]).slice(0, MAX_BONDS_TRIED)) {
         const sv = side(adj, v, u);
         const su = side(adj, u, v);
         const [moved, pivot, other] = sv.length <= su.length ? [sv, u, v] : [su, v, u];
