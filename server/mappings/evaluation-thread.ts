@@ -1,10 +1,13 @@
 import type { Mapping } from '../../src/shared/chem';
 import { JobThread } from '../workers/job-thread';
+import { chemJobTimeout, tooComplex } from '../workers/chem-limits';
 import type { EvaluationInputs, EvaluationResult } from './evaluate-draft';
 
-// The main thread's side of the evaluation thread (evaluation-worker.ts). A live room's inputs
-// (molecule model, coordinates, library) cross to the thread once per stamp; after that each job
-// carries only the draft. The thread stops after a minute without work.
+// The main thread's side of the evaluation threads (evaluation-worker.ts). A live room's inputs
+// (molecule model, coordinates, library) cross to a thread once per stamp; after that each job
+// carries only the draft. Two lanes by molecule size, so a big molecule's evaluation never holds up
+// a small one's; a mapping always goes to the same lane. Each job runs under the time limit
+// (workers/chem-limits.ts). A thread stops after a minute without work.
 
 export interface EvaluationJob {
   mappingId: number;
@@ -17,9 +20,19 @@ export interface EvaluationJob {
 
 export type EvaluationReply = { result: EvaluationResult } | { missingInputs: true } | { failure: string };
 
-/** Which stamp of each mapping's inputs the running thread holds. */
-const sent = new Map<number, number>();
-const thread = new JobThread<EvaluationJob, EvaluationReply>(new URL('./evaluation-worker.ts', import.meta.url), 60_000, () => sent.clear());
+/** Molecules with more heavy atoms than this are evaluated in the large lane. */
+export const SMALL_EVALUATION_ATOMS = 300;
+
+/** Which stamp of each mapping's inputs each lane's running thread holds. */
+const sent = { small: new Map<number, number>(), large: new Map<number, number>() };
+const options = (lane: keyof typeof sent) => ({ idleMs: 60_000, onRestart: () => sent[lane].clear(), timeoutMs: chemJobTimeout, timeoutError: tooComplex });
+const workerUrl = new URL('./evaluation-worker.ts', import.meta.url);
+const lanes = {
+  small: new JobThread<EvaluationJob, EvaluationReply>(workerUrl, options('small')),
+  large: new JobThread<EvaluationJob, EvaluationReply>(workerUrl, options('large')),
+};
+
+const laneOf = (inputs: EvaluationInputs): keyof typeof sent => (inputs.model.atoms.length > SMALL_EVALUATION_ATOMS ? 'large' : 'small');
 
 function resultOf(reply: EvaluationReply): EvaluationResult {
   if ('failure' in reply) throw new Error(`evaluation failed: ${reply.failure}`);
@@ -27,10 +40,12 @@ function resultOf(reply: EvaluationReply): EvaluationResult {
   return reply.result;
 }
 
-/** Evaluates a live room's draft in the evaluation thread. `stamp` changes whenever `inputs` do. */
+/** Evaluates a live room's draft in its evaluation thread. `stamp` changes whenever `inputs` do. */
 export async function evaluateInThread(inputs: EvaluationInputs, stamp: number, mapping: Mapping): Promise<EvaluationResult> {
-  const withInputs = sent.get(inputs.mappingId) !== stamp;
-  if (withInputs) sent.set(inputs.mappingId, stamp);
+  const lane = laneOf(inputs);
+  const thread = lanes[lane];
+  const withInputs = sent[lane].get(inputs.mappingId) !== stamp;
+  if (withInputs) sent[lane].set(inputs.mappingId, stamp);
   let reply = await thread.run({ mappingId: inputs.mappingId, stamp, mapping, ...(withInputs ? { inputs } : {}) });
   if ('missingInputs' in reply) reply = await thread.run({ mappingId: inputs.mappingId, stamp, mapping, inputs });
   return resultOf(reply);
@@ -38,12 +53,12 @@ export async function evaluateInThread(inputs: EvaluationInputs, stamp: number, 
 
 /** Evaluates a draft no room holds (the thread keeps nothing of it). */
 export async function evaluateOnceInThread(inputs: EvaluationInputs, mapping: Mapping): Promise<EvaluationResult> {
-  return resultOf(await thread.run({ mappingId: inputs.mappingId, stamp: -1, mapping, inputs, once: true }));
+  return resultOf(await lanes[laneOf(inputs)].run({ mappingId: inputs.mappingId, stamp: -1, mapping, inputs, once: true }));
 }
 
-/** Forgets a mapping's inputs (its room closed), here and in the thread. */
+/** Forgets a mapping's inputs (its room closed), here and in the threads. */
 export function forgetInputs(mappingId: number): void {
-  if (sent.delete(mappingId)) thread.tell({ forget: mappingId });
+  for (const lane of ['small', 'large'] as const) if (sent[lane].delete(mappingId)) lanes[lane].tell({ forget: mappingId });
 }
 
-export const stopEvaluationThread = () => thread.stop();
+export const stopEvaluationThread = () => Promise.all([lanes.small.stop(), lanes.large.stop()]);

@@ -36,3 +36,7 @@ parentPort!.on('message', async (job: (EvaluationJob & { id: number }) | { forge
 });
 
 parentPort!.on('close', () => known.clear());
+
+// RDKit is loaded before the thread reports ready (workers/ts-worker.ts), so the job time limit is
+// for the job; after the listener above, which must be attached before RDKit's loader attaches its own.
+await loadRdkit();

@@ -9,7 +9,7 @@ type ConformerReply = { xyz: number[][] } | { error: string };
 /** How long the thread lives after its last job. */
 export const CONFORMER_IDLE_MS = 30_000;
 
-const thread = new JobThread<{ model: Molecule; seed: number }, ConformerReply>(new URL('./conformer-worker.ts', import.meta.url), CONFORMER_IDLE_MS);
+const thread = new JobThread<{ model: Molecule; seed: number }, ConformerReply>(new URL('./conformer-worker.ts', import.meta.url), { idleMs: CONFORMER_IDLE_MS });
 
 export async function conformerInThread(model: Molecule, seed: number): Promise<number[][]> {
   const reply = await thread.run({ model, seed });

@@ -1,31 +1,71 @@
 import type { Worker } from 'node:worker_threads';
-import { startTsWorker } from './ts-worker';
+import { startTsWorker, WORKER_READY } from './ts-worker';
+
+export interface JobThreadOptions {
+  /** The thread stops after this long without jobs, so an idle server gives its memory back. */
+  idleMs: number;
+  /** Lets the owner forget state the old thread held (it crashed, timed out or was stopped). */
+  onRestart?: () => void;
+  /**
+   * How long one job may run (read at each job's start, so a setting changed later applies); 0 or
+   * absent: no limit. A job over it is answered with `timeoutError(limitMs)` and its thread is
+   * ended — a stuck openchemlib call cannot be interrupted any other way — and started again for
+   * the jobs behind it.
+   */
+  timeoutMs?: () => number;
+  timeoutError?: (limitMs: number) => Error;
+}
+
+interface Queued<Job, Reply> {
+  id: number;
+  job: Job;
+  resolve(r: Reply): void;
+  reject(e: Error): void;
+}
 
 /**
- * A worker thread that answers jobs by id: `run(job)` posts `{ id, ...job }` and resolves with the
- * thread's `{ id, ... }` reply. The thread starts on first use, restarts after a crash (every job
- * in flight is rejected), and stops after `idleMs` without jobs so an idle server gives its memory back.
- * `onRestart` lets the owner forget state the old thread held.
+ * A worker thread that answers jobs in order, one at a time: `run(job)` queues `{ id, ...job }` and
+ * resolves with the thread's `{ id, ... }` reply. Jobs wait here, not in the thread, so the running
+ * job is always known and its time limit counts its own running time only. The thread starts on first
+ * use, and after a crash or a time-out the running job is rejected and the queue goes on in a new
+ * thread. `started` / `finished` listeners see each job start and end (tests time lanes by them).
  */
 export class JobThread<Job extends object, Reply extends object> {
   private worker: Worker | null = null;
+  /** The worker's module has loaded; a running job's clock starts then. */
+  private ready = false;
   private nextId = 1;
-  private readonly pending = new Map<number, { resolve(r: Reply): void; reject(e: Error): void }>();
+  private readonly queue: Queued<Job, Reply>[] = [];
+  private running: (Queued<Job, Reply> & { timer: NodeJS.Timeout | null }) | null = null;
   private idleTimer: NodeJS.Timeout | null = null;
+  private readonly listeners = { started: new Set<(job: Job) => void>(), finished: new Set<(job: Job) => void>() };
 
   constructor(
     private readonly moduleUrl: URL,
-    private readonly idleMs: number,
-    private readonly onRestart: () => void = () => undefined,
+    private readonly options: JobThreadOptions,
   ) {}
 
+  /** True while a job runs; lanes send small jobs elsewhere then. */
+  get busy(): boolean {
+    return this.running !== null;
+  }
+
+  /** Jobs running or waiting. */
+  get load(): number {
+    return this.queue.length + (this.running ? 1 : 0);
+  }
+
+  on(event: 'started' | 'finished', listener: (job: Job) => void): () => void {
+    this.listeners[event].add(listener);
+    return () => this.listeners[event].delete(listener);
+  }
+
   run(job: Job): Promise<Reply> {
-    const id = this.nextId++;
     if (this.idleTimer) clearTimeout(this.idleTimer);
     this.idleTimer = null;
     return new Promise((resolve, reject) => {
-      this.pending.set(id, { resolve, reject });
-      this.thread().postMessage({ ...job, id });
+      this.queue.push({ id: this.nextId++, job, resolve, reject });
+      this.next();
     });
   }
 
@@ -34,33 +74,79 @@ export class JobThread<Job extends object, Reply extends object> {
     this.worker?.postMessage(message);
   }
 
-  /** Stops the thread; jobs in flight are rejected (their callers must not wait for a thread that is gone). */
+  /** Stops the thread; running and waiting jobs are rejected (their callers must not wait for a thread that is gone). */
   async stop(): Promise<void> {
     const w = this.worker;
     this.worker = null;
     if (this.idleTimer) clearTimeout(this.idleTimer);
     this.idleTimer = null;
-    this.onRestart();
+    this.options.onRestart?.();
     const stopped = new Error('the worker thread was stopped');
-    for (const p of this.pending.values()) p.reject(stopped);
-    this.pending.clear();
+    const all = [...(this.running ? [this.running] : []), ...this.queue.splice(0)];
+    if (this.running?.timer) clearTimeout(this.running.timer);
+    this.running = null;
+    for (const q of all) q.reject(stopped);
     if (w) await w.terminate();
+  }
+
+  private next(): void {
+    if (this.running) return;
+    const q = this.queue.shift();
+    if (!q) {
+      this.armIdle();
+      return;
+    }
+    this.running = { ...q, timer: null };
+    for (const l of this.listeners.started) l(q.job);
+    this.thread().postMessage({ ...q.job, id: q.id });
+    if (this.ready) this.startClock();
+  }
+
+  private startClock(): void {
+    const limit = this.options.timeoutMs?.() ?? 0;
+    if (this.running && limit > 0) this.running.timer = setTimeout(() => this.timeOut(limit), limit);
+  }
+
+  /** Ends the running job with `err` and goes on with the queue. */
+  private settle(outcome: { reply: Reply } | { err: Error }): void {
+    const r = this.running;
+    if (!r) return;
+    this.running = null;
+    if (r.timer) clearTimeout(r.timer);
+    for (const l of this.listeners.finished) l(r.job);
+    if ('reply' in outcome) r.resolve(outcome.reply);
+    else r.reject(outcome.err);
+    this.next();
+  }
+
+  private timeOut(limitMs: number): void {
+    const w = this.worker;
+    this.dropWorker();
+    void w?.terminate();
+    this.settle({ err: this.options.timeoutError?.(limitMs) ?? new Error(`the job ran over its ${limitMs} ms limit`) });
+  }
+
+  private dropWorker(): void {
+    this.worker = null;
+    this.options.onRestart?.();
   }
 
   private thread(): Worker {
     if (this.worker) return this.worker;
     const w = startTsWorker(this.moduleUrl);
-    w.on('message', (reply: Reply & { id: number }) => {
-      this.pending.get(reply.id)?.resolve(reply);
-      this.pending.delete(reply.id);
-      if (this.pending.size === 0) this.armIdle();
+    this.ready = false;
+    w.on('message', (reply: (Reply & { id: number }) | typeof WORKER_READY) => {
+      if (this.worker !== w) return;
+      if (reply === WORKER_READY) {
+        this.ready = true;
+        return this.startClock();
+      }
+      if (this.running?.id === reply.id) this.settle({ reply });
     });
     const fail = (err: Error) => {
       if (this.worker !== w) return;
-      this.worker = null;
-      this.onRestart();
-      for (const p of this.pending.values()) p.reject(err);
-      this.pending.clear();
+      this.dropWorker();
+      this.settle({ err });
     };
     w.on('error', fail);
     w.on('exit', (code) => fail(new Error(`the worker thread stopped (exit ${code})`)));
@@ -70,7 +156,7 @@ export class JobThread<Job extends object, Reply extends object> {
 
   private armIdle(): void {
     if (this.idleTimer) clearTimeout(this.idleTimer);
-    this.idleTimer = setTimeout(() => void this.stop(), this.idleMs);
+    this.idleTimer = setTimeout(() => void this.stop(), this.options.idleMs);
     this.idleTimer.unref();
   }
 }

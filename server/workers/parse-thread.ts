@@ -1,11 +1,15 @@
 import type { EvaluateOptions, Evaluation, Mapping, Molecule } from '../../src/shared/chem';
 import { ChemError, type ChemErrorStatus } from '../chem/errors';
 import type { MoleculeInput } from '../chem/parse';
-import { JobThread } from './job-thread';
+import { Lanes } from './lanes';
+import { chemJobTimeout, tooComplex } from './chem-limits';
+import { screenInput } from './screen-input';
 
-// Stateless chemistry jobs in a worker thread (parse-worker.ts): parse a structure, and optionally
+// Stateless chemistry jobs in worker threads (parse-worker.ts): parse a structure, and optionally
 // evaluate a mapping on it, with the same results and the same ChemError as calling the core here.
-// The main thread never loads openchemlib or RDKit itself. The thread stops after 30 s without work.
+// The main thread never loads openchemlib or RDKit itself. Inputs are screened first (screen-input.ts);
+// each job runs under the time limit (chem-limits.ts), in one of two lanes so that a big structure
+// never holds up a small one. Each lane's thread stops after 30 s without work.
 
 export interface ParseJob {
   input: MoleculeInput;
@@ -17,10 +21,20 @@ export type ParseReply =
   | { chemError: { code: string; message: string; details: Record<string, unknown>; status: ChemErrorStatus } }
   | { failure: string };
 
-const thread = new JobThread<ParseJob, ParseReply>(new URL('./parse-worker.ts', import.meta.url), 30_000);
+/** Structures above these sizes go to the large lane (a few hundred heavy atoms already take seconds). */
+export const SMALL_JOB = { smilesLength: 200, molfileLength: 20_000 } as const;
+
+export const parseLanes = new Lanes<ParseJob, ParseReply>(new URL('./parse-worker.ts', import.meta.url), {
+  idleMs: 30_000,
+  timeoutMs: chemJobTimeout,
+  timeoutError: tooComplex,
+});
+
+const isBig = (input: MoleculeInput) => ('smiles' in input ? input.smiles.length > SMALL_JOB.smilesLength : input.molfile.length > SMALL_JOB.molfileLength);
 
 async function runJob(job: ParseJob): Promise<{ molecule: Molecule; evaluation?: Evaluation }> {
-  const reply = await thread.run(job);
+  screenInput(job.input);
+  const reply = await parseLanes.pick(isBig(job.input)).run(job);
   if ('molecule' in reply) return reply;
   if ('chemError' in reply) {
     const e = reply.chemError;
@@ -39,4 +53,4 @@ export async function parseAndEvaluateInThread(input: MoleculeInput, mapping: Ma
   return { molecule, evaluation: evaluation! };
 }
 
-export const stopParseThread = () => thread.stop();
+export const stopParseThread = () => parseLanes.stop();

@@ -6,9 +6,19 @@ import { parentPort } from 'node:worker_threads';
 import { isChemError, parseMolecule, evaluateMapping, loadRdkit } from '../chem/index';
 import type { ParseJob, ParseReply } from './parse-thread';
 
+// Libraries are loaded and warmed before the thread reports ready (the module finishes loading at
+// the `await` below; ts-worker.ts): the job time limit measures a job's own work, not the ~1–3 s
+// this takes once per thread. The listener is attached first: RDKit's loader listens on the port
+// too, and a job arriving while only its listener is attached would be lost.
+const warmed = (async () => {
+  await loadRdkit();
+  await parseMolecule({ smiles: 'CCO' });
+})();
+
 parentPort!.on('message', async (job: ParseJob & { id: number }) => {
   let reply: ParseReply & { id: number };
   try {
+    await warmed;
     const molecule = await parseMolecule(job.input);
     if (job.evaluate) {
       await loadRdkit();
@@ -23,3 +33,5 @@ parentPort!.on('message', async (job: ParseJob & { id: number }) => {
   }
   parentPort!.postMessage(reply);
 });
+
+await warmed;
