@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { AppError } from './errors';
 import { isChemError } from '../chem/errors';
+import { bodyError, dbUnavailable, isDbUnavailable } from './client-errors';
 
 export const unknownRoute: RequestHandler = (req) => {
   throw new AppError(404, 'not_found', `No route ${req.method} ${req.path}.`);
@@ -14,7 +15,8 @@ interface BodyParserError {
 
 /** The one place that writes error responses. Unknown errors never show internals. */
 export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
-  const known = toAppError(err);
+  const known = toAppError(err) ?? bodyError(err, req) ?? (isDbUnavailable(err) ? dbUnavailable() : null);
+  if (known?.code === 'db_unavailable') req.log?.warn({ err }, 'database unavailable');
   if (!known) req.log?.error({ err }, 'unhandled error');
   const e = known ?? new AppError(500, 'internal_error', 'Something went wrong on the server. It has been logged.');
   if (res.headersSent) {
