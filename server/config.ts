@@ -16,7 +16,19 @@ export interface Config {
   /** Where the built client lives; null serves no client (API-only tests). */
   clientDir: string | null;
   bcryptCost: number;
-  loginLimits: { perAccount: number; perIp: number; windowMs: number };
+  /**
+   * Failed sign-ins allowed before the back-off starts: per account + address (default 5), per
+   * account from anywhere (50), per address over all accounts (100). See server/auth/rate-limit.ts.
+   */
+  loginLimits: { perAccount: number; perIp: number; windowMs: number; perAccountAddress?: number; maxBackoffMs?: number };
+  /**
+   * Express's `trust proxy`: false (the default) believes no X-Forwarded-* header. TRUST_PROXY=1 (or
+   * true) trusts the one proxy in front; any other value is passed on (e.g. "loopback, 10.0.0.0/8").
+   * Only then do sign-in limits key on X-Forwarded-For and the session cookie follow X-Forwarded-Proto.
+   */
+  trustProxy: boolean | number | string;
+  /** Time budget of one chemistry job in a worker thread (CHEM_JOB_TIMEOUT_MS, default 10 s). */
+  chemJobTimeoutMs: number;
   /** COLLAB_MAX_FRAME_BYTES: the largest collaboration frame (a Yjs update) a client may send; 1 MiB. */
   collabMaxFrameBytes: number;
   logLevel: string;
@@ -40,11 +52,27 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
     clientDir: env.CLIENT_DIR ?? 'dist',
     bcryptCost: Math.max(12, Number(env.BCRYPT_COST ?? 12)),
     loginLimits: {
-      perAccount: Number(env.LOGIN_LIMIT_ACCOUNT ?? 10),
+      perAccountAddress: Number(env.LOGIN_LIMIT_ACCOUNT_ADDRESS ?? 5),
+      perAccount: Number(env.LOGIN_LIMIT_ACCOUNT ?? 50),
       perIp: Number(env.LOGIN_LIMIT_IP ?? 100),
       windowMs: 15 * 60_000,
+      maxBackoffMs: 15 * 60_000,
     },
     collabMaxFrameBytes: Math.max(64 * 1024, Number(env.COLLAB_MAX_FRAME_BYTES ?? 1024 * 1024) || 1024 * 1024),
+    trustProxy: trustProxyFrom(env.TRUST_PROXY),
+    chemJobTimeoutMs: positive(env.CHEM_JOB_TIMEOUT_MS, 10_000),
     logLevel: env.LOG_LEVEL ?? 'info',
   };
+}
+
+function trustProxyFrom(raw: string | undefined): boolean | number | string {
+  const v = (raw ?? '').trim();
+  if (v === '' || v === '0' || v.toLowerCase() === 'false') return false;
+  if (v === '1' || v.toLowerCase() === 'true') return 1;
+  return /^\d+$/.test(v) ? Number(v) : v;
+}
+
+function positive(raw: string | undefined, fallback: number): number {
+  const n = Number(raw);
+  return raw !== undefined && Number.isFinite(n) && n > 0 ? n : fallback;
 }

@@ -5,7 +5,8 @@ import type { createCsrf } from './csrf';
 import type passport from 'passport';
 import { validate } from '../http/validate';
 import { changePasswordBody, forgotBody, loginBody, resetBody, updateMeBody, type LoginResponse } from '../../src/shared/auth';
-import { createLoginLimiters } from './rate-limit';
+import { createLoginLimiter } from './rate-limit';
+import { AppError } from '../http/errors';
 import { requireUser } from './access';
 import { buildMe } from './me.service';
 import { changePassword, requestPasswordReset, resetPassword } from './auth.service';
@@ -16,6 +17,7 @@ interface AuthDeps {
 }
 
 export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: AuthDeps): void {
+  const limiter = createLoginLimiter(ctx.config);
   r.get('/api/auth/csrf', (req, res) => {
     res.json({ token: csrf.issue(req, res) });
   });
@@ -32,9 +34,12 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
       }
     });
 
-  r.post('/api/auth/login', ...createLoginLimiters(ctx.config), validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
+  r.post('/api/auth/login', limiter.check, validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
     passport.authenticate('local', (err: unknown, user: Express.User | false) => {
+      // Only a wrong password (or unknown e-mail) counts against the limits; see rate-limit.ts.
+      if (err instanceof AppError && err.code === 'invalid_credentials') limiter.failed(req);
       if (err || !user) return next(err);
+      limiter.succeeded(req);
       signIn(req, res, next, user);
     })(req, res, next);
   });

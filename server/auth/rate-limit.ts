@@ -1,32 +1,96 @@
-import type { RequestHandler } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { Request, RequestHandler } from 'express';
+import { ipKeyGenerator } from 'express-rate-limit';
 import type { Config } from '../config';
 import { AppError } from '../http/errors';
 
-// Sign-in attempts are limited per IP address and per account (e-mail), so a
-// password cannot be guessed from many addresses nor many accounts from one.
-// The counters are in memory: enough for one app server; see docs/architecture.md.
+/**
+ * Sign-in limits that count failed attempts only (a wrong password, or an unknown e-mail), under
+ * three keys, each with a growing back-off:
+ * - account + address: the tight one (`perAccountAddress` free failures). A stranger guessing from
+ *   their address locks only themself out; the owner signing in from elsewhere is not affected.
+ * - account: a looser ceiling (`perAccount`) against guessing one password from many addresses.
+ *   A stranger who passes it does slow the owner down too: that is the price of the ceiling.
+ * - address: `perIp` failures over all accounts (one address trying many accounts).
+ * Past its free failures a key is blocked for 1 s, then 2, 4, 8 … up to `maxBackoffMs` after each
+ * further failure. A blocked attempt is answered 429 before the password is checked (so it neither
+ * counts nor costs a bcrypt); `Retry-After` and the error's details give the seconds actually left.
+ * A successful sign-in forgets its account + address failures. A key is forgotten `windowMs` after
+ * its last block ends. The address is `req.ip`: X-Forwarded-For counts only with TRUST_PROXY.
+ * The counters are in memory: enough for one app server; see docs/architecture.md.
+ */
 
-function limiter(limit: number, windowMs: number, key: (req: Parameters<RequestHandler>[0]) => string, what: string): RequestHandler {
-  return rateLimit({
-    windowMs,
-    limit,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: key,
-    handler: (_req, _res, next, options) => {
-      const retryAfter = Math.ceil(options.windowMs / 1000);
-      next(new AppError(429, 'rate_limited', `Too many sign-in attempts ${what}. Try again later.`, { retryAfterSeconds: retryAfter }, { 'Retry-After': String(retryAfter) }));
-    },
-  });
+interface Entry {
+  failures: number;
+  /** Blocked until this time (ms since the epoch); 0 when not blocked. */
+  until: number;
+  last: number;
 }
 
-export function createLoginLimiters(config: Config): RequestHandler[] {
-  const { perAccount, perIp, windowMs } = config.loginLimits;
-  const ipKey = (req: Parameters<RequestHandler>[0]) => `ip:${ipKeyGenerator(req.ip ?? 'unknown')}`;
-  const accountKey = (req: Parameters<RequestHandler>[0]) => {
+type Limits = Config['loginLimits'];
+const BASE_BACKOFF_MS = 1000;
+/** Entries kept at most; the oldest go first (an attacker rotating e-mails cannot fill memory). */
+const MAX_ENTRIES = 100_000;
+
+export interface LoginLimiter {
+  /** Refuses a request while any of its keys is blocked. */
+  check: RequestHandler;
+  failed(req: Request): void;
+  succeeded(req: Request): void;
+}
+
+export function createLoginLimiter(config: Config, now: () => number = Date.now): LoginLimiter {
+  const limits: Limits = config.loginLimits;
+  const entries = new Map<string, Entry>();
+
+  const keysOf = (req: Request): { key: string; free: number }[] => {
     const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
-    return `account:${email}`;
+    const ip = ipKeyGenerator(req.ip ?? 'unknown');
+    return [
+      { key: `account+ip:${email}|${ip}`, free: limits.perAccountAddress ?? Math.min(5, limits.perAccount) },
+      { key: `account:${email}`, free: limits.perAccount },
+      { key: `ip:${ip}`, free: limits.perIp },
+    ];
   };
-  return [limiter(perIp, windowMs, ipKey, 'from this address'), limiter(perAccount, windowMs, accountKey, 'for this account')];
+
+  const live = (key: string): Entry | undefined => {
+    const e = entries.get(key);
+    if (e && now() > Math.max(e.until, e.last) + limits.windowMs) {
+      entries.delete(key);
+      return undefined;
+    }
+    return e;
+  };
+
+  const check: RequestHandler = (req, _res, next) => {
+    const t = now();
+    const until = Math.max(0, ...keysOf(req).map(({ key }) => live(key)?.until ?? 0));
+    if (until <= t) return next();
+    const seconds = Math.ceil((until - t) / 1000);
+    throw new AppError(
+      429,
+      'rate_limited',
+      `Too many failed sign-in attempts. Try again in ${seconds} s.`,
+      { retryAfterSeconds: seconds },
+      { 'Retry-After': String(seconds) },
+    );
+  };
+
+  const failed = (req: Request): void => {
+    const t = now();
+    for (const { key, free } of keysOf(req)) {
+      const e = live(key) ?? { failures: 0, until: 0, last: t };
+      entries.delete(key); // re-inserted last: the Map's order is the age order MAX_ENTRIES drops by
+      e.failures++;
+      e.last = t;
+      if (e.failures >= free) e.until = t + Math.min(limits.maxBackoffMs ?? 15 * 60_000, BASE_BACKOFF_MS * 2 ** Math.min(30, e.failures - free));
+      entries.set(key, e);
+    }
+    while (entries.size > MAX_ENTRIES) entries.delete(entries.keys().next().value as string);
+  };
+
+  const succeeded = (req: Request): void => {
+    entries.delete(keysOf(req)[0].key);
+  };
+
+  return { check, failed, succeeded };
 }

@@ -31,7 +31,9 @@ export function createSessionMiddleware(config: Config) {
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
-      secure: config.appUrl.startsWith('https://'),
+      // Behind a trusted proxy (TRUST_PROXY): Secure whenever the request came over HTTPS
+      // (X-Forwarded-Proto); otherwise Secure when the public address is https.
+      secure: config.trustProxy !== false ? 'auto' : config.appUrl.startsWith('https://'),
       maxAge: 7 * 24 * 60 * 60_000,
     },
   });

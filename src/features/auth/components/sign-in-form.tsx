@@ -7,10 +7,13 @@ import { TextLink } from '../../../components/ui/text-link';
 import { useForm } from '../../../hooks/use-form';
 import { paths } from '../../../lib/paths';
 import { useLogin } from '../api/login';
+import { retryAfterSeconds, useRetryCountdown } from '../hooks/use-retry-countdown';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (response: LoginResponse) => void }) {
   const login = useLogin({ onSuccess: onSignedIn });
   const form = useForm(loginBody, { email: '', password: '' }, { serverError: login.error });
+  const waitSeconds = useRetryCountdown(login.error);
+  const limited = retryAfterSeconds(login.error) !== null;
 
   return (
     <form noValidate onSubmit={form.handleSubmit((body) => login.mutate(body))} className="flex flex-col gap-4">
@@ -27,8 +30,13 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (response: LoginRespons
         autoComplete="current-password"
         {...form.field('password')}
       />
-      {login.error && <ErrorAlert error={login.error} />}
-      <Button type="submit" pending={login.isPending} pendingText="Signing in…">
+      {login.error && !limited && <ErrorAlert error={login.error} />}
+      {limited && (
+        <ErrorAlert>
+          {waitSeconds > 0 ? `Too many failed sign-in attempts. Try again in ${waitSeconds} s.` : 'You can try again now.'}
+        </ErrorAlert>
+      )}
+      <Button type="submit" pending={login.isPending} pendingText="Signing in…" disabled={waitSeconds > 0}>
         Sign in
       </Button>
       <p className="text-center text-sm">
