@@ -8,6 +8,8 @@ import type { AppContext } from './context';
 import { RouteTable, type RouteEntry } from './http/route-table';
 import { errorMiddleware, unknownRoute } from './http/error-middleware';
 import { requireJson } from './http/require-json';
+import { securityHeaders } from './http/security-headers';
+import { setChemJobTimeout } from './workers/chem-limits';
 import { createSessionMiddleware } from './auth/session';
 import { configurePassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';
@@ -46,8 +48,10 @@ const UPLOAD_PATHS = /\/upload$/;
 
 export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions> = {}): BuiltApp {
   const app = express();
-  app.set('trust proxy', 'loopback');
+  // X-Forwarded-* headers are believed only when TRUST_PROXY says a proxy sits in front (config.ts).
+  app.set('trust proxy', ctx.config.trustProxy);
   app.disable('x-powered-by');
+  setChemJobTimeout(ctx.config.chemJobTimeoutMs);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -63,6 +67,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
       },
     }),
   );
+  app.use(securityHeaders);
   app.use(pinoHttp({ logger: ctx.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   const json = express.json({ limit: '1mb' });
   // Imports parse their own (larger) bodies in the route.
