@@ -20,7 +20,7 @@ export interface Config {
    * Failed sign-ins allowed before the back-off starts: per account + address (default 5), per
    * account from anywhere (50), per address over all accounts (100). See server/auth/rate-limit.ts.
    */
-  loginLimits: { perAccount: number; perIp: number; windowMs: number; perAccountAddress?: number; maxBackoffMs?: number };
+  loginLimits: { perAccount: number; perIp: number; windowMs: number; perAccountAddress?: number; baseBackoffMs?: number; maxBackoffMs?: number };
   /**
    * Express's `trust proxy`: false (the default) believes no X-Forwarded-* header. TRUST_PROXY=1 (or
    * true) trusts the one proxy in front; any other value is passed on (e.g. "loopback, 10.0.0.0/8").
@@ -56,6 +56,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
       perAccount: Number(env.LOGIN_LIMIT_ACCOUNT ?? 50),
       perIp: Number(env.LOGIN_LIMIT_IP ?? 100),
       windowMs: 15 * 60_000,
+      baseBackoffMs: positive(env.LOGIN_BACKOFF_BASE_MS, 1000),
       maxBackoffMs: 15 * 60_000,
     },
     collabMaxFrameBytes: Math.max(64 * 1024, Number(env.COLLAB_MAX_FRAME_BYTES ?? 1024 * 1024) || 1024 * 1024),

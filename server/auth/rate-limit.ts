@@ -11,7 +11,7 @@ import { AppError } from '../http/errors';
  * - account: a looser ceiling (`perAccount`) against guessing one password from many addresses.
  *   A stranger who passes it does slow the owner down too: that is the price of the ceiling.
  * - address: `perIp` failures over all accounts (one address trying many accounts).
- * Past its free failures a key is blocked for 1 s, then 2, 4, 8 … up to `maxBackoffMs` after each
+ * Past its free failures a key is blocked for `baseBackoffMs` (1 s), then 2, 4, 8 … times that, up to `maxBackoffMs` after each
  * further failure. A blocked attempt is answered 429 before the password is checked (so it neither
  * counts nor costs a bcrypt); `Retry-After` and the error's details give the seconds actually left.
  * A successful sign-in forgets its account + address failures. A key is forgotten `windowMs` after
@@ -27,7 +27,6 @@ interface Entry {
 }
 
 type Limits = Config['loginLimits'];
-const BASE_BACKOFF_MS = 1000;
 /** Entries kept at most; the oldest go first (an attacker rotating e-mails cannot fill memory). */
 const MAX_ENTRIES = 100_000;
 
@@ -82,7 +81,7 @@ export function createLoginLimiter(config: Config, now: () => number = Date.now)
       entries.delete(key); // re-inserted last: the Map's order is the age order MAX_ENTRIES drops by
       e.failures++;
       e.last = t;
-      if (e.failures >= free) e.until = t + Math.min(limits.maxBackoffMs ?? 15 * 60_000, BASE_BACKOFF_MS * 2 ** Math.min(30, e.failures - free));
+      if (e.failures >= free) e.until = t + Math.min(limits.maxBackoffMs ?? 15 * 60_000, (limits.baseBackoffMs ?? 1000) * 2 ** Math.min(30, e.failures - free));
       entries.set(key, e);
     }
     while (entries.size > MAX_ENTRIES) entries.delete(entries.keys().next().value as string);
