@@ -19,7 +19,8 @@ const dir = mkdtempSync(join(tmpdir(), 'beadloom-bench-'));
 const mariadb = await startMariaDb({ dataDir: dir, port: await freePort(), database: 'beadloom_bench', user: 'beadloom', password: 'bench-password-123' });
 process.env.TEST_DATABASE_URL = mariadb.url;
 const { startTestServer } = await import('../tests/helpers/app-server');
-const server = await startTestServer();
+// Parsing a 2,000-atom chain takes longer than the default 10 s chemistry job limit (docs/benchmarks.md).
+const server = await startTestServer({ CHEM_JOB_TIMEOUT_MS: '300000' });
 const browser = await launchBrowser();
 try {
   const context = await browser.newContext({ baseURL: server.url, viewport: { width: 1600, height: 1000 } });

@@ -6,7 +6,8 @@ import { createTestDatabase } from './db';
 // The whole app as `npm start` runs it (HTTP server, SMTP sink, built client
 // from dist/) on a fresh demo-seeded database and a free port, for browser tests.
 
-export async function startTestServer(): Promise<{ url: string; stop(): Promise<void> }> {
+/** `env` adds settings as the environment would give them (e.g. LOGIN_BACKOFF_BASE_MS, CHEM_JOB_TIMEOUT_MS). */
+export async function startTestServer(env: Record<string, string> = {}): Promise<{ url: string; stop(): Promise<void> }> {
   const database = await createTestDatabase();
   await seedDemo(database.db, 12);
   const config = configFromEnv({
@@ -15,6 +16,7 @@ export async function startTestServer(): Promise<{ url: string; stop(): Promise<
     PORT: '0',
     LOG_LEVEL: 'silent',
     CLIENT_DIR: 'dist',
+    ...env,
   });
   const running = await startServer(config);
   // Links in e-mails must point at the port actually bound.
