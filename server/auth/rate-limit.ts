@@ -45,7 +45,7 @@ export function createLoginLimiter(config: Config, now: () => number = Date.now)
     const email = typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : '';
     const ip = ipKeyGenerator(req.ip ?? 'unknown');
     return [
-      { key: `account+ip:${email}|${ip}`, free: limits.perAccountAddress ?? Math.min(5, limits.perAccount) },
+      { key: `account+ip:${email}|${ip}`, free: limits.perAccountAddress ?? limits.perAccount },
       { key: `account:${email}`, free: limits.perAccount },
       { key: `ip:${ip}`, free: limits.perIp },
     ];
