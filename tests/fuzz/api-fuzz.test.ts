@@ -9,7 +9,7 @@ import { jsonBody, multipart, pathValue, query, rawBody, smiles, socketFrame } f
 // table, which permissions.test.ts keeps equal to the app's), the upload route, SMILES and collab
 // socket frames, against the server in its own process. It asserts 0 answers of 500 or above,
 // 0 exits of the server process, and every error in the shared shape { error: { code, message } }.
-// `npm test` sends about 2,000 inputs; `FUZZ_SCALE=10 npm test -- tests/fuzz` 20,000. FUZZ_SEED picks
+// `npm test` sends about 2,000 inputs; `npm run fuzz` 20,000. FUZZ_SEED picks
 // another seed; a failure prints the inputs that caused it, and the seed reproduces them.
 
 const SCALE = Number(process.env.FUZZ_SCALE ?? 1);
