@@ -66,7 +66,11 @@ function checkContent(item: Y.Item): DocProblem | null {
   if (content instanceof Y.ContentDeleted) return null;
   if (content instanceof Y.ContentType) return content.type instanceof Y.Map ? null : refuse('wrong_type', path, 'Only beads may hold nested maps; no lists or text.');
   if (content instanceof Y.ContentAny) {
-    return content.arr.every(plainValue) ? null : refuse('wrong_type', path, `A value is null, text of at most ${TEXT_MAX} characters, or an atom entry of at most ${MAX_BEADS_PER_ATOM} bead ids → weight.`);
+    const bad = content.arr.find((v) => !plainValue(v));
+    if (bad === undefined) return null;
+    // A bead's measured value says what is wrong with it, as the visible-document check would.
+    if (item.parentSub === 'measured' && typeof bad === 'object' && bad !== null) return refuse('wrong_type', path, measuredProblem(bad) ?? 'The measured value is not valid.');
+    return refuse('wrong_type', path, `A value is null, text of at most ${TEXT_MAX} characters, or an atom entry of at most ${MAX_BEADS_PER_ATOM} bead ids → weight.`);
   }
   return refuse('wrong_type', path, `The draft holds no ${content.constructor.name.replace(/^Content/, '').toLowerCase()} content.`);
 }
