@@ -16,7 +16,10 @@ const lockFile = join(root, 'package-lock.json');
 
 function lockHash() {
   const lock = existsSync(lockFile) ? readFileSync(lockFile) : Buffer.from('');
-  return createHash('sha256').update(lock).update(readFileSync(join(root, 'package.json'))).digest('hex');
+  // Only the dependency fields of package.json count: editing a script must not reinstall.
+  const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8'));
+  const deps = JSON.stringify([pkg.dependencies, pkg.devDependencies, pkg.optionalDependencies, pkg.overrides]);
+  return createHash('sha256').update(lock).update(deps).digest('hex');
 }
 
 const upToDate = (wanted) =>
