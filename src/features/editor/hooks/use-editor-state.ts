@@ -1,4 +1,5 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { throttle } from 'throttle-debounce';
 import type { Molecule } from '../../../shared/chem';
 import { freeIonAtoms } from '../../../shared/free-ions';
 import type { MappingSession } from '../collab/mapping-session';
@@ -91,7 +92,9 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   }), [session, readOnly, view, atomCount, freeIons, selection, setSelection, activeBead, suggestions, ui]);
   const endRename = useCallback(() => setRenaming(null), []);
 
-  const sendPointer = useMemo(() => throttle((p: { x: number; y: number } | null) => session.setPresence({ pointer: p }), 40), [session]);
+  // At most one pointer position every 40 ms; the last one (including `null` on leaving) always goes out.
+  const sendPointer = useMemo(() => throttle(40, (p: { x: number; y: number } | null) => session.setPresence({ pointer: p })), [session]);
+  useEffect(() => () => sendPointer.cancel(), [sendPointer]);
 
   // Stable for the memoised table and graph; it reads the latest view and selection when called.
   const latest = useRef({ view, selection });
@@ -124,25 +127,5 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   return {
     ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, showNumbers, colourAtoms, toggles, viewport, setViewport, onSize, gestures,
     selectBead, selectOnly, highlight, setHighlight, helpOpen, setHelpOpen, renaming, endRename,
-  };
-}
-
-function throttle<T>(fn: (arg: T) => void, ms: number): (arg: T) => void {
-  let last = 0;
-  let pending: ReturnType<typeof setTimeout> | null = null;
-  let latest: T;
-  return (arg: T) => {
-    latest = arg;
-    const wait = last + ms - Date.now();
-    if (wait <= 0) {
-      last = Date.now();
-      fn(latest);
-    } else if (!pending) {
-      pending = setTimeout(() => {
-        pending = null;
-        last = Date.now();
-        fn(latest);
-      }, wait);
-    }
   };
 }

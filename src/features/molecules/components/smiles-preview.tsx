@@ -1,5 +1,6 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import SmilesDrawer from 'smiles-drawer';
+import { debounce } from 'throttle-debounce';
 
 /**
  * An instant drawing of the SMILES being typed. It is only a preview: smiles-drawer is lenient
@@ -9,28 +10,35 @@ export function SmilesPreview({ smiles }: { smiles: string }) {
   const svg = useRef<SVGSVGElement>(null);
   const [problem, setProblem] = useState<string | null>(null);
 
+  // Draws 120 ms after the last keystroke, not on every one (smiles-drawer re-lays the whole structure).
+  const draw = useMemo(
+    () =>
+      debounce(120, (el: SVGSVGElement, text: string) => {
+        const drawer = new SmilesDrawer.SvgDrawer({ width: 320, height: 220, padding: 12, compactDrawing: false });
+        SmilesDrawer.parse(
+          text,
+          (tree) => {
+            try {
+              drawer.draw(tree, el, 'light');
+              setProblem(null);
+            } catch {
+              setProblem('The preview cannot draw this yet.');
+            }
+          },
+          () => setProblem('Not readable as SMILES yet.'),
+        );
+      }),
+    [],
+  );
+
   useEffect(() => {
     const el = svg.current;
     if (!el) return;
     while (el.firstChild) el.removeChild(el.firstChild);
     if (!smiles.trim()) return setProblem(null);
-    const handle = setTimeout(() => {
-      const drawer = new SmilesDrawer.SvgDrawer({ width: 320, height: 220, padding: 12, compactDrawing: false });
-      SmilesDrawer.parse(
-        smiles.trim(),
-        (tree) => {
-          try {
-            drawer.draw(tree, el, 'light');
-            setProblem(null);
-          } catch {
-            setProblem('The preview cannot draw this yet.');
-          }
-        },
-        () => setProblem('Not readable as SMILES yet.'),
-      );
-    }, 120);
-    return () => clearTimeout(handle);
-  }, [smiles]);
+    draw(el, smiles.trim());
+    return () => draw.cancel();
+  }, [smiles, draw]);
 
   return (
     <figure className="flex flex-col gap-1">
