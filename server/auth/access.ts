@@ -1,11 +1,17 @@
 import type { Request } from 'express';
 import type { Db } from '../db/knex';
 import type { ProjectRole } from '../../src/shared/roles';
-import { can, canSee, canSite, type ProjectAction, type SiteAction } from './permissions';
+import { can, canSee, canSite, type ProjectAction, type SiteAction } from '../../src/shared/permissions';
 import { forbidden, notFound, unauthenticated } from '../http/errors';
 
-// The bridge between requests and the permission module: look up the caller's
-// standing, ask permissions.ts, and throw the right error (401, 404 or 403).
+// The bridge between requests and the shared rule table (src/shared/permissions.ts): look up the
+// caller's standing, ask the table, and throw the right error (401, 404 or 403).
+
+/** Who is asking, as the rule table needs it (a signed-in account). */
+export interface Actor {
+  id: number;
+  isAdmin: boolean;
+}
 
 export function requireUser(req: Request): Express.User {
   if (!req.user) throw unauthenticated();
@@ -25,10 +31,11 @@ export async function roleInProject(db: Db, projectId: number, userId: number): 
 /** Resolves the caller's role in a project or throws: 401 anonymous, 404 invisible, 403 not allowed. */
 export async function authorizeProject(db: Db, req: Request, projectId: number, action: ProjectAction): Promise<ProjectRole | null> {
   const user = requireUser(req);
-  const standing = await roleInProject(db, projectId, user.id);
-  if (!standing.exists || !canSee(user, standing)) throw notFound('That project');
-  if (!can(user, action, standing)) throw forbidden();
-  return standing.role;
+  const { exists, role } = await roleInProject(db, projectId, user.id);
+  const standing = { isAdmin: user.isAdmin, role };
+  if (!exists || !canSee(standing)) throw notFound('That project');
+  if (!can(standing, action)) throw forbidden();
+  return role;
 }
 
 export async function rolesAnywhere(db: Db, userId: number): Promise<ProjectRole[]> {
@@ -39,6 +46,6 @@ export async function rolesAnywhere(db: Db, userId: number): Promise<ProjectRole
 export async function authorizeSite(db: Db, req: Request, action: SiteAction): Promise<Express.User> {
   const user = requireUser(req);
   const roles = user.isAdmin ? [] : await rolesAnywhere(db, user.id);
-  if (!canSite(user, action, { roles })) throw forbidden('Your account does not allow that.');
+  if (!canSite({ isAdmin: user.isAdmin, roles }, action)) throw forbidden('Your account does not allow that.');
   return user;
 }

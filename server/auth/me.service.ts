@@ -1,7 +1,7 @@
 import type { Db } from '../db/knex';
 import type { Me } from '../../src/shared/auth';
 import type { ProjectRole } from '../../src/shared/roles';
-import { canSite } from './permissions';
+import { canSite } from '../../src/shared/permissions';
 
 export async function buildMe(db: Db, user: Express.User): Promise<Me> {
   const rows = await db('project_members as m')
@@ -15,7 +15,7 @@ export async function buildMe(db: Db, user: Express.User): Promise<Me> {
     email: user.email,
     displayName: user.displayName,
     isAdmin: user.isAdmin,
-    canCreateProjects: canSite(user, 'project:create', { roles: projects.map((p) => p.role) }),
+    canCreateProjects: canSite({ isAdmin: user.isAdmin, roles: projects.map((p) => p.role) }, 'project:create'),
     projects,
   };
 }

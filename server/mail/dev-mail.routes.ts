@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { canSite } from '../auth/permissions';
+import { canSite } from '../../src/shared/permissions';
 import { escapeHtml } from './messages';
 
 // Development-only view of the local SMTP sink. The caught mail holds every
@@ -20,7 +20,7 @@ export function devMailMounted(ctx: AppContext): boolean {
  * Unless the caller is a site admin, the request leaves these routes and falls through to the app's
  * unknown-route answer, exactly as when the routes are not mounted.
  */
-const mailReaderOnly: RequestHandler = (req, _res, next) => next(canSite(req.user, 'mail:read', { roles: [] }) ? undefined : 'route');
+const mailReaderOnly: RequestHandler = (req, _res, next) => next(req.user && canSite({ isAdmin: req.user.isAdmin, roles: [] }, 'mail:read') ? undefined : 'route');
 
 interface DevMail {
   id: number;

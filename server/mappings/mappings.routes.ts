@@ -3,7 +3,7 @@ import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import { validate } from '../http/validate';
 import { requireUser } from '../auth/access';
-import { can } from '../auth/permissions';
+import { can } from '../../src/shared/permissions';
 import { unprocessable } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
 import { createMappingBody, updateMappingBody, type CreateMappingBody, type MappingDetail } from '../../src/shared/mappings';
@@ -53,7 +53,7 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
   r.get('/api/mappings/:id', validate({ params }), async (req, res) => {
     const id = Number(req.params.id);
     const { role } = await authorizeMapping(ctx.db, req, id, 'mapping:read');
-    res.json(await detail(id, can(requireUser(req), 'mapping:edit', { role })));
+    res.json(await detail(id, can({ isAdmin: requireUser(req).isAdmin, role }, 'mapping:edit')));
   });
 
   r.patch('/api/mappings/:id', validate({ params, body: updateMappingBody }), async (req, res) => {

@@ -1,6 +1,6 @@
 import type { Request } from 'express';
 import type { Db } from '../db/knex';
-import type { ProjectAction } from '../auth/permissions';
+import type { ProjectAction } from '../../src/shared/permissions';
 import { authorizeProject, requireUser } from '../auth/access';
 import { notFound } from '../http/errors';
 

@@ -1,6 +1,6 @@
 // Project roles and site-wide flags, shared by client and server.
-// The permission matrix itself lives in server/auth/permissions.ts; the client
-// only uses these names to decide what to hide.
+// The permission rule table lives in src/shared/permissions.ts; the client
+// asks that same table (never role names) to decide what to show.
 
 export const PROJECT_ROLES = ['supervisor', 'modeller', 'student'] as const;
 export type ProjectRole = (typeof PROJECT_ROLES)[number];

@@ -1,4 +1,5 @@
 import type { Db } from '../../server/db/knex';
+import { can, canSee, canSite, type ProjectAction, type ProjectStanding, type SiteAction } from '../../src/shared/permissions';
 import { createAccount, createMolecule, demoMappingId, demoMoleculeId, demoProjectId, userId } from '../helpers/fixtures';
 import { createThreadFixture, firstBeadId, sharedThread } from './threads-fixtures';
 import { importBodyFor, lockedMapping, versionedMapping } from './versions-fixtures';
@@ -28,17 +29,38 @@ export interface CaseEnv {
 
 const all = (status: number): Record<Caller, number> => ({ anonymous: status, nonMember: status, student: status, modeller: status, supervisor: status, admin: status });
 const signedIn = (status: number) => ({ ...all(status), anonymous: 401 });
-const inProject = (ok: number, allowed: Caller[]): Record<Caller, number> => ({
-  anonymous: 401,
-  nonMember: 404,
-  student: allowed.includes('student') ? ok : 403,
-  modeller: allowed.includes('modeller') ? ok : 403,
-  supervisor: ok,
-  admin: ok,
-});
-const adminOnly = (ok: number) => ({ ...all(403), anonymous: 401, admin: ok });
-const EVERYONE: Caller[] = ['student', 'modeller'];
-const EDITORS: Caller[] = ['modeller'];
+
+// The expected statuses of a guarded route come from the shared rule table (src/shared/permissions.ts),
+// so this walk checks that every route asks the table for the right action and answers what it says.
+// tests/unit/permissions.test.ts checks the table itself against the product's role description.
+
+/** What each kind of caller is in the demo project (the admin is a site admin and not a member). */
+function standing(caller: Exclude<Caller, 'anonymous'>): ProjectStanding {
+  if (caller === 'admin') return { isAdmin: true, role: null };
+  return { isAdmin: false, role: caller === 'nonMember' ? null : caller };
+}
+
+/** A route guarded by a project action: 401 anonymous, 404 when the project is invisible, 403 when the table refuses, else `ok`. */
+const byRule = (ok: number, action: ProjectAction): Record<Caller, number> => {
+  const out = { anonymous: 401 } as Record<Caller, number>;
+  for (const caller of ROLES) {
+    if (caller === 'anonymous') continue;
+    const who = standing(caller);
+    out[caller] = !canSee(who) ? 404 : can(who, action) ? ok : 403;
+  }
+  return out;
+};
+
+/** A route guarded by a site-wide action: 401 anonymous, 403 when the table refuses, else `ok`. */
+const bySiteRule = (ok: number, action: SiteAction): Record<Caller, number> => {
+  const out = { anonymous: 401 } as Record<Caller, number>;
+  for (const caller of ROLES) {
+    if (caller === 'anonymous') continue;
+    const { isAdmin, role } = standing(caller);
+    out[caller] = canSite({ isAdmin, roles: role ? [role] : [] }, action) ? ok : 403;
+  }
+  return out;
+};
 
 const url = (u: string) => async () => ({ url: u });
 const project = (suffix = '') => async (env: CaseEnv) => ({ url: `/api/projects/${env.projectId}${suffix}` });
@@ -70,34 +92,34 @@ export const ROUTE_CASES: RouteCase[] = [
     request: async () => ({ url: '/api/me/password', body: { currentPassword: 'not the password', newPassword: 'another password 1' } }),
     expect: signedIn(400),
   },
-  { method: 'get', path: '/api/users', request: url('/api/users'), expect: adminOnly(200) },
+  { method: 'get', path: '/api/users', request: url('/api/users'), expect: bySiteRule(200, 'users:manage') },
   {
     method: 'post',
     path: '/api/users',
     request: async (_e, c) => ({ url: '/api/users', body: { email: `${unique(c)}@example.org`, displayName: 'New person' } }),
-    expect: adminOnly(201),
+    expect: bySiteRule(201, 'users:manage'),
   },
   {
     method: 'patch',
     path: '/api/users/:id',
     request: async (env, c) => ({ url: `/api/users/${await createAccount(env.db, `${unique(c)}@example.org`)}`, body: { displayName: 'Changed' } }),
-    expect: adminOnly(200),
+    expect: bySiteRule(200, 'users:manage'),
   },
   { method: 'get', path: '/api/projects', request: url('/api/projects'), expect: signedIn(200) },
   {
     method: 'post',
     path: '/api/projects',
     request: async (_e, c) => ({ url: '/api/projects', body: { name: `Project of ${c}` } }),
-    expect: { anonymous: 401, nonMember: 403, student: 403, modeller: 403, supervisor: 201, admin: 201 },
+    expect: bySiteRule(201, 'project:create'),
   },
-  { method: 'get', path: '/api/projects/:id', request: project(), expect: inProject(200, EVERYONE) },
-  { method: 'patch', path: '/api/projects/:id', request: async (env) => ({ url: `/api/projects/${env.projectId}`, body: { description: 'Updated.' } }), expect: inProject(200, []) },
-  { method: 'get', path: '/api/projects/:id/members', request: project('/members'), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/projects/:id', request: project(), expect: byRule(200, 'project:read') },
+  { method: 'patch', path: '/api/projects/:id', request: async (env) => ({ url: `/api/projects/${env.projectId}`, body: { description: 'Updated.' } }), expect: byRule(200, 'project:update') },
+  { method: 'get', path: '/api/projects/:id/members', request: project('/members'), expect: byRule(200, 'members:read') },
   {
     method: 'post',
     path: '/api/projects/:id/members',
     request: async (env, c) => ({ url: `/api/projects/${env.projectId}/members`, body: { email: `${unique(c)}@example.org`, role: 'student' } }),
-    expect: inProject(201, []),
+    expect: byRule(201, 'members:manage'),
   },
   {
     method: 'patch',
@@ -106,7 +128,7 @@ export const ROUTE_CASES: RouteCase[] = [
       const id = await createAccount(env.db, `${unique(c)}@example.org`, { projectId: env.projectId, role: 'student' });
       return { url: `/api/projects/${env.projectId}/members/${id}`, body: { role: 'modeller' } };
     },
-    expect: inProject(200, []),
+    expect: byRule(200, 'members:manage'),
   },
   {
     method: 'delete',
@@ -115,14 +137,14 @@ export const ROUTE_CASES: RouteCase[] = [
       const id = await createAccount(env.db, `${unique(c)}@example.org`, { projectId: env.projectId, role: 'student' });
       return { url: `/api/projects/${env.projectId}/members/${id}` };
     },
-    expect: inProject(204, []),
+    expect: byRule(204, 'members:manage'),
   },
-  { method: 'get', path: '/api/projects/:id/molecules', request: project('/molecules'), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/projects/:id/molecules', request: project('/molecules'), expect: byRule(200, 'molecule:read') },
   {
     method: 'post',
     path: '/api/chem/molecule',
     request: async () => ({ url: '/api/chem/molecule', body: { smiles: 'CCO' } }),
-    expect: signedIn(200),
+    expect: bySiteRule(200, 'chem:use'),
   },
   {
     method: 'post',
@@ -131,44 +153,44 @@ export const ROUTE_CASES: RouteCase[] = [
       url: '/api/chem/evaluate',
       body: { smiles: 'CCO', mapping: { beads: [{ id: 'b1', name: 'E', centre: 'mass', atoms: [{ index: 0, weight: 1 }, { index: 1, weight: 1 }, { index: 2, weight: 1 }] }] } },
     }),
-    expect: signedIn(200),
+    expect: bySiteRule(200, 'chem:use'),
   },
   {
     method: 'post',
     path: '/api/projects/:id/molecules',
     request: async (env, c) => ({ url: `/api/projects/${env.projectId}/molecules`, body: { name: `Methanol of ${c}`, smiles: 'CO', allowDuplicate: true } }),
-    expect: inProject(201, EDITORS),
+    expect: byRule(201, 'molecule:create'),
   },
   // A JSON body is not an upload: callers who may upload get 400 (no file), the rest are refused first.
-  { method: 'post', path: '/api/projects/:id/molecules/upload', request: project('/molecules/upload'), expect: inProject(400, EDITORS) },
-  { method: 'get', path: '/api/molecules/:id', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}` }), expect: inProject(200, EVERYONE) },
+  { method: 'post', path: '/api/projects/:id/molecules/upload', request: project('/molecules/upload'), expect: byRule(400, 'molecule:create') },
+  { method: 'get', path: '/api/molecules/:id', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}` }), expect: byRule(200, 'molecule:read') },
   {
     method: 'patch',
     path: '/api/molecules/:id',
     request: async (env, c) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}`, body: { notes: `Edited by ${c}.` } }),
-    expect: inProject(200, EDITORS),
+    expect: byRule(200, 'molecule:update'),
   },
   {
     method: 'delete',
     path: '/api/molecules/:id',
     request: async (env, c) => ({ url: `/api/molecules/${await createMolecule(env.db, env.projectId, `Doomed ${unique(c)}`)}` }),
-    expect: inProject(204, EDITORS),
+    expect: byRule(204, 'molecule:delete'),
   },
-  { method: 'get', path: '/api/molecules/:id/mappings', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}/mappings` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/molecules/:id/mappings', request: async (env) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}/mappings` }), expect: byRule(200, 'mapping:read') },
   {
     method: 'post',
     path: '/api/molecules/:id/mappings',
     request: async (env, c) => ({ url: `/api/molecules/${await demoMoleculeId(env.db)}/mappings`, body: { name: `Mapping of ${c}`, resolution: '2:1' } }),
-    expect: inProject(201, EDITORS),
+    expect: byRule(201, 'mapping:create'),
   },
-  { method: 'get', path: '/api/mappings/:id', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}` }), expect: byRule(200, 'mapping:read') },
   {
     method: 'patch',
     path: '/api/mappings/:id',
     request: async (env, c) => ({ url: `/api/mappings/${await demoMappingId(env.db)}`, body: { description: `Notes by ${c}.` } }),
-    expect: inProject(200, EDITORS),
+    expect: byRule(200, 'mapping:edit'),
   },
-  { method: 'get', path: '/api/projects/:id/bead-types', request: project('/bead-types'), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/projects/:id/bead-types', request: project('/bead-types'), expect: byRule(200, 'library:read') },
   {
     method: 'put',
     path: '/api/projects/:id/bead-types',
@@ -176,14 +198,14 @@ export const ROUTE_CASES: RouteCase[] = [
       url: `/api/projects/${env.projectId}/bead-types`,
       body: { types: [{ name: `X-${c}`, heavyAtomsPerBead: 4, charge: 0, deltaGMin: -5, deltaGMax: 5 }] },
     }),
-    expect: inProject(200, EDITORS),
+    expect: byRule(200, 'library:edit'),
   },
   // The caught mail holds reset links: a site admin only; anyone else gets the unknown-route 404.
   { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: { ...all(404), admin: 200 } },
   { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: { ...all(404), admin: 200 } },
   // Threads and notifications (docs/threads.md). Event streams answer 406 to a caller that does not ask
   // for text/event-stream, after the permission check; tests/api/threads-live.test.ts reads the streams.
-  { method: 'get', path: '/api/mappings/:id/threads', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/threads` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id/threads', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/threads` }), expect: byRule(200, 'thread:read') },
   {
     method: 'post',
     path: '/api/mappings/:id/threads',
@@ -191,52 +213,53 @@ export const ROUTE_CASES: RouteCase[] = [
       const mappingId = await demoMappingId(env.db);
       return { url: `/api/mappings/${mappingId}/threads`, body: { beadId: await firstBeadId(env.db, mappingId), body: `Opened by ${c}.` } };
     },
-    expect: inProject(201, EVERYONE),
+    expect: byRule(201, 'comment:create'),
   },
   {
     method: 'post',
     path: '/api/threads/:id/comments',
     request: async (env, c) => ({ url: `/api/threads/${(await sharedThread(env.db)).threadId}/comments`, body: { body: `Reply by ${c}.` } }),
-    expect: inProject(201, EVERYONE),
+    expect: byRule(201, 'comment:create'),
   },
   {
     method: 'patch',
     path: '/api/threads/:id',
     request: async (env) => ({ url: `/api/threads/${(await sharedThread(env.db)).threadId}`, body: { resolved: true } }),
-    expect: inProject(200, EVERYONE),
+    expect: byRule(200, 'comment:create'),
   },
   // Only its author (here the modeller) edits a comment; supervisors and admins may not either.
   {
     method: 'patch',
     path: '/api/comments/:id',
     request: async (env, c) => ({ url: `/api/comments/${(await sharedThread(env.db)).commentId}`, body: { body: `Edit attempt by ${c}.` } }),
-    expect: { ...inProject(200, EDITORS), supervisor: 403, admin: 403 },
+    expect: { ...byRule(200, 'comment:create'), student: 403, supervisor: 403, admin: 403 },
   },
+  // Its author (the modeller) deletes a comment under 'comment:create'; anyone else needs 'comment:moderate'.
   {
     method: 'delete',
     path: '/api/comments/:id',
     request: async (env) => ({ url: `/api/comments/${(await createThreadFixture(env.db)).commentId}` }),
-    expect: inProject(204, EDITORS),
+    expect: { ...byRule(204, 'comment:moderate'), modeller: 204 },
   },
-  { method: 'get', path: '/api/mappings/:id/events', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/events` }), expect: inProject(406, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id/events', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/events` }), expect: byRule(406, 'thread:read') },
   { method: 'get', path: '/api/notifications', request: url('/api/notifications'), expect: signedIn(200) },
   { method: 'post', path: '/api/notifications/read', request: async () => ({ url: '/api/notifications/read', body: { all: true } }), expect: signedIn(200) },
   { method: 'get', path: '/api/notifications/events', request: url('/api/notifications/events'), expect: signedIn(406) },
   { method: 'get', path: '/api/me/preferences', request: url('/api/me/preferences'), expect: signedIn(200) },
   { method: 'put', path: '/api/me/preferences', request: async () => ({ url: '/api/me/preferences', body: { emailOnMention: true, emailOnReply: false } }), expect: signedIn(200) },
   // Versions, compare, restore, the production lock, the audit trail, exports and import (docs/exports.md).
-  { method: 'get', path: '/api/mappings/:id/versions', request: async (env) => ({ url: `/api/mappings/${await shared(env).then((m) => m.mappingId)}/versions` }), expect: inProject(200, EVERYONE) },
-  { method: 'post', path: '/api/mappings/:id/versions', request: async (env, c) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions`, body: { message: `Saved by ${c}` } }), expect: inProject(201, EDITORS) },
-  { method: 'get', path: '/api/mappings/:id/versions/:n', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1` }), expect: inProject(200, EVERYONE) },
-  { method: 'post', path: '/api/mappings/:id/versions/:n/restore', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1/restore` }), expect: inProject(200, EDITORS) },
-  { method: 'get', path: '/api/mappings/:id/compare', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/compare?from=1&to=draft` }), expect: inProject(200, EVERYONE) },
-  { method: 'get', path: '/api/mappings/:id/lock', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/lock` }), expect: inProject(200, EVERYONE) },
+  { method: 'get', path: '/api/mappings/:id/versions', request: async (env) => ({ url: `/api/mappings/${await shared(env).then((m) => m.mappingId)}/versions` }), expect: byRule(200, 'mapping:read') },
+  { method: 'post', path: '/api/mappings/:id/versions', request: async (env, c) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions`, body: { message: `Saved by ${c}` } }), expect: byRule(201, 'version:save') },
+  { method: 'get', path: '/api/mappings/:id/versions/:n', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1` }), expect: byRule(200, 'mapping:read') },
+  { method: 'post', path: '/api/mappings/:id/versions/:n/restore', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/versions/1/restore` }), expect: byRule(200, 'version:restore') },
+  { method: 'get', path: '/api/mappings/:id/compare', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/compare?from=1&to=draft` }), expect: byRule(200, 'mapping:read') },
+  { method: 'get', path: '/api/mappings/:id/lock', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/lock` }), expect: byRule(200, 'mapping:read') },
   // Each caller locks (or unlocks) a mapping of its own, so one success cannot turn the next into a 409.
-  { method: 'post', path: '/api/mappings/:id/lock', request: async (env, c) => ({ url: `/api/mappings/${(await versionedMapping(env.db, `Lock ${unique(c)}`)).mappingId}/lock`, body: { version: 1 } }), expect: inProject(200, []) },
-  { method: 'post', path: '/api/mappings/:id/unlock', request: async (env, c) => ({ url: `/api/mappings/${await lockedMapping(env.db, `Unlock ${unique(c)}`)}/unlock`, body: { reason: `Unlocked by ${c}` } }), expect: inProject(200, []) },
-  { method: 'get', path: '/api/mappings/:id/audit', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/audit` }), expect: inProject(200, EVERYONE) },
-  { method: 'get', path: '/api/mappings/:id/export', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/export?format=csv&version=1` }), expect: inProject(200, EVERYONE) },
-  { method: 'get', path: '/api/projects/:id/export.zip', request: project('/export.zip'), expect: inProject(200, EVERYONE) },
+  { method: 'post', path: '/api/mappings/:id/lock', request: async (env, c) => ({ url: `/api/mappings/${(await versionedMapping(env.db, `Lock ${unique(c)}`)).mappingId}/lock`, body: { version: 1 } }), expect: byRule(200, 'mapping:lock') },
+  { method: 'post', path: '/api/mappings/:id/unlock', request: async (env, c) => ({ url: `/api/mappings/${await lockedMapping(env.db, `Unlock ${unique(c)}`)}/unlock`, body: { reason: `Unlocked by ${c}` } }), expect: byRule(200, 'mapping:lock') },
+  { method: 'get', path: '/api/mappings/:id/audit', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/audit` }), expect: byRule(200, 'mapping:read') },
+  { method: 'get', path: '/api/mappings/:id/export', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/export?format=csv&version=1` }), expect: byRule(200, 'mapping:export') },
+  { method: 'get', path: '/api/projects/:id/export.zip', request: project('/export.zip'), expect: byRule(200, 'mapping:export') },
   {
     method: 'post',
     path: '/api/molecules/:id/mappings/import',
@@ -244,7 +267,7 @@ export const ROUTE_CASES: RouteCase[] = [
       const { moleculeId } = await shared(env);
       return { url: `/api/molecules/${moleculeId}/mappings/import`, body: await importBodyFor(env.db, moleculeId) };
     },
-    expect: inProject(201, EDITORS),
+    expect: byRule(201, 'mapping:create'),
   },
 ];
 
@@ -260,4 +283,3 @@ export async function caseEnv(db: Db): Promise<CaseEnv> {
   return { db, projectId: await demoProjectId(db) };
 }
 
-export { EDITORS };

@@ -14,6 +14,7 @@ import { VersionThreads } from '../../features/threads/components/version-thread
 import { MappingHistory } from '../../features/versions/components/mapping-history';
 import { ExportMenu } from '../../features/exports/components/export-menu';
 import { useCurrentUser } from '../shell/current-user';
+import { can } from '../../shared/permissions';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
@@ -63,7 +64,8 @@ function MappingPage({ mappingId }: { mappingId: number }) {
 function MappingWithThreads(props: Parameters<typeof LiveMapping>[0]) {
   const me = useCurrentUser();
   const { projectId } = props.mapping;
-  const canModerate = me.isAdmin || me.projects.some((p) => p.projectId === projectId && p.role === 'supervisor');
+  const role = me.projects.find((p) => p.projectId === projectId)?.role ?? null;
+  const canModerate = can({ isAdmin: me.isAdmin, role }, 'comment:moderate');
   const threads = useEditorThreads({ mappingId: props.mapping.id, projectId, me: { id: me.id, canModerate } });
   return <LiveMapping {...props} threads={threads} />;
 }
@@ -71,13 +73,12 @@ function MappingWithThreads(props: Parameters<typeof LiveMapping>[0]) {
 /** Versions, the production lock, the audit trail and exports, with the caller's rights in this project. */
 function HistoryAndExports({ mapping, editor }: { mapping: NonNullable<ReturnType<typeof useMapping>['data']>; editor: () => { clientId: number; beadCount: number } | null }) {
   const me = useCurrentUser();
-  const role = me.projects.find((p) => p.projectId === mapping.projectId)?.role;
-  const canLock = me.isAdmin || role === 'supervisor';
+  const standing = { isAdmin: me.isAdmin, role: me.projects.find((p) => p.projectId === mapping.projectId)?.role ?? null };
   return (
     <MappingHistory
       mapping={mapping}
-      canEdit={canLock || role === 'modeller'}
-      canLock={canLock}
+      canEdit={can(standing, 'version:save')}
+      canLock={can(standing, 'mapping:lock')}
       exportMenu={(states, versions) => <ExportMenu mappingId={mapping.id} projectId={mapping.projectId} states={states} versions={versions} />}
       versionThreads={(n) => <VersionThreads mappingId={mapping.id} version={n} />}
       editor={editor}

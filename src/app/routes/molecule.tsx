@@ -17,6 +17,8 @@ import { useProject } from '../../features/projects/api/get-project';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
+import { can } from '../../shared/permissions';
+import { useCurrentUser } from '../shell/current-user';
 import { NotFoundRoute } from './not-found';
 
 export function MoleculeRoute() {
@@ -25,6 +27,7 @@ export function MoleculeRoute() {
 }
 
 function MoleculePage({ moleculeId }: { moleculeId: number }) {
+  const me = useCurrentUser();
   const molecule = useMolecule(moleculeId);
   const project = useProject(molecule.data?.projectId ?? 0);
   const [importing, setImporting] = useState(false);
@@ -32,7 +35,10 @@ function MoleculePage({ moleculeId }: { moleculeId: number }) {
   if (molecule.isPending) return <Loading label="Loading molecule…" />;
   if (molecule.isError) return isApiError(molecule.error) && molecule.error.status === 404 ? <NotFoundRoute /> : <ErrorAlert error={molecule.error} />;
   const m = molecule.data;
-  const canEdit = project.data?.role === 'modeller' || project.data?.role === 'supervisor';
+  // The shared rule table decides, as on the server (site admins included).
+  const standing = { isAdmin: me.isAdmin, role: project.data?.role ?? null };
+  const canEdit = can(standing, 'molecule:update');
+  const canMap = can(standing, 'mapping:create');
 
   return (
     <>
@@ -58,11 +64,11 @@ function MoleculePage({ moleculeId }: { moleculeId: number }) {
           <Section
             title="Mappings"
             description="Ways of grouping this molecule's atoms into beads."
-            actions={canEdit && <Button size="sm" variant="secondary" onClick={() => setImporting(true)}>Import a mapping…</Button>}
+            actions={canMap && <Button size="sm" variant="secondary" onClick={() => setImporting(true)}>Import a mapping…</Button>}
           >
             <MappingList moleculeId={m.id} />
           </Section>
-          {canEdit && (
+          {canMap && (
             <Section title="New mapping">
               <NewMappingForm moleculeId={m.id} />
             </Section>

@@ -17,6 +17,7 @@ import { useDocumentTitle } from '../../hooks/use-document-title';
 import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
 import { useCurrentUser } from '../shell/current-user';
+import { can } from '../../shared/permissions';
 import { NotFoundRoute } from './not-found';
 
 export function ProjectRoute() {
@@ -37,9 +38,10 @@ function ProjectPage({ projectId }: { projectId: number }) {
     return <ErrorAlert error={project.error} />;
   }
 
-  // Mirrors the server's rule: supervisors of this project and site admins manage it.
-  const canManage = me.isAdmin || project.data.role === 'supervisor';
-  const canModel = me.isAdmin || project.data.role === 'supervisor' || project.data.role === 'modeller';
+  // The shared rule table decides, as on the server.
+  const standing = { isAdmin: me.isAdmin, role: project.data.role };
+  const canManage = can(standing, 'members:manage');
+  const canModel = can(standing, 'molecule:create');
 
   return (
     <>
