@@ -1,11 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { BeadTypeLibrary } from '../../../shared/bead-types';
 import { api } from '../../../lib/api-client';
+import { beadTypeKeys } from '../../../lib/query-keys';
 
 export const getBeadTypes = (projectId: number) => api.get<BeadTypeLibrary>(`/api/projects/${projectId}/bead-types`);
 
 export const beadTypesQueryOptions = (projectId: number) =>
-  queryOptions({ queryKey: ['projects', projectId, 'bead-types'], queryFn: () => getBeadTypes(projectId) });
+  queryOptions({ queryKey: beadTypeKeys.library(projectId), queryFn: () => getBeadTypes(projectId) });
 
 export function useBeadTypes(projectId: number, enabled = true) {
   return useQuery({ ...beadTypesQueryOptions(projectId), enabled });

@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ImportOutcome, ImportPreview } from '../../../shared/exports';
 import type { MappingSummary } from '../../../shared/mappings';
 import { api } from '../../../lib/api-client';
+import { moleculeKeys } from '../../../lib/query-keys';
 
 /** The parsed JSON export as read from the file; the server validates it (shared importBody). */
 export type ImportFile = Record<string, unknown>;
@@ -20,6 +21,6 @@ export function useImportMapping(moleculeId: number) {
   return useMutation({
     mutationFn: ({ file, allowModified }: { file: ImportFile; allowModified: boolean }) => importMapping(moleculeId, file, allowModified),
     // The molecule's mapping list lives under its key.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['molecules', moleculeId] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: moleculeKeys.detail(moleculeId) }),
   });
 }

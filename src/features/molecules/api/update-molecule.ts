@@ -2,6 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DeleteMoleculeResponse, MoleculeSummary, UpdateMoleculeBody } from '../../../shared/molecules';
 import { api } from '../../../lib/api-client';
 import { moleculeQueryOptions } from './get-molecule';
+import { projectKeys } from '../../../lib/query-keys';
 
 export const updateMolecule = (moleculeId: number, body: UpdateMoleculeBody) => api.patch<MoleculeSummary>(`/api/molecules/${moleculeId}`, body);
 /** Resolves to undefined when the molecule was deleted, or to the archived molecule when it was kept. */
@@ -14,7 +15,7 @@ export function useUpdateMolecule(projectId: number, moleculeId: number) {
     onSuccess: () =>
       Promise.all([
         queryClient.invalidateQueries({ queryKey: moleculeQueryOptions(moleculeId).queryKey }),
-        queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+        queryClient.invalidateQueries({ queryKey: projectKeys.detail(projectId) }),
       ]),
   });
 }
@@ -25,7 +26,7 @@ export function useDeleteMolecule(projectId: number, moleculeId: number) {
     mutationFn: () => deleteMolecule(moleculeId),
     onSuccess: (archived) =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+        queryClient.invalidateQueries({ queryKey: projectKeys.detail(projectId) }),
         archived ? queryClient.invalidateQueries({ queryKey: moleculeQueryOptions(moleculeId).queryKey }) : undefined,
       ]),
   });

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { UPLOAD_FIELD, type UploadResponse } from '../../../shared/molecules';
 import { api, isApiError } from '../../../lib/api-client';
+import { projectKeys } from '../../../lib/query-keys';
 
 /** A molfile or SDF, one molecule per record. When no record imports (422), the per-record results still come back. */
 export async function uploadMolecules(projectId: number, file: File): Promise<UploadResponse> {
@@ -19,6 +20,6 @@ export function useUploadMolecules(projectId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (file: File) => uploadMolecules(projectId, file),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['projects', projectId] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.detail(projectId) }),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AddMemberBody, Member } from '../../../shared/projects';
 import { api } from '../../../lib/api-client';
-import { projectQueryOptions } from './get-project';
+import { projectKeys } from '../../../lib/query-keys';
 
 /** Adds a member by e-mail; an unknown address gets an account and an invitation. */
 export function addMember(projectId: number, body: AddMemberBody): Promise<Member> {
@@ -13,6 +13,6 @@ export function useAddMember(projectId: number) {
   return useMutation({
     mutationFn: (body: AddMemberBody) => addMember(projectId, body),
     // The project key is a prefix of its members key: both refresh (the count too).
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectQueryOptions(projectId).queryKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: projectKeys.detail(projectId) }),
   });
 }

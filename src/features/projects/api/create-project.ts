@@ -1,8 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateProjectBody, ProjectSummary } from '../../../shared/projects';
 import { api } from '../../../lib/api-client';
-import { meQueryKey } from '../../../lib/query-keys';
-import { projectsQueryOptions } from './get-projects';
+import { meKeys, projectKeys } from '../../../lib/query-keys';
 
 export function createProject(body: CreateProjectBody): Promise<ProjectSummary> {
   return api.post<ProjectSummary>('/api/projects', body);
@@ -14,8 +13,8 @@ export function useCreateProject() {
     mutationFn: createProject,
     // The creator becomes its supervisor, so their own roles change too.
     onSuccess: () => Promise.all([
-      queryClient.invalidateQueries({ queryKey: projectsQueryOptions().queryKey }),
-      queryClient.invalidateQueries({ queryKey: meQueryKey }),
+      queryClient.invalidateQueries({ queryKey: projectKeys.all }),
+      queryClient.invalidateQueries({ queryKey: meKeys.me }),
     ]),
   });
 }

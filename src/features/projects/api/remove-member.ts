@@ -1,7 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
-import { meQueryKey } from '../../../lib/query-keys';
-import { projectsQueryOptions } from './get-projects';
+import { meKeys, projectKeys } from '../../../lib/query-keys';
 
 export function removeMember(projectId: number, userId: number): Promise<void> {
   return api.delete(`/api/projects/${projectId}/members/${userId}`);
@@ -12,8 +11,8 @@ export function useRemoveMember(projectId: number) {
   return useMutation({
     mutationFn: (userId: number) => removeMember(projectId, userId),
     onSuccess: () => Promise.all([
-      queryClient.invalidateQueries({ queryKey: projectsQueryOptions().queryKey }),
-      queryClient.invalidateQueries({ queryKey: meQueryKey }),
+      queryClient.invalidateQueries({ queryKey: projectKeys.all }),
+      queryClient.invalidateQueries({ queryKey: meKeys.me }),
     ]),
   });
 }

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { Member } from '../../../shared/projects';
 import { api } from '../../../lib/api-client';
+import { projectKeys } from '../../../lib/query-keys';
 
 export interface MentionCandidate {
   userId: number;
@@ -15,7 +16,7 @@ export async function getMentionCandidates(projectId: number): Promise<MentionCa
 }
 
 export const mentionCandidatesQueryOptions = (projectId: number) =>
-  queryOptions({ queryKey: ['projects', projectId, 'members', 'mentions'], queryFn: () => getMentionCandidates(projectId), staleTime: 60_000 });
+  queryOptions({ queryKey: projectKeys.mentionCandidates(projectId), queryFn: () => getMentionCandidates(projectId), staleTime: 60_000 });
 
 export function useMentionCandidates(projectId: number) {
   return useQuery(mentionCandidatesQueryOptions(projectId));

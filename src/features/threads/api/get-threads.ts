@@ -1,12 +1,13 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import type { Thread } from '../../../shared/threads';
 import { api } from '../../../lib/api-client';
+import { threadKeys } from '../../../lib/query-keys';
 
 export function getThreads(mappingId: number): Promise<Thread[]> {
   return api.get<Thread[]>(`/api/mappings/${mappingId}/threads`);
 }
 
-export const threadsQueryOptions = (mappingId: number) => queryOptions({ queryKey: ['mappings', mappingId, 'threads'], queryFn: () => getThreads(mappingId) });
+export const threadsQueryOptions = (mappingId: number) => queryOptions({ queryKey: threadKeys.list(mappingId), queryFn: () => getThreads(mappingId) });
 
 /** Every thread of a mapping (open and resolved); the panel filters. */
 export function useThreads(mappingId: number) {
@@ -24,7 +25,7 @@ export function upsertThread(queryClient: QueryClient, thread: Thread): void {
 
 /** The threads on the beads a saved version contains (GET …/threads?version=N). */
 export const versionThreadsQueryOptions = (mappingId: number, version: number) =>
-  queryOptions({ queryKey: ['mappings', mappingId, 'threads', { version }], queryFn: () => api.get<Thread[]>(`/api/mappings/${mappingId}/threads?version=${version}`) });
+  queryOptions({ queryKey: threadKeys.ofVersion(mappingId, version), queryFn: () => api.get<Thread[]>(`/api/mappings/${mappingId}/threads?version=${version}`) });
 
 export function useVersionThreads(mappingId: number, version: number) {
   return useQuery(versionThreadsQueryOptions(mappingId, version));

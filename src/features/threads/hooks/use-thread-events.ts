@@ -2,6 +2,7 @@ import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { ThreadEvent } from '../../../shared/threads';
 import { threadsQueryOptions, upsertThread } from '../api/get-threads';
+import { threadKeys } from '../../../lib/query-keys';
 
 /**
  * Keeps the mapping's thread cache live from its server-sent event stream: every pushed thread goes
@@ -15,7 +16,7 @@ export function useThreadEvents(mappingId: number): void {
     source.addEventListener('thread', (e) => {
       upsertThread(queryClient, (JSON.parse((e as MessageEvent<string>).data) as ThreadEvent).thread);
       // Lists of a version's threads (longer keys under the same prefix) refetch.
-      void queryClient.invalidateQueries({ queryKey: threadsQueryOptions(mappingId).queryKey, predicate: (q) => q.queryKey.length > 3 });
+      void queryClient.invalidateQueries({ queryKey: threadsQueryOptions(mappingId).queryKey, predicate: (q) => threadKeys.isVersionList(q.queryKey) });
     });
     return () => source.close();
   }, [mappingId, queryClient]);

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { UpdateUserBody, UserSummary } from '../../../shared/users';
 import { api } from '../../../lib/api-client';
-import { meQueryKey } from '../../../lib/query-keys';
+import { meKeys } from '../../../lib/query-keys';
 import { usersQueryOptions } from './get-users';
 
 /** Renames, grants or revokes admin, disables or enables; disabling ends the account's sessions. */
@@ -16,7 +16,7 @@ export function useUpdateUser() {
     // An admin may change their own flags.
     onSettled: () => Promise.all([
       queryClient.invalidateQueries({ queryKey: usersQueryOptions().queryKey }),
-      queryClient.invalidateQueries({ queryKey: meQueryKey }),
+      queryClient.invalidateQueries({ queryKey: meKeys.me }),
     ]),
   });
 }
