@@ -1,8 +1,10 @@
 import type { ExportSource } from './export-source';
 import { stateLabel } from './export-source';
+import { csvCommentLine, writeCsv } from '../../src/shared/csv';
 
-// The mapping table as RFC 4180 CSV (comma, CRLF, fields with a comma, quote, line break or a
-// leading '#' quoted). Lines starting with '#' before the header carry the mapping, version and
+// The mapping table as RFC 4180 CSV written by papaparse (comma, CRLF, fields with a comma, quote, line
+// break or a leading '#' quoted; text cells a spreadsheet would run as a formula escaped with ' — see
+// src/shared/csv.ts). Lines starting with '#' before the header carry the mapping, version and
 // SHA-256; standard readers skip them with a comment option (papaparse: `comments: '#'`).
 // Partition columns: both estimates (atom sum, fragment), the modeller's measured value and its
 // source, and the value suggestions use (`dG_OW_kJ_per_mol`, from `partition_source`: measured,
@@ -17,7 +19,6 @@ export const CSV_COLUMNS = [
 
 export const IONIC = 'n/a (ionic)';
 
-const field = (v: string) => (/[",\r\n]|^#/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
 const num = (v: number | null | undefined, digits: number) => (typeof v === 'number' && Number.isFinite(v) ? v.toFixed(digits) : '');
 
 /** What each text export is, said in its first header line (docs/exports.md). */
@@ -43,7 +44,7 @@ export function toCsv(s: ExportSource): string {
       b.atoms.map((a) => a.index + 1).join(' '),
       b.atoms.map((a) => String(a.weight)).join(' '),
       num(e?.mass, 4),
-      e ? String(e.charge) : '',
+      e ? e.charge : '',
       e ? (e.ionic ? 'yes' : 'no') : '',
       estimate(e?.logP, 3),
       estimate(e?.fragmentLogP, 3),
@@ -59,6 +60,6 @@ export function toCsv(s: ExportSource): string {
       num(e?.centre?.[2], 3),
     ];
   });
-  const comments = headerLines(s, FILE_TITLES.csv).map((l) => `# ${l.replace(/[\r\n]+/g, ' ')}`);
-  return [...comments, CSV_COLUMNS.join(','), ...rows.map((r) => r.map(field).join(','))].join('\r\n') + '\r\n';
+  const comments = headerLines(s, FILE_TITLES.csv).map(csvCommentLine);
+  return [...comments, ''].join('\r\n') + writeCsv([CSV_COLUMNS, ...rows], { newline: '\r\n', quoteLeadingHash: true });
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { readCsv, unescapeFormulaCell, writeCsv } from './csv';
 
 // A project's bead type library: the table bead type suggestions are drawn from. Edited as a whole
 // (`PUT /api/projects/:id/bead-types` replaces it), imported and exported as CSV with BEAD_TYPE_CSV_COLUMNS.
@@ -51,10 +52,10 @@ export interface BeadTypeLibrary {
 
 export const BEAD_TYPE_CSV_COLUMNS = ['name', 'heavy_atoms_per_bead', 'charge', 'delta_g_min', 'delta_g_max', 'description'] as const;
 
+/** The library as CSV (LF line ends); numbers are written as numbers, text cells a spreadsheet would run are escaped. */
 export function beadTypesToCsv(types: readonly BeadTypeRow[]): string {
-  const cell = (v: string | number) => (typeof v === 'string' && /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : String(v));
-  const rows = types.map((t) => [t.name, t.heavyAtomsPerBead, t.charge, t.deltaGMin, t.deltaGMax, t.description].map(cell).join(','));
-  return [BEAD_TYPE_CSV_COLUMNS.join(','), ...rows].join('\n') + '\n';
+  const rows = types.map((t) => [t.name, t.heavyAtomsPerBead, t.charge, t.deltaGMin, t.deltaGMax, t.description]);
+  return writeCsv([BEAD_TYPE_CSV_COLUMNS, ...rows], { newline: '\n' });
 }
 
 export type CsvResult = { ok: true; types: BeadTypeRow[] } | { ok: false; line: number; message: string };
@@ -65,13 +66,14 @@ export type CsvResult = { ok: true; types: BeadTypeRow[] } | { ok: false; line: 
  * as 4 / 3 / 2 heavy atoms per bead.
  */
 export function beadTypesFromCsv(text: string): CsvResult {
-  const lines = splitCsv(text).filter((cells) => cells.some((c) => c.trim() !== ''));
+  const { rows: lines, error } = readCsv(text);
+  if (error) return { ok: false, line: 1, message: error };
   if (lines.length === 0) return { ok: false, line: 1, message: 'The file is empty.' };
   const header = lines[0].map((h) => h.trim().toLowerCase());
   const legacySize = !header.includes('heavy_atoms_per_bead') && header.includes('size_class');
   const missing = BEAD_TYPE_CSV_COLUMNS.filter((c) => c !== 'description' && !(legacySize && c === 'heavy_atoms_per_bead') && !header.includes(c));
   if (missing.length) return { ok: false, line: 1, message: `Missing column(s): ${missing.join(', ')}.` };
-  const at = (cells: string[], col: string) => cells[header.indexOf(col)]?.trim() ?? '';
+  const at = (cells: string[], col: string) => unescapeFormulaCell(cells[header.indexOf(col)]?.trim() ?? '');
   const num = (s: string) => (s === '' ? Number.NaN : Number(s));
   const types: BeadTypeRow[] = [];
   for (let i = 1; i < lines.length; i++) {
@@ -88,27 +90,4 @@ export function beadTypesFromCsv(text: string): CsvResult {
     types.push(parsed.data);
   }
   return { ok: true, types };
-}
-
-/** RFC 4180 cells: quoted fields may hold commas, quotes ("") and newlines. */
-function splitCsv(text: string): string[][] {
-  const rows: string[][] = [];
-  let row: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const ch = text[i];
-    if (quoted) {
-      if (ch === '"' && text[i + 1] === '"') (cell += '"'), i++;
-      else if (ch === '"') quoted = false;
-      else cell += ch;
-    } else if (ch === '"') quoted = true;
-    else if (ch === ',') row.push(cell), (cell = '');
-    else if (ch === '\n' || ch === '\r') {
-      if (ch === '\r' && text[i + 1] === '\n') i++;
-      row.push(cell), rows.push(row), (row = []), (cell = '');
-    } else cell += ch;
-  }
-  if (cell !== '' || row.length) row.push(cell), rows.push(row);
-  return rows;
 }
