@@ -73,7 +73,12 @@ function walkMapping(m: Molecule): Mapping {
     const queue = [s];
     for (let q = 0; q < queue.length; q++) {
       order.push(queue[q]);
-      for (const x of nb[queue[q]]) if (!seen[x]) (seen[x] = 1), queue.push(x);
+      for (const x of nb[queue[q]]) {
+        if (!seen[x]) {
+          seen[x] = 1;
+          queue.push(x);
+        }
+      }
     }
   }
   const beads = [];

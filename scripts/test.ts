@@ -1,7 +1,8 @@
-// `npm test`: a throwaway MariaDB on a free port in a temp dir, the client
+// `npm test`: the linters (`npm run lint`), a throwaway MariaDB on a free port in a temp dir, the client
 // build (the browser tests serve it), then every suite with vitest: unit, API and collab
 // first, then the browser tests. MariaDB stops and the temp dir goes, pass or fail.
-// Extra arguments go to vitest, e.g. `npm test -- --project unit`.
+// Extra arguments go to vitest, e.g. `npm test -- --project unit`; such a partial run skips the
+// linters (run `npm run lint` yourself, or set BEADLOOM_LINT=1).
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,6 +13,14 @@ import { randomSecret } from './lib/secrets';
 import { bin, run } from './lib/run';
 
 const args = process.argv.slice(2);
+// The linters first: they need no database, and a failure should not wait for the test suites.
+if (args.length === 0 || process.env.BEADLOOM_LINT === '1') {
+  console.log('[beadloom] linting (npm run lint)…');
+  if ((await run('npm', ['run', '--silent', 'lint'])) !== 0) {
+    console.error('[beadloom] npm run lint failed (see the messages above); no tests were run. Fix the findings and run npm test again.');
+    process.exit(1);
+  }
+}
 const chromium = ensureChromium();
 const dir = mkdtempSync(join(tmpdir(), 'beadloom-test-'));
 const mariadb = await startMariaDb({ dataDir: dir, port: await freePort(), database: 'beadloom_test', user: 'beadloom', password: randomSecret(16) });

@@ -63,7 +63,10 @@ export function fragmentModels(molecule: Molecule, p: Prepared, members: number[
       const a = stack.pop()!;
       for (let k = p.adjStart[a]; k < p.adjStart[a + 1]; k++) {
         const b = p.adj[k];
-        if (system[b] < 0 && isAromatic(a, b)) (system[b] = systems), stack.push(b);
+        if (system[b] < 0 && isAromatic(a, b)) {
+          system[b] = systems;
+          stack.push(b);
+        }
       }
     }
     systems++;
@@ -96,7 +99,10 @@ export function fragmentModels(molecule: Molecule, p: Prepared, members: number[
   return pairings.map((pairs) => {
     const paired = new Int32Array(members.length);
     const double = new Set(pairs.map(([i, j]) => `${i},${j}`));
-    for (const [i, j] of pairs) paired[i]++, paired[j]++;
+    for (const [i, j] of pairs) {
+      paired[i]++;
+      paired[j]++;
+    }
     return {
       atoms: atoms.map((atom, i) => ({ ...atom, hydrogens: atom.hydrogens + Math.max(0, need[i] - paired[i]) })),
       bonds: bonds.map((b) => (double.has(`${b.a},${b.b}`) ? { ...b, order: 2 } : b)),
@@ -124,7 +130,10 @@ export function maximumMatchings(n: number, edges: [number, number][]): [number,
     // Bound: even taking every remaining edge cannot beat the best found.
     if (chosen.length + (edges.length - e) < best) return;
     if (e === edges.length) {
-      if (chosen.length > best) (best = chosen.length), (found = []);
+      if (chosen.length > best) {
+        best = chosen.length;
+        found = [];
+      }
       if (chosen.length === best && found.length < MAX_PAIRINGS) found.push([...chosen]);
       return;
     }

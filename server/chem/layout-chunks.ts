@@ -24,7 +24,14 @@ export function chunkAtoms(n: number, bonds: readonly { a: number; b: number }[]
     const id = members.length;
     const list = [s];
     block[s] = id;
-    for (let q = 0; q < list.length; q++) for (const v of list[q] === undefined ? [] : adj[list[q]]) if (block[v] === -1 && ringBond(list[q], v)) (block[v] = id), list.push(v);
+    for (let q = 0; q < list.length; q++) {
+      for (const v of list[q] === undefined ? [] : adj[list[q]]) {
+        if (block[v] === -1 && ringBond(list[q], v)) {
+          block[v] = id;
+          list.push(v);
+        }
+      }
+    }
     members.push(list);
   }
   const chunk = new Int32Array(n).fill(-1);

@@ -96,7 +96,12 @@ function path(adj: number[][], from: number, to: number): number[] | null {
   for (let q = 0; q < queue.length; q++) {
     const u = queue[q];
     if (u === to) break;
-    for (const v of adj[u]) if (prev[v] === -2) (prev[v] = u), queue.push(v);
+    for (const v of adj[u]) {
+      if (prev[v] === -2) {
+        prev[v] = u;
+        queue.push(v);
+      }
+    }
   }
   if (prev[to] === -2) return null;
   const out = [to];
@@ -110,7 +115,14 @@ function side(adj: number[][], start: number, not: number): number[] {
   seen[start] = 1;
   seen[not] = 1;
   const out = [start];
-  for (let q = 0; q < out.length; q++) for (const v of adj[out[q]]) if (!seen[v]) (seen[v] = 1), out.push(v);
+  for (let q = 0; q < out.length; q++) {
+    for (const v of adj[out[q]]) {
+      if (!seen[v]) {
+        seen[v] = 1;
+        out.push(v);
+      }
+    }
+  }
   return out;
 }
 

@@ -125,7 +125,12 @@ function searchOrder(adj: Adjacent[][], colour: number[], byColour: Map<number, 
     const queue = [start];
     for (let q = 0; q < queue.length; q++) {
       order.push(queue[q]);
-      for (const n of adj[queue[q]]) if (!seen[n.atom]) (seen[n.atom] = 1), queue.push(n.atom);
+      for (const n of adj[queue[q]]) {
+        if (!seen[n.atom]) {
+          seen[n.atom] = 1;
+          queue.push(n.atom);
+        }
+      }
     }
   }
   return order;

@@ -91,8 +91,8 @@ describe('partition values of ionic beads and measured values', () => {
 
   it('PDB: a REMARK 3 line per bead with its charge and partition value', async () => {
     const text = (await exported('pdb')).text;
-    expect(text).toMatch(/^REMARK   3 bead +1 charge 0\.00 dG_OW 8\.56 kJ\/mol \(measured\)$/m);
-    expect(text).toMatch(/^REMARK   3 bead +2 charge -1\.00 dG_OW n\/a \(ionic\)$/m);
+    expect(text).toMatch(/^REMARK {3}3 bead +1 charge 0\.00 dG_OW 8\.56 kJ\/mol \(measured\)$/m);
+    expect(text).toMatch(/^REMARK {3}3 bead +2 charge -1\.00 dG_OW n\/a \(ionic\)$/m);
     for (const line of text.split('\n')) expect(line.length).toBeLessThanOrEqual(80);
   });
 

@@ -55,7 +55,10 @@ export const BeadInspector = memo(function BeadInspector({ ctx, bead, evaluation
           onBlur={commitName}
           onKeyDown={(e) => {
             if (e.key === 'Enter') e.currentTarget.blur();
-            if (e.key === 'Escape') (setName(bead.name), e.currentTarget.blur());
+            if (e.key === 'Escape') {
+              setName(bead.name);
+              e.currentTarget.blur();
+            }
           }}
           className={`${control} font-bold`}
         />

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState, type KeyboardEvent } from 'react';
+import { useEffect, useEffectEvent, useMemo, useState, type KeyboardEvent } from 'react';
 import type { BeadTypeRow } from '../../../shared/bead-types';
 import type { Check, Molecule } from '../../../shared/chem';
 import type { MappingDetail } from '../../../shared/mappings';
@@ -40,8 +40,10 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
   // A deep link (?bead=) selects its bead once the draft has it (once per link, not on every render).
   const linked = threads?.selectBead ?? null;
   const linkedPresent = !!linked && view.byId.has(linked);
+  // An effect event: it reads the latest editor state without making every render re-select the bead.
+  const selectLinked = useEffectEvent((beadId: string) => state.selectBead(beadId, false));
   useEffect(() => {
-    if (linked && linkedPresent) state.selectBead(linked, false);
+    if (linked && linkedPresent) selectLinked(linked);
   }, [linked, linkedPresent]);
 
   const onKeyDown = (e: KeyboardEvent) => {

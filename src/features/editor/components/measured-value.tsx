@@ -18,12 +18,16 @@ export function MeasuredValue({ ctx, bead, evaluation }: { ctx: EditorContext; b
   const [value, setValue] = useState(stored ? String(stored.value) : '');
   const [source, setSource] = useState(stored?.source ?? '');
   const [problem, setProblem] = useState<string | null>(null);
+  // The form follows the stored value's fields (not the object, which is new on every draft change).
+  const storedKind = stored?.kind;
+  const storedValue = stored?.value;
+  const storedSource = stored?.source;
   useEffect(() => {
-    setKind(stored?.kind ?? 'logP');
-    setValue(stored ? String(stored.value) : '');
-    setSource(stored?.source ?? '');
+    setKind(storedKind ?? 'logP');
+    setValue(storedValue === undefined ? '' : String(storedValue));
+    setSource(storedSource ?? '');
     setProblem(null);
-  }, [stored?.kind, stored?.value, stored?.source, bead.id]);
+  }, [storedKind, storedValue, storedSource, bead.id]);
 
   const save = () => {
     const candidate = { kind, value: value.trim() === '' ? Number.NaN : Number(value), source: source.trim() };

@@ -30,7 +30,10 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   const drawing = useMemo(() => layoutMolecule(molecule, showHydrogens), [molecule, showHydrogens]);
   const neighbours = useMemo(() => {
     const n: number[][] = molecule.atoms.map(() => []);
-    for (const b of molecule.bonds) (n[b.a].push(b.b), n[b.b].push(b.a));
+    for (const b of molecule.bonds) {
+      n[b.a].push(b.b);
+      n[b.b].push(b.a);
+    }
     return n;
   }, [molecule]);
 
