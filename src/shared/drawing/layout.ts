@@ -21,8 +21,10 @@ export interface DrawnAtom extends Point {
   element: string;
   label: string | null;
   charge: string | null;
-  /** An attachment point (`*` in a repeat unit): drawn as a marker, not as an element symbol. */
+  /** An attachment point (`*` in a repeat unit): drawn as an attachment mark, not as an element symbol. */
   attachment: boolean;
+  /** For an attachment point: the unit direction of its bond, from its neighbour towards it (null when unbonded). */
+  bondDirection?: Point | null;
 }
 
 export interface DrawnLine {
@@ -84,9 +86,11 @@ export function layoutMolecule(molecule: Pick<Molecule, 'atoms' | 'bonds'>, show
       label: attachment ? null : atomLabel(a, neighbours[i].length, showHydrogens),
       charge: chargeLabel(a.charge),
       attachment,
+      ...(attachment ? { bondDirection: awayFrom(pos[i], neighbours[i].map((j) => pos[j])) } : {}),
     };
   });
-  const gapAt = (i: number) => drawnAtoms[i].label !== null || drawnAtoms[i].attachment;
+  // An attachment point's bond runs right up to its mark (attachment-mark.ts), so only labels leave a gap.
+  const gapAt = (i: number) => drawnAtoms[i].label !== null;
 
   const rings = smallRings(atoms.length, bonds);
   const ringOf = (b: Bond) => rings.find((r) => r.includes(b.a) && r.includes(b.b) && Math.abs(r.indexOf(b.a) - r.indexOf(b.b)) % (r.length - 1) <= 1);
@@ -137,6 +141,19 @@ export function layoutMolecule(molecule: Pick<Molecule, 'atoms' | 'bonds'>, show
     ? { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) }
     : { minX: 0, minY: 0, maxX: 0, maxY: 0 };
   return { atoms: drawnAtoms, lines, aromaticRings, hydrogens, bounds };
+}
+
+/** The mean unit direction from an atom's neighbours to the atom (null without neighbours). */
+function awayFrom(p: Point, neighbours: Point[]): Point | null {
+  let x = 0;
+  let y = 0;
+  for (const q of neighbours) {
+    const len = Math.hypot(p.x - q.x, p.y - q.y) || 1;
+    x += (p.x - q.x) / len;
+    y += (p.y - q.y) / len;
+  }
+  const len = Math.hypot(x, y);
+  return len > 1e-9 ? { x: x / len, y: y / len } : null;
 }
 
 function normal(p: Point, q: Point): Point {

@@ -1,4 +1,5 @@
 import type { Molecule } from '../chem';
+import { attachmentMarkPath } from './attachment-mark';
 import { hullPath, type Point } from './hull';
 import { BOND, layoutMolecule, type Drawing } from './layout';
 import { placeBeadTags, TAG_HEIGHT } from './bead-labels';
@@ -31,7 +32,7 @@ export interface PictureBead {
   colour: string;
 }
 
-/** Bonds, aromatic circles, hydrogens, atom symbols, charges and attachment points. */
+/** Bonds, aromatic circles, hydrogens, atom symbols, charges and attachment marks (attachment-mark.ts). */
 export function structureMarkup(drawing: Drawing): string {
   const { ink, inkSoft, paper, attachment } = DRAWING_COLOURS;
   const out: string[] = [];
@@ -52,7 +53,7 @@ export function structureMarkup(drawing: Drawing): string {
   out.push(`<g font-family="${FONT_FAMILY}" font-size="${f(BOND * 0.42)}" font-weight="600" text-anchor="middle" dominant-baseline="central" stroke="${paper}" stroke-linejoin="round" paint-order="stroke">`);
   for (const a of drawing.atoms) {
     if (a.attachment) {
-      out.push(`<g data-attachment="${a.index + 1}"><circle cx="${f(a.x)}" cy="${f(a.y)}" r="${f(BOND * 0.2)}" fill="${paper}" stroke="${attachment}" stroke-width="2" stroke-dasharray="3 2"/><text x="${f(a.x)}" y="${f(a.y + BOND * 0.06)}" fill="${attachment}" stroke-width="0">*</text></g>`);
+      out.push(`<path d="${attachmentMarkPath(a, a.bondDirection)}" fill="none" stroke="${attachment}" stroke-width="2.4" stroke-linecap="round" data-attachment="${a.index + 1}"/>`);
       continue;
     }
     if (a.label) out.push(`<text x="${f(a.x)}" y="${f(a.y)}" fill="${ink}" stroke-width="5">${labelText(a.label)}</text>`);

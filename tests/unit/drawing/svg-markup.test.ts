@@ -40,8 +40,24 @@ describe('molecule pictures', () => {
       bonds: [{ a: 0, b: 1, order: 1, aromatic: false }, { a: 1, b: 2, order: 1, aromatic: false }],
     };
     const svg = moleculeSvg(unit);
-    expect(svg.match(/data-attachment=/g)).toHaveLength(2);
-    expect(svg).not.toMatch(/>\*<\/text>.*>\*<\/text>.*>\*</s);
+    // Each attachment point is a wavy mark (a path of three quadratic half-waves) and no `*` text.
+    const marks = [...svg.matchAll(/<path d="([^"]+)"[^>]*data-attachment="(\d+)"/g)];
+    expect(marks.map((m) => m[2])).toEqual(['1', '3']);
+    for (const [, d] of marks) expect(d).toMatch(/^M[-\d. ]+(Q[-\d. ]+){3}$/);
+    expect(svg).not.toContain('*');
+    // The mark is square to its bond and centred on the point: atom 1 sits at (0, 0) with its bond
+    // along x, so the wave runs along y from −0.3 to +0.3 bond lengths (attachment-mark.ts).
+    const ends = /^M(-?[\d.]+) (-?[\d.]+).*?(-?[\d.]+) (-?[\d.]+)$/.exec(marks[0][1])!.slice(1).map(Number);
+    expect(ends).toEqual([0, BOND * 0.3, 0, -BOND * 0.3]);
+    // The bond runs right up to the attachment point (no gap as for a symbol).
+    expect(svg).toContain(`<line x1="0" y1="0" x2="${BOND}" y2="0"/>`);
+  });
+
+  it('mark the attachment points of a parsed repeat unit (*CC(*)c1ccccc1) the same way', async () => {
+    const unit = await parseMolecule({ smiles: '*CC(*)c1ccccc1' });
+    const svg = moleculeSvg(unit);
+    expect(svg.match(/<path [^>]*data-attachment=/g)).toHaveLength(2);
+    expect(svg).not.toContain('*');
   });
 
   it('place bead tags off atom symbols', () => {
