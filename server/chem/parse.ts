@@ -8,6 +8,7 @@
  */
 import { Molecule } from 'openchemlib';
 import { ChemError, LIMITS } from './errors';
+import { placeMolfileAttachments, refuseMolfileQuery } from './molfile-attachments';
 import { kekulizeWithRdkit } from './rdkit-kekule';
 import { checkSmilesText } from './smiles-text';
 
@@ -112,16 +113,18 @@ function parseMolfileText(raw: string): ParsedInput {
   if (records.length > 1) warnings.push(`The SD file holds ${records.length} records; only the first was read.`);
   const text = records[0];
   checkMolfileBlocks(text);
+  const placed = placeMolfileAttachments(text);
   let mol: OclMolecule;
   try {
-    mol = Molecule.fromMolfile(text);
+    mol = Molecule.fromMolfile(placed.text);
   } catch (err) {
     const reason = err instanceof Error ? err.message : String(err);
     throw new ChemError('unparseable_molfile', `The molfile could not be read: ${reason}.`, { reason });
   }
+  refuseMolfileQuery(mol);
   checkParsed(mol, 'molfile', false);
   const declared3D = (text.split('\n')[1] ?? '').slice(20, 22) === '3D';
-  return { mol, source: 'molfile', declared3D, warnings, attachments: new Set() };
+  return { mol, source: 'molfile', declared3D, warnings, attachments: placed.atoms.length ? placeholderAtoms(mol) : new Set() };
 }
 
 const ATOM_LINE = /^\s*-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+-?\d+(\.\d+)?\s+[A-Za-z*#][A-Za-z0-9]*/;
@@ -205,8 +208,9 @@ function checkParsed(mol: OclMolecule, source: 'smiles' | 'molfile', aromaticInp
   for (let i = 0; i < n; i++) {
     const atomicNo = mol.getAtomicNo(i);
     const label = `Atom ${i + 1} (${mol.getAtomLabel(i)})`;
-    if (atomicNo === ATTACHMENT_PLACEHOLDER && source === 'smiles') continue;
-    if (atomicNo === 0 || atomicNo > 118 || atomicNo === ATTACHMENT_PLACEHOLDER) {
+    // A placeholder stands for `*` (SMILES) or `*`/`R`/`R#` (molfile); a real Rf was refused before parsing.
+    if (atomicNo === ATTACHMENT_PLACEHOLDER) continue;
+    if (atomicNo === 0 || atomicNo > 118) {
       throw new ChemError('unsupported_atom', `${label} is not a chemical element Beadloom can weigh.`, { atom: i + 1 });
     }
     if (atomicNo === 1 && mol.getAllConnAtoms(i) > 1) {
