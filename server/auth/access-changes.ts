@@ -2,7 +2,7 @@
  * Changes of who may do what, for the holders of long-lived access: an open collaboration socket was
  * authorised once, at its upgrade, so the services that change a membership, an account, a mapping's
  * lock or a session publish the change here, and the collab server re-decides every affected
- * connection with the permission module (server/collab/access-follow.ts).
+ * connection with the permission module (server/drafts/collab-access.ts).
  *
  * Publish after the change is committed: a listener re-reads MariaDB and must see it. Listeners run
  * synchronously and must not throw (they start their own async work).

@@ -3,10 +3,13 @@ import { migrationSource } from '../../migrations';
 
 export type Db = Knex;
 
+/** mysql2's settings for the app's connections (the pool's, and the update log's own connection). */
+export const connectionOptions = (databaseUrl: string) => ({ uri: databaseUrl, dateStrings: false, timezone: 'Z', charset: 'utf8mb4', supportBigNumbers: true });
+
 export function createDb(databaseUrl: string): Knex {
   return knexFactory({
     client: 'mysql2',
-    connection: { uri: databaseUrl, dateStrings: false, timezone: 'Z', charset: 'utf8mb4', supportBigNumbers: true } as Knex.MySql2ConnectionConfig & { uri: string },
+    connection: connectionOptions(databaseUrl) as Knex.MySql2ConnectionConfig & { uri: string },
     pool: { min: 0, max: 10 },
   });
 }

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import type { Rooms } from '../collab/rooms';
+import type { Rooms } from '../drafts/rooms';
 import { validate } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';

@@ -3,7 +3,7 @@ import type { AppContext } from '../context';
 import type { LockState } from '../../src/shared/versions';
 import { conflict, unprocessable } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
-import type { Rooms } from '../collab/rooms';
+import type { Rooms } from '../drafts/rooms';
 
 // The production lock. `mapping_locks` has one row per locked mapping (its primary key), so when two
 // supervisors lock at once exactly one INSERT succeeds and the other answers 409. The lock is taken on

@@ -11,7 +11,7 @@ import type { Mapping } from '../../src/shared/chem';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
 import { createMapping, findMapping, listMappings, updateMapping } from './mappings.service';
-import type { EvaluationResult } from './evaluation';
+import type { EvaluationResult } from '../drafts/evaluate-draft';
 import { assertUnlocked } from '../lock/lock.service';
 
 const params = z.object({ id: idParam });

@@ -4,9 +4,9 @@ import type { Mapping } from '../../src/shared/chem';
 import type { CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
 import { mappingToDoc } from '../../src/shared/mapping-doc';
 import { notFound } from '../http/errors';
-import { writeSnapshot } from '../collab/draft-store';
+import { writeSnapshot } from '../drafts/drafts.service';
 
-// Knex for `mappings`. The draft itself lives in mapping_updates / mapping_snapshots (collab/draft-store).
+// Knex for `mappings`. The draft itself lives in mapping_updates / mapping_snapshots (drafts/drafts.service.ts).
 
 interface MappingRow {
   id: number;
@@ -73,9 +73,4 @@ export async function createMapping(db: Db, moleculeId: number, body: CreateMapp
 
 export async function updateMapping(db: Db, id: number, patch: UpdateMappingBody): Promise<void> {
   await db('mappings').where({ id }).update({ ...patch, updated_at: db.fn.now() });
-}
-
-/** Kept current by the collab server after each evaluation, for lists. */
-export async function touchMapping(db: Db, id: number, beadCount: number): Promise<void> {
-  await db('mappings').where({ id }).update({ bead_count: beadCount, updated_at: db.fn.now() });
 }

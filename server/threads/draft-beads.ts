@@ -1,13 +1,13 @@
 import * as Y from 'yjs';
 import type { Db } from '../db/knex';
 import { BEADS, beadsOf, readBead } from '../../src/shared/mapping-doc';
-import { loadDraft } from '../collab/draft-store';
+import { loadDraft } from '../drafts/drafts.service';
 
 /**
  * Which bead ids a mapping has, now and ever. The rule for "a bead the mapping had":
  *   1. a bead in the draft now, or
  *   2. a key the draft's `beads` map has ever held: the stored draft (compacted snapshot plus the
- *      appended updates, collab/draft-store.ts) keeps a deleted map entry as a tombstone item that
+ *      appended updates, drafts/drafts.service.ts) keeps a deleted map entry as a tombstone item that
  *      still carries its key, so decoding the stored state lists every bead id it ever had; or
  *   3. a bead of any saved version of the mapping (mapping_versions, threads.service.ts); or
  *   4. a bead id in Beadloom's own record, `thread_beads` (every bead a thread was started on).

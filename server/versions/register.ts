@@ -1,6 +1,6 @@
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import type { Collab } from '../collab/collab-server';
+import type { Collab } from '../drafts/collab-server';
 import { versionRoutes } from './versions.routes';
 import { lockRoutes } from '../lock/lock.routes';
 import { auditRoutes } from '../audit/audit.routes';

@@ -1,5 +1,5 @@
 import type { Db } from '../db/knex';
-import type { Rooms } from '../collab/rooms';
+import type { Rooms } from '../drafts/rooms';
 import { notFound } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
 import { assertUnlocked } from '../lock/lock.service';

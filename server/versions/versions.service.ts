@@ -2,7 +2,7 @@ import type { Db } from '../db/knex';
 import type { Evaluation, Mapping, Resolution } from '../../src/shared/chem';
 import type { VersionDetail, VersionSummary } from '../../src/shared/versions';
 import type { DraftAccess } from '../mappings/mappings.routes';
-import type { EvaluationResult } from '../mappings/evaluation';
+import type { EvaluationResult } from '../drafts/evaluate-draft';
 import { conflict, notFound } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
 import { contentSha256 } from '../exports/content-hash';

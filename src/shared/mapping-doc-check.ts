@@ -4,10 +4,13 @@
  * The collab server applies each incoming update to a shadow copy with `applyChecked`, which looks only
  * at what the update touched (Yjs reports the changed keys of every type in the transaction), so
  * checking costs the size of the edit, not of the document. `checkDoc` walks everything (tests, loads).
- * Before that, `applyChecked` refuses an update larger than the caller's limit and bounds every struct
- * the update carries, visible or not (mapping-update-check.ts); after it, an update that left structs
- * or deletions pending (their dependencies never arrived) is refused: the check above would not have
- * seen them, yet they would be stored and relayed.
+ * Before that, `applyChecked` refuses an update larger than the caller's limit; while applying, it
+ * bounds every struct the update added, visible or not (mapping-update-check.ts); after it, an update
+ * that left structs or deletions pending (their dependencies never arrived) is refused: the checks
+ * would not have seen them. `applyCheckedUpdate` also gives the document's own encoding of what the
+ * update added (Yjs' 'update' event): that, not the bytes received, is what the server stores and
+ * relays, so nothing unchecked (a struct the document already had, sent again with other content)
+ * travels on.
  *
  * Refused: anything at the top level but `beads`, `atoms` and `settings`; list content anywhere; a bead
  * that is not a Y.Map of `name` (1–40 characters), `type` (string ≤ 40 or null), `centre` (a centre
@@ -18,7 +21,7 @@
  */
 import * as Y from 'yjs';
 import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, atomsOf, beadsOf, measuredProblem, settingsOf } from './mapping-doc';
-import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkUpdateStructs } from './mapping-update-check';
+import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkIntegratedStructs, checkUpdateStructs } from './mapping-update-check';
 
 export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range' | 'too_large' | 'missing_dependencies';
 
@@ -129,41 +132,62 @@ export const hasPending = (doc: Y.Doc): boolean => doc.store.pendingStructs !== 
  * the bad update: the caller must throw this copy away and rebuild it from the accepted state.
  * Throws when `update` is not a Yjs update.
  */
-export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, { origin, maxBytes }: ApplyOptions = {}): DocProblem | null {
-  if (maxBytes !== undefined && update.length > maxBytes) return problem('too_large', 'update', `An update has at most ${maxBytes} bytes; this one has ${update.length}.`);
-  const structural = checkUpdateStructs(update, atomCount);
-  if (structural) return structural;
+export function applyChecked(doc: Y.Doc, update: Uint8Array, atomCount: number, options: ApplyOptions = {}): DocProblem | null {
+  return applyCheckedUpdate(doc, update, atomCount, options).problem;
+}
+
+/**
+ * As `applyChecked`; when accepted, also what the update added to `doc`, encoded by `doc` (null when
+ * it added nothing: everything in it was known already).
+ */
+export function applyCheckedUpdate(doc: Y.Doc, update: Uint8Array, atomCount: number, { origin, maxBytes }: ApplyOptions = {}): { problem: DocProblem | null; added: Uint8Array | null } {
+  const refused = (p: DocProblem) => ({ problem: p, added: null });
+  if (maxBytes !== undefined && update.length > maxBytes) return refused(problem('too_large', 'update', `An update has at most ${maxBytes} bytes; this one has ${update.length}.`));
   // Typed access first: a top-level type that an update created is generic until getMap() converts
   // it, and the transaction would then name the generic one.
   const beads = beadsOf(doc) as Y.Map<unknown>;
   const atoms = atomsOf(doc) as Y.Map<unknown>;
   const settings = settingsOf(doc);
   const transactions: Y.Transaction[] = [];
-  const collect = (tr: Y.Transaction) => void transactions.push(tr);
-  doc.on('afterTransaction', collect);
+  let structural: DocProblem | null = null;
+  const added: Uint8Array[] = [];
+  const inspect = (tr: Y.Transaction) => {
+    transactions.push(tr);
+    structural ??= checkIntegratedStructs(tr, atomCount);
+  };
+  const keep = (u: Uint8Array) => void added.push(u);
+  doc.on('beforeObserverCalls', inspect);
+  doc.on('update', keep);
   try {
     Y.applyUpdate(doc, update, origin);
   } finally {
-    doc.off('afterTransaction', collect);
+    doc.off('beforeObserverCalls', inspect);
+    doc.off('update', keep);
   }
-  if (hasPending(doc)) return problem('missing_dependencies', 'update', 'The update depends on changes the server never received; reload the draft.');
+  if (structural) return refused(structural);
+  if (hasPending(doc)) {
+    // Refused either way; the pending structs' own problem, if any, says more (the cold path only;
+    // Yjs keeps pending structs in its v2 encoding).
+    const pending = doc.store.pendingStructs ? checkUpdateStructs(doc.store.pendingStructs.update, atomCount, 'v2') : null;
+    return refused(pending ?? problem('missing_dependencies', 'update', 'The update depends on changes the server never received; reload the draft.'));
+  }
   const top = checkTopLevel(doc);
-  if (top) return top;
+  if (top) return refused(top);
   for (const tr of transactions) {
     for (const [changed, keys] of tr.changed) {
       const type = changed as unknown as Y.AbstractType<unknown>;
-      if (keys.has(null)) return problem('wrong_type', pathOf(type), 'The draft holds no list content.');
+      if (keys.has(null)) return refused(problem('wrong_type', pathOf(type), 'The draft holds no list content.'));
       for (const key of keys as Set<string>) {
         const p =
           type === (beads as unknown) ? checkBead(key, beads.get(key))
           : type === (atoms as unknown) ? checkAtom(key, atoms.get(key), atomCount)
           : type === (settings as unknown) ? checkSetting(key, settings.get(key))
           : nestedBead(type, beads);
-        if (p) return p;
+        if (p) return refused(p);
       }
     }
   }
-  return null;
+  return { problem: null, added: added.length === 0 ? null : added.length === 1 ? added[0] : Y.mergeUpdates(added) };
 }
 
 function nestedBead(type: Y.AbstractType<unknown>, beads: Y.Map<unknown>): DocProblem | null {

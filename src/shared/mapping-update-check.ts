@@ -1,9 +1,12 @@
 /**
- * Checks every struct an incoming Yjs update carries, before it is applied. The checks of
- * mapping-doc-check.ts look at what the update changed in the visible document; an update also
- * carries content that never becomes visible there: a value overwritten or deleted by the same
- * update, and structs whose dependencies the receiver lacks (Yjs keeps those pending, unapplied, yet
- * they would be stored and relayed with the update). This bounds all of it to what a draft can hold:
+ * Checks every struct an incoming Yjs update added to the document, while it is being applied (Yjs'
+ * `beforeObserverCalls`, when overwritten content is still in the store), so the update is decoded
+ * once. The checks of mapping-doc-check.ts look at what the update changed in the visible document;
+ * an update also carries content that never becomes visible there: a value overwritten or deleted by
+ * the same update. Structs whose dependencies the receiver lacks stay pending (the caller refuses
+ * those), and structs the document already had are not integrated — and not passed on either, since
+ * what is stored and relayed is the document's own encoding of what this update added. This bounds
+ * all of it to what a draft can hold:
  *   - content is a Y.Map (a bead), a plain value, or a deleted range; no list, text, binary, embed,
  *     format or sub-document content;
  *   - a plain value is null, text of at most the longest bead field, an atom entry (≤ 16 bead
@@ -42,14 +45,17 @@ export function atomKeyProblem(key: string, atomCount: number): DocProblem | nul
 }
 
 function checkKey(item: Y.Item, atomCount: number): DocProblem | null {
-  // In a decoded (not yet integrated) update, a top-level parent is its name.
-  const parent = item.parent as unknown as string | Y.ID | null;
+  // Integrated, an item's parent is a type (a top-level one known by its name); decoded but not
+  // integrated (pending), a top-level parent is its name, a nested one an ID, and null means
+  // "positioned by its left neighbour".
+  const raw = item.parent as unknown;
+  if (raw === null) return null;
+  const parent = typeof raw === 'string' ? raw : raw instanceof Y.AbstractType && raw._item === null ? Y.findRootTypeKey(raw) : null;
   const parentSub = item.parentSub;
-  if (parent === null) return null; // positioned by its left neighbour; checked where it lands
-  if (typeof parent === 'string' && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS) {
+  if (parent !== null && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS) {
     return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}" and "${SETTINGS}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
   }
-  const where = typeof parent === 'string' ? parent : 'beads.…';
+  const where = parent ?? 'beads.…';
   if (parentSub === null) return refuse('wrong_type', where, 'The draft holds no list content.');
   const key = parentSub.slice(0, 80);
   if (parent === BEADS) return parentSub.length <= BEAD_ID_MAX ? null : refuse('wrong_type', `${BEADS}.${key}…`, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
@@ -75,12 +81,35 @@ function checkContent(item: Y.Item): DocProblem | null {
   return refuse('wrong_type', path, `The draft holds no ${content.constructor.name.replace(/^Content/, '').toLowerCase()} content.`);
 }
 
-/** The first problem among the update's structs, or null. Throws when `update` is not a Yjs update. */
-export function checkUpdateStructs(update: Uint8Array, atomCount: number): DocProblem | null {
-  for (const struct of Y.decodeUpdate(update).structs) {
+/**
+ * The first problem among the structs of an update as decoded, without applying it (for structs a
+ * document left pending: they were never integrated, so never checked). Throws when `update` is not
+ * a Yjs update.
+ */
+export function checkUpdateStructs(update: Uint8Array, atomCount: number, format: 'v1' | 'v2' = 'v1'): DocProblem | null {
+  for (const struct of (format === 'v1' ? Y.decodeUpdate(update) : Y.decodeUpdateV2(update)).structs) {
     if (!(struct instanceof Y.Item)) continue; // GC and skip ranges carry nothing
     const problem = checkKey(struct, atomCount) ?? checkContent(struct);
     if (problem) return problem;
+  }
+  return null;
+}
+
+/**
+ * The first problem among the structs `tr` integrated, or null. Call it from `beforeObserverCalls`:
+ * after that, Yjs replaces deleted content, and overwritten values would go unseen.
+ */
+export function checkIntegratedStructs(tr: Y.Transaction, atomCount: number): DocProblem | null {
+  for (const [client, after] of tr.afterState) {
+    const before = tr.beforeState.get(client) ?? 0;
+    if (after === before) continue;
+    const structs = tr.doc.store.clients.get(client) ?? [];
+    for (let i = Y.findIndexSS(structs, before); i < structs.length; i++) {
+      const struct = structs[i];
+      if (!(struct instanceof Y.Item)) continue; // GC carries nothing
+      const problem = checkKey(struct, atomCount) ?? checkContent(struct);
+      if (problem) return problem;
+    }
   }
   return null;
 }

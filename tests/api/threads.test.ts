@@ -159,7 +159,7 @@ describe('bad input and abuse: a clear error, nothing changed', () => {
 
 describe('Beadloom’s own record of bead ids', () => {
   it('a bead a thread was started on stays valid after the draft history is rewritten', async () => {
-    const { writeSnapshot } = await import('../../server/collab/draft-store');
+    const { writeSnapshot } = await import('../../server/drafts/drafts.service');
     const other = await otherProjectMapping(t.ctx.db);
     const sup = await signedIn(t.app, 'supervisor@example.org');
     const created = await sup.post(`/api/mappings/${other.mappingId}/threads`, { beadId: 'bx1', body: 'About E.' }).expect(201);
@@ -174,7 +174,7 @@ describe('Beadloom’s own record of bead ids', () => {
 
 describe('threads and saved versions', () => {
   it('a bead only a saved version still has takes threads', async () => {
-    const { writeSnapshot } = await import('../../server/collab/draft-store');
+    const { writeSnapshot } = await import('../../server/drafts/drafts.service');
     const other = await otherProjectMapping(t.ctx.db);
     const sup = await signedIn(t.app, 'supervisor@example.org');
     await sup.post(`/api/mappings/${other.mappingId}/versions`, { message: 'First cut.' }).expect(201);

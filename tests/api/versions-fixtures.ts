@@ -1,7 +1,8 @@
 import * as Y from 'yjs';
 import type { Db } from '../../server/db/knex';
-import { loadDraft } from '../../server/collab/draft-store';
-import { UpdateLog } from '../../server/collab/update-log';
+import { loadDraft } from '../../server/drafts/drafts.service';
+import type { ConnectionOptions } from 'mysql2';
+import { UpdateLog } from '../../server/drafts/update-log';
 import { createMolecule, demoProjectId } from '../helpers/fixtures';
 
 // Fixtures for the versions, lock, export and import tests. Drafts are edited the way the collab
@@ -13,7 +14,7 @@ export async function editDraft(db: Db, mappingId: number, edit: (doc: Y.Doc) =>
   doc.on('update', (u: Uint8Array) => updates.push(u));
   edit(doc);
   if (!updates.length) return;
-  const log = new UpdateLog(db);
+  const log = new UpdateLog(db.client.config.connection as ConnectionOptions); // the pool's own settings
   try {
     await log.append(mappingId, [{ userId, data: Y.mergeUpdates(updates) }]);
   } finally {
@@ -38,7 +39,7 @@ export async function propanolMapping(db: Db, name = 'Propanol 2:1'): Promise<{ 
 
 /** The draft as the server reads it when no room is open (collab-server.ts `read`), for saving fixtures. */
 export async function storedDrafts(db: Db) {
-  const { readStoredDraft } = await import('../../server/mappings/evaluation');
+  const { readStoredDraft } = await import('../../server/drafts/drafts.service');
   return {
     async read(mappingId: number) {
       const stored = await readStoredDraft(db, mappingId);

@@ -8,7 +8,7 @@ import { beadsOf, createBead } from '../../src/shared/mapping-doc';
 import { CLOSE_NOT_FOUND, CLOSE_UNAUTHENTICATED } from '../../src/shared/collab-protocol';
 
 // Issue 11, item 2: access is decided at the upgrade and again whenever it changes
-// (server/auth/access-changes.ts → server/collab/collab-access.ts). For each kind of change, an open
+// (server/auth/access-changes.ts → server/drafts/collab-access.ts). For each kind of change, an open
 // socket of the affected account loses write access within 1 s: it turns read-only, or it is closed
 // with a documented code. A write it sends right after the change is neither relayed nor stored.
 

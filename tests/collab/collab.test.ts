@@ -75,7 +75,7 @@ describe('live collaboration', () => {
   });
 
   it('keeps the numbers coming during a long burst of edits, with far fewer evaluations than edits', async () => {
-    // Debounced 40 ms, bounded at 100 ms (server/collab/debounce-window.ts): 80 renames 10 ms apart
+    // Debounced 40 ms, bounded at 100 ms (server/drafts/debounce-window.ts): 80 renames 10 ms apart
     // (at least 0.8 s) bring about one evaluation per 100 ms while they go on (7 measured here), not
     // one per edit and not only one at the end. Evaluating 40 ms apart, as before, gave 19.
     const bead = beadsOf(a.doc).get('from-a')!;

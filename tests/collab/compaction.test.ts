@@ -4,9 +4,9 @@ import { createTestApp, type TestApp } from '../helpers/test-app';
 import { connectClient, listen, sessionCookie, synced, until, type CollabClient } from '../helpers/collab-client';
 import { demoMappingId } from '../helpers/fixtures';
 import { beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
-import { loadDraft } from '../../server/collab/draft-store';
+import { loadDraft } from '../../server/drafts/drafts.service';
 
-// Compaction runs beside the room's update queue (server/collab/room.ts): with a snapshot every 5
+// Compaction runs beside the room's update queue (server/drafts/draft-room.ts): with a snapshot every 5
 // updates, a fast stream of edits is compacted many times while later edits are still being stored.
 // Nothing may be lost or doubled, and the stored draft must equal the live one.
 

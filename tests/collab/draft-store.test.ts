@@ -4,10 +4,10 @@ import { createTestApp, type TestApp } from '../helpers/test-app';
 import { connectClient, listen, sessionCookie, synced, until } from '../helpers/collab-client';
 import { demoMappingId } from '../helpers/fixtures';
 import { atomsOf, beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
-import { loadDraft } from '../../server/collab/draft-store';
+import { loadDraft } from '../../server/drafts/drafts.service';
 import { CLOSE_TRY_AGAIN } from '../../src/shared/collab-protocol';
 
-// The room stores only updates that pass its checks (server/collab/room.ts), but a stored row may still
+// The room stores only updates that pass its checks (server/drafts/draft-room.ts), but a stored row may still
 // be bad (written by other means, or damaged): loading must skip it, with the same checks in the same
 // order, and keep the rest, rather than leave the mapping unloadable. When an update cannot be stored
 // at all, nothing is relayed and the sender reconnects and resends.

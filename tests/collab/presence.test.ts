@@ -5,9 +5,9 @@ import { createTestApp, type TestApp } from '../helpers/test-app';
 import { connectClient, listen, rawCollabSocket, sessionCookie, synced, until, type CollabClient, type RawCollabSocket } from '../helpers/collab-client';
 import { demoMappingId, userId } from '../helpers/fixtures';
 import { presenceColour } from '../../src/shared/presence-colour';
-import { MAX_CLIENT_IDS } from '../../server/collab/awareness-stamp';
+import { MAX_CLIENT_IDS } from '../../server/drafts/awareness-stamp';
 
-// Issue 11, item 5: presence comes from the signed-in account (server/collab/awareness-stamp.ts).
+// Issue 11, item 5: presence comes from the signed-in account (server/drafts/awareness-stamp.ts).
 // A read-only student claims to be the site admin; the supervisor's client sees the student's real
 // identity or nothing, never the admin's. Every state the supervisor's client ever received is
 // recorded, so a forged state that was relayed and replaced at once is still caught.

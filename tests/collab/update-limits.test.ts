@@ -5,8 +5,9 @@ import { connectClient, listen, rawCollabSocket, sessionCookie, synced, until, t
 import { demoMappingId } from '../helpers/fixtures';
 import { propanolMapping } from '../api/versions-fixtures';
 import { beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
-import { loadDraft } from '../../server/collab/draft-store';
-import { UpdateLog } from '../../server/collab/update-log';
+import { loadDraft } from '../../server/drafts/drafts.service';
+import { UpdateLog } from '../../server/drafts/update-log';
+import { connectionOptions } from '../../server/db/knex';
 import { configFromEnv } from '../../server/config';
 import { CLOSE_TOO_LARGE } from '../../src/shared/collab-protocol';
 
@@ -178,7 +179,7 @@ describe('a mapping with an oversized stored row', () => {
     // As the issue found it: a 15.5 MB update with missing dependencies, appended by the real write path.
     const { second } = dependentUpdates((bead) => bead.set('name', 'X'.repeat(15_500_000)));
     expect(second.length).toBeGreaterThan(15_500_000);
-    const log = new UpdateLog(t.ctx.db);
+    const log = new UpdateLog(connectionOptions(t.ctx.config.databaseUrl));
     try {
       await log.append(id, [{ userId: null, data: second }]);
     } finally {

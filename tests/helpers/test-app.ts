@@ -7,7 +7,7 @@ import type { AppContext } from '../../server/context';
 import { seedDemo } from '../../seeds/demo';
 import { createLocalAccessChanges } from '../../server/auth/access-changes';
 import { createTestDatabase, type TestDatabase } from './db';
-import type { CollabOptions } from '../../server/collab/room';
+import type { CollabOptions } from '../../server/drafts/room-options';
 
 // The real Express app on a fresh, migrated and demo-seeded database, with the
 // real local SMTP sink. Tests drive it with supertest (see client.ts).

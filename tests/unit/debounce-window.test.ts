@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { DebounceWindow } from '../../server/collab/debounce-window';
+import { DebounceWindow } from '../../server/drafts/debounce-window';
 
-// The room's evaluation timing (server/collab/room-evaluator.ts): 40 ms after the last change, at most
+// The room's evaluation timing (server/drafts/draft-evaluator.ts): 40 ms after the last change, at most
 // 100 ms after the first one not yet evaluated. Driven by a hand-set clock, so no test waits.
 
 function windowAt(delayMs = 40, maxWaitMs = 100) {

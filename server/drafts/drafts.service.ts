@@ -1,8 +1,15 @@
 import * as Y from 'yjs';
 import type { Db } from '../db/knex';
 import { applyChecked, hasPending } from '../../src/shared/mapping-doc-check';
+import { docToMapping } from '../../src/shared/mapping-doc';
+import type { Mapping } from '../../src/shared/chem';
+import { parseModel } from '../molecules/molecule-view';
+import { libraryFor } from '../bead-types/bead-types.service';
+import type { StoredDraft } from './draft-storage';
+import type { EvaluationInputs, EvaluationResult } from './evaluate-draft';
+import { evaluateOnceInThread } from './evaluation-thread';
 
-// Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
+// The drafts' queries. Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
 // (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).
 // The draft is the snapshot with every later update applied, in id order. Loading makes the live
 // room's document checks again (same checks, same order): a row that fails them — not a Yjs update at
@@ -12,19 +19,6 @@ import { applyChecked, hasPending } from '../../src/shared/mapping-doc-check';
 // never part of anyone's visible draft).
 // Compaction writes the merged state and deletes the updates it contains, in one transaction, so a
 // crash at any point loses nothing.
-
-export interface StoredDraft {
-  doc: Y.Doc;
-  /** Id of the last update contained in `doc` (0 when none). */
-  lastUpdateId: number;
-  /** Updates stored after the snapshot. */
-  pending: number;
-}
-
-export interface NewUpdate {
-  userId: number | null;
-  data: Uint8Array;
-}
 
 /**
  * The stored draft. `atomCount` (the molecule's atoms) is needed for the checks; without it, it is read
@@ -104,6 +98,35 @@ export async function writeSnapshot(db: Db, mappingId: number, state: Uint8Array
   }, { isolationLevel: 'read committed' });
 }
 
-export async function compactDoc(db: Db, mappingId: number, doc: Y.Doc, lastUpdateId: number): Promise<void> {
-  await writeSnapshot(db, mappingId, Y.encodeStateAsUpdate(doc), lastUpdateId);
+/** Keeps the mapping row's bead count and "updated" time current for lists. */
+export async function touchMapping(db: Db, id: number, beadCount: number): Promise<void> {
+  await db('mappings').where({ id }).update({ bead_count: beadCount, updated_at: db.fn.now() });
+}
+
+/** What the chemistry core needs to evaluate one mapping's draft (the evaluation itself is in the evaluation thread). */
+export async function loadEvaluationInputs(db: Db, mappingId: number): Promise<EvaluationInputs | null> {
+  const row = await db('mappings as p')
+    .join('molecules as m', 'm.id', 'p.molecule_id')
+    .where('p.id', mappingId)
+    .first('p.id', 'p.resolution', 'p.locked', 'm.id as molecule_id', 'm.project_id', 'm.model', 'm.xyz');
+  if (!row) return null;
+  const library = await libraryFor(db, row.project_id);
+  return {
+    mappingId,
+    moleculeId: row.molecule_id,
+    projectId: row.project_id,
+    locked: !!row.locked,
+    resolution: row.resolution,
+    model: parseModel({ id: row.molecule_id, model: row.model }),
+    xyz: row.xyz ? (JSON.parse(row.xyz) as number[][]) : null,
+    library: library.length ? library : undefined,
+  };
+}
+
+/** A stored draft and its evaluation, read while no room holds the mapping; null when there is no such mapping. */
+export async function readStoredDraft(db: Db, mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult } | null> {
+  const inputs = await loadEvaluationInputs(db, mappingId);
+  if (!inputs) return null;
+  const draft = docToMapping((await loadDraft(db, mappingId, inputs.model.atoms.length)).doc);
+  return { draft, result: await evaluateOnceInThread(inputs, draft) };
 }

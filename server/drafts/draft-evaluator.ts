@@ -1,7 +1,14 @@
 import type { Mapping } from '../../src/shared/chem';
-import type { EvaluationInputs, EvaluationResult } from '../mappings/evaluate-draft';
-import { evaluateInThread, forgetInputs } from '../mappings/evaluation-thread';
+import type { EvaluationInputs, EvaluationResult } from './evaluate-draft';
 import { DebounceWindow } from './debounce-window';
+
+/** Where evaluations run (evaluation-thread.ts: `threadEvaluation`). */
+export interface EvaluationService {
+  /** Evaluates a live room's draft; `stamp` changes whenever `inputs` do. */
+  evaluate(inputs: EvaluationInputs, stamp: number, draft: Mapping): Promise<EvaluationResult>;
+  /** The room closed: its inputs may be dropped. */
+  forget(mappingId: number): void;
+}
 
 /**
  * Keeps one room's evaluation current without holding up its sockets. Every evaluation runs in the
@@ -16,7 +23,7 @@ import { DebounceWindow } from './debounce-window';
  * now (a page load) awaits `current()`; a new peer gets `latest()` at once and any newer result when
  * it is published.
  */
-export class RoomEvaluator {
+export class DraftEvaluator {
   private revision = 0;
   private resultRevision = -1;
   private publishedRevision = -1;
@@ -32,6 +39,7 @@ export class RoomEvaluator {
     private readonly draft: () => Mapping,
     private readonly publish: (result: EvaluationResult, revision: number) => void,
     private readonly onFailure: (err: unknown) => void,
+    private readonly service: EvaluationService,
     delayMs: number,
     maxWaitMs: number,
   ) {
@@ -72,7 +80,7 @@ export class RoomEvaluator {
     this.closed = true;
     if (this.timer) clearTimeout(this.timer);
     this.timer = null;
-    forgetInputs(this.inputs.mappingId);
+    this.service.forget(this.inputs.mappingId);
   }
 
   private noteChange(): void {
@@ -94,11 +102,11 @@ export class RoomEvaluator {
   /** In the thread; a failed thread restarts on the next job, so one failure is retried once. */
   private async evaluate(draft: Mapping): Promise<EvaluationResult> {
     try {
-      return await evaluateInThread(this.inputs, this.stamp, draft);
+      return await this.service.evaluate(this.inputs, this.stamp, draft);
     } catch (err) {
       if (this.closed) throw err;
       this.onFailure(err);
-      return evaluateInThread(this.inputs, this.stamp, draft);
+      return this.service.evaluate(this.inputs, this.stamp, draft);
     }
   }
 

@@ -12,7 +12,8 @@ import type { ProjectRole } from '../../src/shared/roles';
 import type { AccessChange, AccessChanges } from '../auth/access-changes';
 import { sessionUser } from '../auth/passport';
 import { mappingAccess } from '../mappings/mapping-access';
-import type { Peer, Room } from './room';
+import type { DraftRoom } from './draft-room';
+import type { Peer } from './peer';
 
 export type CollabDecision = { status: 401 } | { status: 404 } | { status: 200; user: Express.User; projectId: number; role: ProjectRole | null; roleReadOnly: boolean };
 
@@ -56,7 +57,7 @@ function concerns(change: AccessChange, { peer, projectId }: OpenConnection): bo
 }
 
 /** Routes access changes to the open connections and rooms they concern; returns the unsubscribe function. */
-export function followAccessChanges(changes: AccessChanges, connections: () => Iterable<OpenConnection>, rooms: () => Promise<Room[]>, onError: (err: unknown) => void): () => void {
+export function followAccessChanges(changes: AccessChanges, connections: () => Iterable<OpenConnection>, rooms: () => Promise<DraftRoom[]>, onError: (err: unknown) => void): () => void {
   return changes.subscribe((change) => {
     if (change.kind === 'lock') {
       rooms().then((open) => {

@@ -61,4 +61,7 @@ export function forgetInputs(mappingId: number): void {
   for (const lane of ['small', 'large'] as const) if (sent[lane].delete(mappingId)) lanes[lane].tell({ forget: mappingId });
 }
 
+/** Evaluation in the evaluation threads, for the rooms. */
+export const threadEvaluation = { evaluate: evaluateInThread, forget: forgetInputs };
+
 export const stopEvaluationThread = () => Promise.all([lanes.small.stop(), lanes.large.stop()]);

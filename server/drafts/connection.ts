@@ -10,27 +10,15 @@
  * or closes with 4401 (signed out, account disabled) or 4404 (no longer a member); from the moment
  * it decided to close, nothing it sends is used.
  */
+import { randomUUID } from 'node:crypto';
 import type { WebSocket } from 'ws';
-import * as encoding from 'lib0/encoding';
-import * as decoding from 'lib0/decoding';
 import { applyAwarenessUpdate, encodeAwarenessUpdate } from 'y-protocols/awareness';
-import { messageYjsSyncStep1, messageYjsSyncStep2, messageYjsUpdate, writeSyncStep1, writeSyncStep2 } from 'y-protocols/sync';
-import {
-  CLOSE_MALFORMED,
-  CLOSE_NOT_FOUND,
-  CLOSE_TRY_AGAIN,
-  CLOSE_UNAUTHENTICATED,
-  MESSAGE_AWARENESS,
-  MESSAGE_ERROR,
-  MESSAGE_QUERY_AWARENESS,
-  MESSAGE_SESSION,
-  MESSAGE_SYNC,
-  type CollabErrorMessage,
-  type SessionMessage,
-} from '../../src/shared/collab-protocol';
-import type { Peer, Room } from './room';
+import { CLOSE_MALFORMED, CLOSE_NOT_FOUND, CLOSE_TRY_AGAIN, CLOSE_UNAUTHENTICATED, type CollabErrorMessage, type SessionMessage } from '../../src/shared/collab-protocol';
+import type { DraftRoom } from './draft-room';
+import type { Peer } from './peer';
 import type { CollabDecision } from './collab-access';
 import { stampAwareness } from './awareness-stamp';
+import { MalformedFrame, awarenessFrame, decodeFrame, errorFrame, sessionFrame, syncStep1Frame, syncStep2Frame } from './frames';
 
 export interface ConnectionInfo {
   userId: number;
@@ -44,10 +32,8 @@ export interface ConnectionInfo {
   redecide(signedOut: boolean): Promise<CollabDecision>;
 }
 
-class Malformed extends Error {}
-
-export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: () => Promise<Room | null>, pingIntervalMs: number): Peer {
-  let room: Room | null = null;
+export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: () => Promise<DraftRoom | null>, pingIntervalMs: number): Peer {
+  let room: DraftRoom | null = null;
   let alive = true;
   let warnedReadOnly = false;
   /** Set once the connection is being closed for lost access: every later frame is ignored. */
@@ -59,6 +45,7 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     ws.close(code, reason);
   };
   const peer: Peer = {
+    id: randomUUID(),
     userId: info.userId,
     sessionId: info.sessionId,
     controlled: new Set(),
@@ -66,7 +53,7 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
       if (ws.readyState === ws.OPEN) ws.send(frame);
     },
     sendError(error: CollabErrorMessage) {
-      peer.send(stringFrame(MESSAGE_ERROR, JSON.stringify(error)));
+      peer.send(errorFrame(error));
     },
     fail(reason) {
       ws.close(CLOSE_MALFORMED, reason.slice(0, 120));
@@ -99,8 +86,8 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     },
   };
   const readOnly = () => revoked || info.roleReadOnly || !!room?.locked;
-  const sendSession = (r: Room) =>
-    peer.send(stringFrame(MESSAGE_SESSION, JSON.stringify({ ...info.session, readOnly: readOnly(), readOnlyReason: info.roleReadOnly ? 'role' : r.locked ? 'locked' : null } satisfies SessionMessage)));
+  const sendSession = (r: DraftRoom) =>
+    peer.send(sessionFrame({ ...info.session, readOnly: readOnly(), readOnlyReason: info.roleReadOnly ? 'role' : r.locked ? 'locked' : null } satisfies SessionMessage));
   peer.sessionChanged = () => {
     warnedReadOnly = false;
     if (room) sendSession(room);
@@ -114,10 +101,7 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
     }
     if (!room) throw new Error('room kept closing');
     sendSession(room);
-    const e = encoding.createEncoder();
-    encoding.writeVarUint(e, MESSAGE_SYNC);
-    writeSyncStep1(e, room.doc);
-    peer.send(encoding.toUint8Array(e));
+    peer.send(syncStep1Frame(room.doc));
     const states = [...room.awareness.getStates().keys()];
     if (states.length) peer.send(awarenessFrame(encodeAwarenessUpdate(room.awareness, states)));
     const latest = room.latestResult();
@@ -125,40 +109,29 @@ export function serveConnection(ws: WebSocket, info: ConnectionInfo, openRoom: (
   })();
   let chain: Promise<void> = ready;
 
-  const ownerOf = (r: Room, clientId: number) =>
+  const ownerOf = (r: DraftRoom, clientId: number) =>
     peer.controlled.has(clientId) ? 'self' : clientId === r.awareness.clientID || [...r.peers].some((p) => p !== peer && p.controlled.has(clientId)) ? 'other' : 'none';
 
   const handle = (data: Uint8Array) => {
     if (!room || revoked) return;
-    const d = decoding.createDecoder(data);
-    const type = decoding.readVarUint(d);
-    if (type === MESSAGE_SYNC) {
-      const sub = decoding.readVarUint(d);
-      const payload = decoding.readVarUint8Array(d);
-      if (sub === messageYjsSyncStep1) {
-        const e = encoding.createEncoder();
-        encoding.writeVarUint(e, MESSAGE_SYNC);
-        writeSyncStep2(e, room.doc, payload);
-        peer.send(encoding.toUint8Array(e));
-      } else if (sub === messageYjsSyncStep2 || sub === messageYjsUpdate) {
-        if (!readOnly()) room.receiveUpdate(peer, payload);
-        else if (!warnedReadOnly) {
-          warnedReadOnly = true;
-          peer.sendError({ code: 'read_only', message: room.locked ? 'This mapping is locked for production; the draft is read-only.' : 'Your role in this project cannot edit drafts; your changes are not kept.' });
-        }
-      } else throw new Malformed(`unknown sync message ${sub}`);
-    } else if (type === MESSAGE_AWARENESS) {
+    const frame = decodeFrame(data);
+    if (frame.kind === 'sync-step-1') peer.send(syncStep2Frame(room.doc, frame.stateVector));
+    else if (frame.kind === 'update') {
+      if (!readOnly()) room.receiveUpdate(peer, frame.update);
+      else if (!warnedReadOnly) {
+        warnedReadOnly = true;
+        peer.sendError({ code: 'read_only', message: room.locked ? 'This mapping is locked for production; the draft is read-only.' : 'Your role in this project cannot edit drafts; your changes are not kept.' });
+      }
+    } else if (frame.kind === 'awareness') {
       const r = room;
-      const stamped = stampAwareness(decoding.readVarUint8Array(d), info, (id) => ownerOf(r, id), peer.controlled.size);
+      const stamped = stampAwareness(frame.update, info, (id) => ownerOf(r, id), peer.controlled.size);
       if (stamped) applyAwarenessUpdate(r.awareness, stamped, peer);
-    } else if (type === MESSAGE_QUERY_AWARENESS) {
-      peer.send(awarenessFrame(encodeAwarenessUpdate(room.awareness, [...room.awareness.getStates().keys()])));
-    } else throw new Malformed(`unknown message type ${type}`);
+    } else peer.send(awarenessFrame(encodeAwarenessUpdate(room.awareness, [...room.awareness.getStates().keys()])));
   };
 
   ws.on('message', (data, isBinary) => {
     chain = chain.then(() => {
-      if (!isBinary) throw new Malformed('text frame');
+      if (!isBinary) throw new MalformedFrame('text frame');
       handle(toBytes(data));
     });
     chain = chain.catch(() => {
@@ -185,18 +158,4 @@ function toBytes(data: unknown): Uint8Array {
   if (Array.isArray(data)) return new Uint8Array(Buffer.concat(data));
   if (data instanceof ArrayBuffer) return new Uint8Array(data);
   return new Uint8Array(data as Buffer);
-}
-
-function stringFrame(type: number, text: string): Uint8Array {
-  const e = encoding.createEncoder();
-  encoding.writeVarUint(e, type);
-  encoding.writeVarString(e, text);
-  return encoding.toUint8Array(e);
-}
-
-function awarenessFrame(update: Uint8Array): Uint8Array {
-  const e = encoding.createEncoder();
-  encoding.writeVarUint(e, MESSAGE_AWARENESS);
-  encoding.writeVarUint8Array(e, update);
-  return encoding.toUint8Array(e);
 }

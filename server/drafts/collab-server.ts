@@ -9,16 +9,20 @@
  * `maxFrameBytes` are refused by the socket itself (close 1009) before they are buffered whole.
  * This module also answers the REST side's questions about drafts (DraftAccess).
  */
+import { randomUUID } from 'node:crypto';
 import { ServerResponse, type IncomingMessage } from 'node:http';
 import type { Duplex } from 'node:stream';
 import type { RequestHandler } from 'express';
 import { WebSocketServer } from 'ws';
 import type { AppContext } from '../context';
 import type { DraftAccess } from '../mappings/mappings.routes';
-import { readStoredDraft } from '../mappings/evaluation';
+import { loadEvaluationInputs, readStoredDraft } from './drafts.service';
 import { notFound } from '../http/errors';
 import { serveConnection } from './connection';
-import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room';
+import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room-options';
+import { createMariaDbDraftStorage } from './mariadb-draft-storage';
+import { createInProcessRelay } from './in-process-relay';
+import { threadEvaluation } from './evaluation-thread';
 import { Rooms } from './rooms';
 import { decide, followAccessChanges, redecide, type OpenConnection } from './collab-access';
 
@@ -43,7 +47,15 @@ function sameOrigin(req: IncomingMessage): boolean {
 
 export function createCollab(ctx: AppContext, middleware: RequestHandler[], options: Partial<CollabOptions> = {}): Collab {
   const opts = { ...DEFAULT_COLLAB_OPTIONS, maxFrameBytes: ctx.config.collabMaxFrameBytes, ...options };
-  const rooms = new Rooms(ctx, opts);
+  const rooms = new Rooms({
+    storage: createMariaDbDraftStorage(ctx.db, ctx.config.databaseUrl),
+    relay: createInProcessRelay((err) => ctx.log.error({ err }, 'collab relay listener failed')),
+    evaluation: threadEvaluation,
+    loadInputs: (mappingId) => loadEvaluationInputs(ctx.db, mappingId),
+    log: ctx.log,
+    instance: randomUUID(),
+    options: opts,
+  });
   const wss = new WebSocketServer({ noServer: true, maxPayload: opts.maxFrameBytes });
   // Every open connection from its upgrade on, for access changes to reach; and a count of the
   // changes, so an upgrade decided just before one re-decides at once.
