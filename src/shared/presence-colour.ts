@@ -2,7 +2,7 @@ import theme from '../../tailwind.config';
 
 // Presence colours: from the bead palette (tailwind.config.ts), skipping yellow and black, which are
 // hard to read as thin pointer outlines on paper. Shared: the server stamps each connection's
-// awareness with its account's colour (server/collab/awareness-stamp.ts), the client draws it.
+// awareness with its account's colour (server/drafts/awareness-stamp.ts), the client draws it.
 
 const bead = theme.theme.extend.colors.bead;
 const PRESENCE: readonly string[] = [bead.blue, bead.vermillion, bead.green, bead.purple, bead.orange, bead.sky];
