@@ -1,49 +1,68 @@
-import { createBrowserRouter, Navigate } from 'react-router';
+import { createBrowserRouter, type RouteObject } from 'react-router';
 import { setUnauthenticatedHandler } from '../lib/api-client';
-import { paths } from '../lib/paths';
+import { paths, routePatterns } from '../lib/paths';
 import { queryClient } from './provider';
-import { AccountRoute } from './routes/account';
-import { AdminUsersRoute } from './routes/admin-users';
-import { MappingRoute } from './routes/mapping';
-import { MoleculeRoute } from './routes/molecule';
-import { NewMoleculeRoute } from './routes/new-molecule';
-import { ForgotPasswordRoute } from './routes/forgot-password';
-import { NotFoundRoute } from './routes/not-found';
-import { ProjectRoute } from './routes/project';
-import { ProjectsRoute } from './routes/projects';
-import { ResetPasswordRoute } from './routes/reset-password';
+import { mappingLoader } from './loaders/mapping-loader';
+import * as load from './loaders/page-loaders';
+import { onlyOnNewPath } from './loaders/route-data';
 import { RouteError } from './routes/route-error';
-import { SignInRoute } from './routes/sign-in';
-import { AppShell } from './shell/app-shell';
+import { FirstLoad, RootLayout } from './shell/root-layout';
+
+// Router-first: every page's code is its own chunk (`lazy`), and its loader fills the query cache
+// while that chunk downloads, so a page renders with its data instead of fetching after it mounts.
+// A loader's 404 (bad id, unknown or invisible record, unknown path) goes to the one RouteError
+// boundary; inside the shell it renders below the header.
+
+const page = (route: Omit<RouteObject, 'index' | 'children'> & { path: string }): RouteObject => ({
+  shouldRevalidate: onlyOnNewPath,
+  ...route,
+});
 
 const publicPaths: readonly string[] = [paths.signIn, paths.forgotPassword, paths.resetPassword];
 
 export const router = createBrowserRouter([
-  { path: paths.signIn, element: <SignInRoute />, errorElement: <RouteError /> },
-  { path: paths.forgotPassword, element: <ForgotPasswordRoute />, errorElement: <RouteError /> },
-  { path: paths.resetPassword, element: <ResetPasswordRoute />, errorElement: <RouteError /> },
   {
-    element: <AppShell />,
-    errorElement: <RouteError />,
+    Component: RootLayout,
+    HydrateFallback: FirstLoad,
+    ErrorBoundary: RouteError,
     children: [
-      { index: true, element: <Navigate to={paths.projects} replace /> },
-      { path: paths.projects, element: <ProjectsRoute /> },
-      { path: '/projects/:projectId', element: <ProjectRoute /> },
-      { path: '/projects/:projectId/molecules/new', element: <NewMoleculeRoute /> },
-      { path: '/molecules/:moleculeId', element: <MoleculeRoute /> },
-      { path: '/mappings/:mappingId', element: <MappingRoute /> },
-      { path: paths.adminUsers, element: <AdminUsersRoute /> },
-      { path: paths.account, element: <AccountRoute /> },
-      { path: '*', element: <NotFoundRoute /> },
+      page({ path: routePatterns.signIn, lazy: { Component: async () => (await import('./routes/sign-in')).SignInRoute } }),
+      page({ path: routePatterns.forgotPassword, lazy: { Component: async () => (await import('./routes/forgot-password')).ForgotPasswordRoute } }),
+      page({ path: routePatterns.resetPassword, lazy: { Component: async () => (await import('./routes/reset-password')).ResetPasswordRoute } }),
+      {
+        id: 'shell',
+        loader: load.shellLoader,
+        shouldRevalidate: onlyOnNewPath,
+        lazy: { Component: async () => (await import('./shell/app-shell')).AppShell },
+        children: [
+          {
+            // Errors of a page show inside the shell, below its header.
+            ErrorBoundary: RouteError,
+            children: [
+              { index: true, loader: load.indexLoader },
+              page({ path: routePatterns.projects, loader: load.projectsLoader, lazy: { Component: async () => (await import('./routes/projects')).ProjectsRoute } }),
+              page({ path: routePatterns.project, loader: load.projectLoader, lazy: { Component: async () => (await import('./routes/project')).ProjectRoute } }),
+              page({ path: routePatterns.newMolecule, loader: load.newMoleculeLoader, lazy: { Component: async () => (await import('./routes/new-molecule')).NewMoleculeRoute } }),
+              page({ path: routePatterns.molecule, loader: load.moleculeLoader, lazy: { Component: async () => (await import('./routes/molecule')).MoleculeRoute } }),
+              page({ path: routePatterns.mapping, loader: mappingLoader, lazy: { Component: async () => (await import('./routes/mapping')).MappingRoute } }),
+              page({ path: routePatterns.adminUsers, loader: load.adminUsersLoader, lazy: { Component: async () => (await import('./routes/admin-users')).AdminUsersRoute } }),
+              page({ path: routePatterns.account, loader: load.accountLoader, lazy: { Component: async () => (await import('./routes/account')).AccountRoute } }),
+              page({ path: '*', loader: load.unknownPathLoader }),
+            ],
+          },
+        ],
+      },
     ],
   },
 ]);
 
-// A lost session (401 `unauthenticated`) anywhere: forget the cache and ask to sign in,
-// coming back to the same page afterwards.
+// A lost session (401 `unauthenticated`) anywhere: forget the cache and ask to sign in, coming back
+// to the same page afterwards. While a navigation loads, its loaders do this themselves (with the
+// page being opened as the way back), so the handler leaves it to them.
 setUnauthenticatedHandler(() => {
-  const { pathname, search } = router.state.location;
-  if (publicPaths.includes(pathname)) return;
+  const { location, navigation, initialized } = router.state;
+  if (!initialized || navigation.state !== 'idle') return;
+  if (publicPaths.includes(location.pathname)) return;
   queryClient.clear();
-  void router.navigate(`${paths.signIn}?next=${encodeURIComponent(pathname + search)}`, { replace: true });
+  void router.navigate(paths.signInThenBack(location.pathname + location.search), { replace: true });
 });

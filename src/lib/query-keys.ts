@@ -25,10 +25,12 @@ export const projectKeys = {
 };
 
 export const moleculeKeys = {
+  /** Prefix of every molecule and of every molecule's mapping list. */
+  all: ['molecules'] as const,
   /** Prefix of every search of a project's molecules. */
   ofProject: (projectId: number) => [...projectKeys.detail(projectId), 'molecules'] as const,
   search: (projectId: number, q: string) => [...moleculeKeys.ofProject(projectId), { q }] as const,
-  detail: (moleculeId: number) => ['molecules', moleculeId] as const,
+  detail: (moleculeId: number) => [...moleculeKeys.all, moleculeId] as const,
 };
 
 export const beadTypeKeys = {

@@ -8,7 +8,7 @@ import { useLogout } from '../../features/auth/api/logout';
 import { EmailPreferencesForm } from '../../features/notifications/components/email-preferences-form';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { paths } from '../../lib/paths';
-import { useCurrentUser } from '../shell/current-user';
+import { useCurrentUser } from '../../lib/auth';
 
 export function AccountRoute() {
   useDocumentTitle('Your account');

@@ -1,44 +1,32 @@
 import { useState } from 'react';
-import { useParams } from 'react-router';
+import { useLoaderData } from 'react-router';
+import { useSuspenseQuery } from '@tanstack/react-query';
 import { Button } from '../../components/ui/button';
 import { ImportMappingDialog } from '../../features/molecules/components/import-mapping-dialog';
-import { ErrorAlert } from '../../components/ui/alert';
-import { Loading } from '../../components/ui/loading';
 import { PageHeader } from '../../components/ui/page-header';
 import { Section } from '../../components/ui/section';
 import { TextLink } from '../../components/ui/text-link';
 import { MappingList } from '../../features/mappings/components/mapping-list';
 import { NewMappingForm } from '../../features/mappings/components/new-mapping-form';
-import { useMolecule } from '../../features/molecules/api/get-molecule';
+import { moleculeQueryOptions } from '../../features/molecules/api/get-molecule';
 import { MoleculeActions } from '../../features/molecules/components/molecule-actions';
 import { MoleculeFacts } from '../../features/molecules/components/molecule-facts';
 import { MoleculeThumbnail } from '../../features/molecules/components/molecule-thumbnail';
 import { useProject } from '../../features/projects/api/get-project';
 import { useDocumentTitle } from '../../hooks/use-document-title';
-import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
-import { can } from '../../shared/permissions';
-import { useCurrentUser } from '../shell/current-user';
-import { NotFoundRoute } from './not-found';
+import { useCan } from '../../lib/authorization';
+import type { moleculeLoader } from '../loaders/page-loaders';
 
 export function MoleculeRoute() {
-  const moleculeId = Number(useParams().moleculeId);
-  return Number.isInteger(moleculeId) && moleculeId > 0 ? <MoleculePage moleculeId={moleculeId} /> : <NotFoundRoute />;
-}
-
-function MoleculePage({ moleculeId }: { moleculeId: number }) {
-  const me = useCurrentUser();
-  const molecule = useMolecule(moleculeId);
-  const project = useProject(molecule.data?.projectId ?? 0);
+  const { moleculeId } = useLoaderData<typeof moleculeLoader>();
+  const m = useSuspenseQuery(moleculeQueryOptions(moleculeId)).data;
+  const project = useProject(m.projectId);
   const [importing, setImporting] = useState(false);
-  useDocumentTitle(molecule.data?.name);
-  if (molecule.isPending) return <Loading label="Loading molecule…" />;
-  if (molecule.isError) return isApiError(molecule.error) && molecule.error.status === 404 ? <NotFoundRoute /> : <ErrorAlert error={molecule.error} />;
-  const m = molecule.data;
+  useDocumentTitle(m.name);
   // The shared rule table decides, as on the server (site admins included).
-  const standing = { isAdmin: me.isAdmin, role: project.data?.role ?? null };
-  const canEdit = can(standing, 'molecule:update');
-  const canMap = can(standing, 'mapping:create');
+  const canEdit = useCan('molecule:update', m.projectId);
+  const canMap = useCan('mapping:create', m.projectId);
 
   return (
     <>

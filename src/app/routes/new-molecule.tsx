@@ -1,4 +1,4 @@
-import { useParams } from 'react-router';
+import { useLoaderData } from 'react-router';
 import { PageHeader } from '../../components/ui/page-header';
 import { Section } from '../../components/ui/section';
 import { TextLink } from '../../components/ui/text-link';
@@ -6,12 +6,11 @@ import { CreateMoleculeForm } from '../../features/molecules/components/create-m
 import { UploadMoleculesForm } from '../../features/molecules/components/upload-molecules-form';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { paths } from '../../lib/paths';
-import { NotFoundRoute } from './not-found';
+import type { newMoleculeLoader } from '../loaders/page-loaders';
 
 export function NewMoleculeRoute() {
-  const projectId = Number(useParams().projectId);
+  const { projectId } = useLoaderData<typeof newMoleculeLoader>();
   useDocumentTitle('New molecule');
-  if (!Number.isInteger(projectId) || projectId <= 0) return <NotFoundRoute />;
   return (
     <>
       <PageHeader eyebrow={<TextLink to={paths.project(projectId)}>Back to the project</TextLink>} title="New molecule" />

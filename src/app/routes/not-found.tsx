@@ -3,7 +3,7 @@ import { useDocumentTitle } from '../../hooks/use-document-title';
 import { paths } from '../../lib/paths';
 
 /** Also what a project looks like to someone who is not its member. */
-export function NotFoundRoute() {
+export function NotFoundPage() {
   useDocumentTitle('Not found');
   return (
     <div className="py-16 text-center">

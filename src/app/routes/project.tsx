@@ -1,12 +1,11 @@
 import { useState } from 'react';
-import { useParams } from 'react-router';
-import { ErrorAlert } from '../../components/ui/alert';
+import { useLoaderData } from 'react-router';
+import { useSuspenseQuery } from '@tanstack/react-query';
 import { Button } from '../../components/ui/button';
-import { Loading } from '../../components/ui/loading';
 import { PageHeader } from '../../components/ui/page-header';
 import { Section } from '../../components/ui/section';
 import { TextLink } from '../../components/ui/text-link';
-import { useProject } from '../../features/projects/api/get-project';
+import { projectQueryOptions } from '../../features/projects/api/get-project';
 import { AddMemberForm } from '../../features/projects/components/add-member-form';
 import { EditProjectForm } from '../../features/projects/components/edit-project-form';
 import { MemberList } from '../../features/projects/components/member-list';
@@ -14,34 +13,22 @@ import { BeadTypeLibrary } from '../../features/bead-types/components/bead-type-
 import { MoleculeList } from '../../features/molecules/components/molecule-list';
 import { RoleBadge } from '../../features/projects/components/role-badge';
 import { useDocumentTitle } from '../../hooks/use-document-title';
-import { isApiError } from '../../lib/api-client';
 import { paths } from '../../lib/paths';
-import { useCurrentUser } from '../shell/current-user';
-import { can } from '../../shared/permissions';
-import { NotFoundRoute } from './not-found';
+import { useCurrentUser } from '../../lib/auth';
+import { useCan } from '../../lib/authorization';
+import type { projectLoader } from '../loaders/page-loaders';
 
 export function ProjectRoute() {
-  const projectId = Number(useParams().projectId);
-  const valid = Number.isInteger(projectId) && projectId > 0;
-  return valid ? <ProjectPage projectId={projectId} /> : <NotFoundRoute />;
-}
-
-function ProjectPage({ projectId }: { projectId: number }) {
+  const { projectId } = useLoaderData<typeof projectLoader>();
   const me = useCurrentUser();
-  const project = useProject(projectId);
+  const project = useSuspenseQuery(projectQueryOptions(projectId));
   const [editing, setEditing] = useState(false);
-  useDocumentTitle(project.data?.name);
-
-  if (project.isPending) return <Loading label="Loading project…" />;
-  if (project.isError) {
-    if (isApiError(project.error) && project.error.status === 404) return <NotFoundRoute />;
-    return <ErrorAlert error={project.error} />;
-  }
+  useDocumentTitle(project.data.name);
 
   // The shared rule table decides, as on the server.
-  const standing = { isAdmin: me.isAdmin, role: project.data.role };
-  const canManage = can(standing, 'members:manage');
-  const canModel = can(standing, 'molecule:create');
+  const canManage = useCan('members:manage', projectId);
+  const canAddMolecules = useCan('molecule:create', projectId);
+  const canEditLibrary = useCan('library:edit', projectId);
 
   return (
     <>
@@ -65,7 +52,7 @@ function ProjectPage({ projectId }: { projectId: number }) {
         <Section
           title="Molecules"
           description="Structures this group maps to beads."
-          actions={canModel && <TextLink to={paths.newMolecule(projectId)}>New molecule</TextLink>}
+          actions={canAddMolecules && <TextLink to={paths.newMolecule(projectId)}>New molecule</TextLink>}
         >
           <MoleculeList projectId={projectId} />
         </Section>
@@ -81,7 +68,7 @@ function ProjectPage({ projectId }: { projectId: number }) {
         </div>
       </div>
       <Section title="Bead type library" className="mt-6" description="The types bead suggestions are drawn from (ΔG_OW in kJ/mol, positive prefers octanol).">
-        <BeadTypeLibrary projectId={projectId} canEdit={canModel} />
+        <BeadTypeLibrary projectId={projectId} canEdit={canEditLibrary} />
       </Section>
     </>
   );

@@ -8,11 +8,11 @@ import { CreateProjectForm } from '../../features/projects/components/create-pro
 import { ProjectList } from '../../features/projects/components/project-list';
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { paths } from '../../lib/paths';
-import { useCurrentUser } from '../shell/current-user';
+import { useCanSite } from '../../lib/authorization';
 
 export function ProjectsRoute() {
   useDocumentTitle('Projects');
-  const me = useCurrentUser();
+  const canCreate = useCanSite('project:create');
   const navigate = useNavigate();
   const [creating, setCreating] = useState(false);
   // A one-time message from the page that sent us here (e.g. after choosing a password).
@@ -24,7 +24,7 @@ export function ProjectsRoute() {
         title="Projects"
         description="Each project holds one group's molecules, their mappings and the people who work on them."
         actions={
-          me.canCreateProjects &&
+          canCreate &&
           !creating && <Button onClick={() => setCreating(true)}>New project</Button>
         }
       />

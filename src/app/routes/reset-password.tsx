@@ -19,7 +19,7 @@ export function ResetPasswordRoute() {
         <ResetPasswordForm
           token={token}
           onDone={(signedIn) =>
-            signedIn ? navigate(paths.projects, { replace: true, state: { notice: 'Your password is set and you are signed in.' } }) : navigate(`${paths.signIn}?password=set`, { replace: true })
+            signedIn ? navigate(paths.projects, { replace: true, state: { notice: 'Your password is set and you are signed in.' } }) : navigate(paths.signInPasswordSet, { replace: true })
           }
         />
       ) : (

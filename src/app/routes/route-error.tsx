@@ -1,10 +1,18 @@
 import { isRouteErrorResponse, useRouteError } from 'react-router';
 import { ErrorAlert } from '../../components/ui/alert';
 import { Logo } from '../../components/ui/logo';
+import { isApiError } from '../../lib/api-client';
+import { NotFoundPage } from './not-found';
 
-/** Last resort when a page throws while rendering. */
+/**
+ * The one route error boundary. A 404 from a loader (unknown path or id, a record that is gone or
+ * belongs to a project the caller is not in) or from a page's own read shows "Nothing here";
+ * anything else is a page that broke.
+ */
 export function RouteError() {
   const error = useRouteError();
+  const missing = (isRouteErrorResponse(error) || isApiError(error)) && error.status === 404;
+  if (missing) return <NotFoundPage />;
   const message = isRouteErrorResponse(error) ? `${error.status} ${error.statusText}` : undefined;
   return (
     <div className="mx-auto max-w-lg px-4 py-16">

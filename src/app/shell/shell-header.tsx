@@ -6,6 +6,7 @@ import { useLogout } from '../../features/auth/api/logout';
 import { NotificationBell } from '../../features/notifications/components/notification-bell';
 import { cn } from '../../lib/cn';
 import { paths } from '../../lib/paths';
+import { useCanSite } from '../../lib/authorization';
 
 const navLink = ({ isActive }: { isActive: boolean }) =>
   cn(
@@ -15,6 +16,7 @@ const navLink = ({ isActive }: { isActive: boolean }) =>
 
 export function ShellHeader({ me }: { me: Me }) {
   const navigate = useNavigate();
+  const canManageUsers = useCanSite('users:manage');
   const logout = useLogout({ onSettled: () => navigate(paths.signIn, { replace: true }) });
 
   return (
@@ -27,7 +29,7 @@ export function ShellHeader({ me }: { me: Me }) {
           <NavLink to={paths.projects} className={navLink}>
             Projects
           </NavLink>
-          {me.isAdmin && (
+          {canManageUsers && (
             <NavLink to={paths.adminUsers} className={navLink}>
               Users
             </NavLink>

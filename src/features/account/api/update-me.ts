@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Me, UpdateMeBody } from '../../../shared/auth';
 import { api } from '../../../lib/api-client';
-import { meQueryOptions } from './get-me';
+import { meQueryOptions } from '../../../lib/auth';
 
 export function updateMe(body: UpdateMeBody): Promise<Me> {
   return api.patch<Me>('/api/me', body);

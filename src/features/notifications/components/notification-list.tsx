@@ -4,8 +4,9 @@ import type { NotificationItem, NotificationList as List } from '../../../shared
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../lib/cn';
+import { paths } from '../../../lib/paths';
 
-const href = (n: NotificationItem) => `/mappings/${n.mappingId}?${new URLSearchParams({ bead: n.beadId, thread: String(n.threadId) })}`;
+const href = (n: NotificationItem) => paths.mapping(n.mappingId, { bead: n.beadId, thread: String(n.threadId) });
 const what = (n: NotificationItem) => `${n.actor?.displayName ?? 'Someone'} ${n.kind === 'mention' ? 'mentioned you' : 'replied'} in ${n.mappingName}`;
 
 interface Props {
