@@ -9,7 +9,7 @@ const apiPort = Number(process.env.API_PORT ?? 4821);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', sourcemap: true, chunkSizeWarningLimit: 2000 },
+  build: { outDir: 'dist', sourcemap: true },
   server: {
     port: Number(process.env.PORT ?? 4820),
     proxy: {

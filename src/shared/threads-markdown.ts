@@ -59,17 +59,5 @@ export function renderCommentHtml(body: string): string {
   return renderer.render(body);
 }
 
-/** Plain text of a body (mentions as @Name, Markdown marks dropped), e.g. for excerpts. */
-export function commentPlainText(body: string): string {
-  return body
-    .replace(/@\[([^\]\n]{1,200})\]\(user:[0-9]+\)/g, '@$1')
-    .replace(/\[([^\]]*)\]\(([^)\s]*)\)/g, '$1')
-    .replace(/[*_`~]+/g, '')
-    .replace(/\s+/g, ' ')
-    .trim();
-}
-
-export function excerpt(body: string, max = 140): string {
-  const text = commentPlainText(body);
-  return text.length > max ? `${text.slice(0, max - 1)}…` : text;
-}
+// Plain-text helpers live apart so the client can show excerpts without loading markdown-it.
+export { commentPlainText, excerpt } from './threads-text';

@@ -1,11 +1,10 @@
-import type { KeyboardEvent } from 'react';
+import { lazy, Suspense, type KeyboardEvent } from 'react';
 import type { BeadTypeRow } from '../../../shared/bead-types';
 import type { Check, Evaluation, Molecule } from '../../../shared/chem';
 import type { SessionSnapshot } from '../collab/mapping-session';
 import type { useEditorState } from '../hooks/use-editor-state';
 import type { MappingView } from '../model/bead-view';
 import type { Peer } from '../model/presence';
-import { BeadGraph } from './bead-graph';
 import { BeadInspector } from './bead-inspector';
 import { BeadTable } from './bead-table';
 import { ChecksPanel } from './checks-panel';
@@ -34,6 +33,10 @@ interface EditorLayoutProps {
   onShowCheck(check: Check | null): void;
   threads?: EditorThreads;
 }
+
+// The bead graph brings @xyflow/react and d3 (about a third of the editor's code): it loads beside
+// the rest of the editor instead of holding it up.
+const BeadGraph = lazy(() => import('./bead-graph').then((m) => ({ default: m.BeadGraph })));
 
 const READ_ONLY_TEXT = { role: 'Students watch the draft live; editing is for modellers and supervisors.', locked: 'A production version is locked, so the draft is read-only until a supervisor unlocks it.' };
 
@@ -94,7 +97,9 @@ export function EditorLayout(p: EditorLayoutProps) {
             )}
           </Panel>
           <Panel title="Bead graph" className="h-64 p-0">
-            <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={state.selectOnly} threads={p.threads} />
+            <Suspense fallback={<p className="p-3 text-sm text-ink-600">Drawing the bead graph…</p>}>
+              <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={state.selectOnly} threads={p.threads} />
+            </Suspense>
           </Panel>
           <Panel title="Checks">
             <ChecksPanel checks={p.evaluation?.checks ?? null} active={p.activeCheck} onShow={p.onShowCheck} />

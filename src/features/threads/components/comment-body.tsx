@@ -1,16 +1,15 @@
-import { useMemo } from 'react';
-import { renderCommentHtml } from '../../../shared/threads-markdown';
+import { lazy, Suspense } from 'react';
+import { commentPlainText } from '../../../shared/threads-text';
 
-/**
- * A comment rendered from its Markdown. Setting HTML is safe here only because renderCommentHtml
- * (markdown-it, raw HTML off, links limited to http(s)/mailto/same-site) escapes everything else.
- */
+// markdown-it and its helpers are about a fifth of the editor's code; they load when the first
+// comment is shown, and the comment reads as plain text until then.
+const RenderedCommentBody = lazy(() => import('./rendered-comment-body').then((m) => ({ default: m.RenderedCommentBody })));
+
+/** A comment rendered from its Markdown (see rendered-comment-body.tsx for why that is safe). */
 export function CommentBody({ body }: { body: string }) {
-  const html = useMemo(() => renderCommentHtml(body), [body]);
   return (
-    <div
-      className="comment-body text-sm text-ink-900 break-words [&_a]:text-ink-700 [&_a]:underline [&_code]:rounded [&_code]:bg-paper-200 [&_code]:px-1 [&_ol]:list-decimal [&_ol]:pl-5 [&_p]:my-1 [&_pre]:overflow-x-auto [&_pre]:rounded [&_pre]:bg-paper-200 [&_pre]:p-2 [&_ul]:list-disc [&_ul]:pl-5 [&_.mention]:rounded [&_.mention]:bg-ink-100 [&_.mention]:px-1 [&_.mention]:font-semibold"
-      dangerouslySetInnerHTML={{ __html: html }}
-    />
+    <Suspense fallback={<p className="text-sm text-ink-900 break-words">{commentPlainText(body)}</p>}>
+      <RenderedCommentBody body={body} />
+    </Suspense>
   );
 }

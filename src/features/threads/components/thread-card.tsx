@@ -1,5 +1,5 @@
 import type { Thread } from '../../../shared/threads';
-import { excerpt } from '../../../shared/threads-markdown';
+import { excerpt } from '../../../shared/threads-text';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';

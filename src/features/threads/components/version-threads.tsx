@@ -1,5 +1,5 @@
 import { Link } from 'react-router';
-import { excerpt } from '../../../shared/threads-markdown';
+import { excerpt } from '../../../shared/threads-text';
 import { Badge } from '../../../components/ui/badge';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Loading } from '../../../components/ui/loading';
