@@ -41,6 +41,9 @@ export default tseslint.config(
       'react-hooks/set-state-in-effect': 'off',
       // Warns that TanStack Table's useReactTable cannot be memoised by the compiler, which we do not use.
       'react-hooks/incompatible-library': 'off',
+      // The client runs in the browser. tsconfig.client.json has no Node types, but @types/papaparse
+      // pulls them in, so the compiler alone would not notice Node globals here.
+      'no-restricted-globals': ['error', 'process', 'Buffer', 'global', '__dirname', '__filename', 'require'],
     },
   },
   ...pluginQuery.configs['flat/recommended'].map((c) => ({ ...c, files: ['src/**/*.{ts,tsx}'] })),
