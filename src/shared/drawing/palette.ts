@@ -1,11 +1,11 @@
-import theme from '../../../tailwind.config';
+import { THEME_COLOURS } from './theme-colours';
 
-// Colours of drawings, from the theme (tailwind.config.ts), shared by the editor, the molecule pages
+// Colours of drawings, from the theme (theme-colours.ts, the same as src/index.css's @theme), shared by the editor, the molecule pages
 // and the server's SVG/PNG exports so a bead is the same colour on screen and in a file.
 // Bead colours: the colour-blind-safe categorical palette; black is kept last and used only after
 // the seven chromatic colours are taken; hulls are drawn translucent.
 
-const { bead, ink, paper } = theme.theme.extend.colors;
+const { bead, ink, paper } = THEME_COLOURS;
 
 export const BEAD_COLOURS: readonly string[] = [bead.orange, bead.sky, bead.green, bead.yellow, bead.blue, bead.vermillion, bead.purple, bead.black];
 

@@ -1,8 +1,8 @@
-import theme from '../../../../tailwind.config';
+import { THEME_COLOURS } from '../../../shared/drawing/theme-colours';
 import type { PlacedBead } from '../../../shared/exports';
 import type { MoleculeSketch } from '../../../shared/molecules';
 
-const COLOURS = Object.values(theme.theme.extend.colors.bead);
+const COLOURS = Object.values(THEME_COLOURS.bead);
 
 /**
  * Where an import would put its beads: the molecule's line drawing with every atom a dot in its
