@@ -18,7 +18,7 @@
  * database (tests/unit/drafts/).
  */
 import * as Y from 'yjs';
-import { Awareness, applyAwarenessUpdate, encodeAwarenessUpdate, removeAwarenessStates } from 'y-protocols/awareness';
+import type { Awareness } from 'y-protocols/awareness';
 import type { Logger } from 'pino';
 import { docToMapping, mappingToDoc } from '../../src/shared/mapping-doc';
 import type { Mapping } from '../../src/shared/chem';
@@ -29,7 +29,8 @@ import type { DraftRelay, RelayedMessage, RelayedUpdate } from './draft-relay';
 import { CheckedShadow, copyOf } from './checked-shadow';
 import { Compactor } from './compactor';
 import { RowTouch } from './row-touch';
-import { awarenessFrame, evaluationFrame, restoreFrame, syncUpdateFrame } from './frames';
+import { evaluationFrame, restoreFrame, syncUpdateFrame } from './frames';
+import { RoomPresence } from './room-presence';
 import type { CollabOptions } from './room-options';
 import type { Peer } from './peer';
 
@@ -45,11 +46,10 @@ export interface RoomDeps {
   options: CollabOptions;
 }
 
-/** The origin of awareness changes that came through the relay from another server (not published again). */
+/** The origin of updates that came through the relay from another server. */
 const RELAYED = Symbol('relayed');
 
 export class DraftRoom {
-  readonly awareness: Awareness;
   readonly peers = new Set<Peer>();
   closed = false;
   /** Called once the last peer left and the draft was compacted (the registry then drops the room). */
@@ -57,6 +57,7 @@ export class DraftRoom {
   /** Relayed updates that did not follow the last one seen (a lost message: this room's draft is behind). */
   gaps = 0;
   private readonly shadow: CheckedShadow;
+  private readonly presence: RoomPresence;
   private incoming: { peer: Peer; update: Uint8Array }[] = [];
   private queue: Promise<unknown> = Promise.resolve();
   private flushQueued = false;
@@ -81,9 +82,7 @@ export class DraftRoom {
     this.relayedSeq = lastUpdateId;
     this.compactor = new Compactor(mappingId, doc, storage, lastUpdateId, uncompacted, (err) => log.error({ err, mappingId }, 'compaction failed'));
     this.rowTouch = new RowTouch((beads) => storage.touch(mappingId, beads), (err) => log.warn({ err, mappingId }, 'could not update the mapping row'));
-    this.awareness = new Awareness(doc);
-    this.awareness.setLocalState(null);
-    this.awareness.on('update', this.onAwareness);
+    this.presence = new RoomPresence(doc, this.peers, (update) => deps.relay.publish({ kind: 'awareness', mappingId, update, instance: deps.instance }));
     this.unsubscribe = deps.relay.subscribe(mappingId, this.onRelayed);
     this.compactTimer = setInterval(() => void this.compactor.compact(), options.compactIntervalMs);
     this.compactTimer.unref();
@@ -98,6 +97,10 @@ export class DraftRoom {
     if (!inputs) return null;
     const stored = await deps.storage.load(mappingId, inputs.model.atoms.length);
     return new DraftRoom(deps, inputs, stored.doc, stored.lastUpdateId, stored.pending);
+  }
+
+  get awareness(): Awareness {
+    return this.presence.awareness;
   }
 
   get id(): number {
@@ -136,7 +139,7 @@ export class DraftRoom {
   /** Removes a peer and its awareness; resolves true when the room emptied and was compacted. */
   leave(peer: Peer): Promise<boolean> {
     this.peers.delete(peer);
-    removeAwarenessStates(this.awareness, [...peer.controlled], null);
+    this.presence.forget(peer);
     return this.releaseIfIdle();
   }
 
@@ -229,7 +232,7 @@ export class DraftRoom {
     this.unsubscribe();
     this.rowTouch.close();
     this.evaluator.close();
-    this.awareness.destroy();
+    this.presence.destroy();
   }
 
   private adopt(inputs: EvaluationInputs): void {
@@ -286,11 +289,7 @@ export class DraftRoom {
 
   private onRelayed = (message: RelayedMessage): void => {
     if (this.closed) return;
-    if (message.kind === 'awareness') {
-      if (message.instance === this.deps.instance) this.sendAll(awarenessFrame(message.update));
-      else applyAwarenessUpdate(this.awareness, message.update, RELAYED);
-      return;
-    }
+    if (message.kind === 'awareness') return this.presence.relayed(message.update, message.instance === this.deps.instance);
     this.followSequence(message);
     if (message.instance !== this.deps.instance) {
       // Stored and checked by another server's room.
@@ -325,17 +324,4 @@ export class DraftRoom {
     if (revision === 0) return; // the room's first evaluation: nothing was edited
     this.rowTouch.edited(result.evaluation?.beads.length ?? this.draft().beads.length);
   }
-
-  private onAwareness = ({ added, updated, removed }: { added: number[]; updated: number[]; removed: number[] }, origin: unknown) => {
-    const peer = [...this.peers].find((p) => p === origin);
-    if (peer) {
-      for (const id of added) peer.controlled.add(id);
-      for (const id of removed) peer.controlled.delete(id);
-    }
-    const changed = [...added, ...updated, ...removed];
-    if (changed.length === 0) return;
-    const update = encodeAwarenessUpdate(this.awareness, changed);
-    if (origin === RELAYED) this.sendAll(awarenessFrame(update));
-    else this.deps.relay.publish({ kind: 'awareness', mappingId: this.id, update, instance: this.deps.instance });
-  };
 }

@@ -4,6 +4,7 @@ import { beadsOf, createBead, docToMapping, renameBead } from '../../../src/shar
 import type { EvaluationInputs } from '../../../server/drafts/evaluate-draft';
 import type { DraftRoom } from '../../../server/drafts/draft-room';
 import { createInProcessRelay } from '../../../server/drafts/in-process-relay';
+import { Awareness, applyAwarenessUpdate, encodeAwarenessUpdate } from 'y-protocols/awareness';
 import { MemoryDraftStorage } from '../../../server/drafts/memory-draft-storage';
 import { drained, openRoom, propanolInputs, testPeer, updateOn } from './room-test-kit';
 
@@ -220,6 +221,33 @@ describe('the relay between servers', () => {
     const later = updateOn(room.doc, (d) => renameBead(d, 'x', 'Y'));
     relay.publish({ kind: 'update', mappingId: inputs.mappingId, seq: 14, prevSeq: 12, update: later, instance: 'other-server', sender: 'someone' });
     expect(room.gaps).toBe(1);
+  });
+});
+
+describe('two servers on one relay', () => {
+  it('each stores its own peers’ updates; the other applies them and sends them on, presence too', async () => {
+    const relay = createInProcessRelay();
+    const a = await kit({ relay, instance: 'server-a' });
+    const b = await kit({ relay, instance: 'server-b' }, a.storage); // one database behind both
+    const alice = testPeer(1);
+    const bob = testPeer(2);
+    a.room.join(alice);
+    b.room.join(bob);
+
+    a.room.receiveUpdate(alice, updateOn(a.room.doc, (d) => createBead(d, [0, 1, 2], { id: 'c3', name: 'C3' })));
+    await drained(a.room);
+    expect(a.storage.updates).toHaveLength(1); // stored once, by the server that took it
+    expect(beadIds(b.room.doc)).toEqual(['c3']);
+    expect(bob.updates).toHaveLength(1);
+    expect(b.room.gaps).toBe(0);
+
+    const tab = new Awareness(new Y.Doc());
+    tab.setLocalState({ cursor: 2 });
+    applyAwarenessUpdate(a.room.awareness, encodeAwarenessUpdate(tab, [tab.clientID]), alice);
+    expect(alice.controlled.has(tab.clientID)).toBe(true);
+    expect(bob.presence).toHaveLength(1);
+    expect(alice.presence).toHaveLength(1); // the sender sees its own presence, as from one server
+    expect(b.room.awareness.getStates().get(tab.clientID)).toEqual({ cursor: 2 });
   });
 });
 

@@ -10,7 +10,7 @@ import { DEFAULT_COLLAB_OPTIONS } from '../../../server/drafts/room-options';
 import type { DraftRelay, RelayedMessage } from '../../../server/drafts/draft-relay';
 import type { Peer } from '../../../server/drafts/peer';
 import type { CollabErrorMessage } from '../../../src/shared/collab-protocol';
-import { MESSAGE_EVALUATION, MESSAGE_SYNC } from '../../../src/shared/collab-protocol';
+import { MESSAGE_AWARENESS, MESSAGE_EVALUATION, MESSAGE_SYNC } from '../../../src/shared/collab-protocol';
 
 // A room on the in-memory seams: MemoryDraftStorage, the in-process relay, and the real evaluation
 // (evaluate-draft.ts, run in this test's thread instead of the evaluation thread). Every step the
@@ -21,6 +21,8 @@ export type Step = 'store' | 'relay' | 'evaluate';
 export interface TestPeer extends Peer {
   /** Yjs updates this peer was sent, in order. */
   updates: Uint8Array[];
+  /** Awareness updates this peer was sent. */
+  presence: Uint8Array[];
   errors: CollabErrorMessage[];
   retries: string[];
   evaluations: number;
@@ -38,6 +40,7 @@ export function testPeer(userId = 1): TestPeer {
     sessionId: null,
     controlled: new Set(),
     updates: [],
+    presence: [],
     errors: [],
     retries: [],
     evaluations: 0,
@@ -45,6 +48,7 @@ export function testPeer(userId = 1): TestPeer {
       const d = decoding.createDecoder(frame);
       const type = decoding.readVarUint(d);
       if (type === MESSAGE_SYNC && decoding.readVarUint(d) === messageYjsUpdate) peer.updates.push(decoding.readVarUint8Array(d));
+      if (type === MESSAGE_AWARENESS) peer.presence.push(decoding.readVarUint8Array(d));
       if (type === MESSAGE_EVALUATION) {
         peer.evaluations++;
         for (const w of waiting.splice(0)) w();
