@@ -1,16 +1,25 @@
 /**
  * Cutting a large molecule into pieces for 2D layout. openchemlib's coordinate inventor grows about
- * with the square of the atom count (≈ 1 s at 1,000 and ≈ 5 s at 2,000 heavy atoms on one core), so
- * a molecule above CHUNK_ATOMS heavy atoms is laid out piece by piece: pieces are grown breadth-first
- * over whole ring systems and chain atoms (a ring is never cut), each cut at chain bonds (bonds in
- * no ring). ocl-build.ts lays out each piece with a stub atom at each cut bond and joins the pieces
- * rigidly at those bonds; layout-cleanup.ts then separates whatever the joined pieces overlap.
+ * with the square of the atom count (≈ 1 s at 1,000 and 5–15 s at 2,000 heavy atoms on one core) and
+ * folds long chains with side rings onto themselves (a 1,926-atom polystyrene in one piece had 440
+ * pairs of atoms closer than half a bond), so a molecule above LARGE_MOLECULE heavy atoms is laid
+ * out piece by piece: pieces of at most PIECE_ATOMS are grown breadth-first over whole ring systems
+ * and chain atoms (a ring is never cut), each cut at chain bonds (bonds in no ring).
+ * layout-pieces.ts lays out each piece with a stub atom at each cut bond and joins the pieces rigidly
+ * at those bonds; layout-cleanup.ts then separates whatever the joined pieces overlap.
  */
 
-export const CHUNK_ATOMS = 300;
+/** The polystyrene 18-mer (150 atoms) still comes out clean from one piece. */
+export const LARGE_MOLECULE = 200;
+/**
+ * Piece sizes tried in turn until the joined drawing has no clash: 60 heavy atoms is small enough
+ * that the inventor draws a polystyrene piece without crowding its rings; a polymer with long plain
+ * chains between side groups joins with fewer clashes from pieces of 150.
+ */
+export const PIECE_ATOMS = [60, 150];
 
 /** Piece number of every atom; pieces are connected and numbered in breadth-first order from piece 0. */
-export function chunkAtoms(n: number, bonds: readonly { a: number; b: number }[], ringBond: (a: number, b: number) => boolean, limit = CHUNK_ATOMS): number[] {
+export function chunkAtoms(n: number, bonds: readonly { a: number; b: number }[], ringBond: (a: number, b: number) => boolean, limit = PIECE_ATOMS[0]): number[] {
   const adj: number[][] = Array.from({ length: n }, () => []);
   for (const b of bonds) {
     adj[b.a].push(b.b);

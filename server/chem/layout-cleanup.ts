@@ -12,12 +12,11 @@
  * Pure: positions in, positions out.
  */
 
-export interface XY {
-  x: number;
-  y: number;
-}
+import { PointGrid, type XY } from './layout-grid';
 
-const CLASH = 0.55;
+export type { XY };
+
+export const CLASH = 0.55;
 const CLEAR = 0.8;
 const MAX_ROUNDS = 60;
 const MAX_BONDS_TRIED = 12;
@@ -30,18 +29,13 @@ export function medianBondLength(points: readonly XY[], bonds: readonly { a: num
 
 /** Pairs of atoms closer than `factor` × the median bond length (grid of one bond length). */
 export function closePairs(points: readonly XY[], bonds: readonly { a: number; b: number }[], factor: number): [number, number][] {
-  const limit = factor * medianBondLength(points, bonds);
-  const size = Math.max(limit, 1e-6);
-  const grid = new Map<string, number[]>();
+  const grid = new PointGrid(Math.max(factor * medianBondLength(points, bonds), 1e-6));
   const out: [number, number][] = [];
+  const found: number[] = [];
   points.forEach((p, i) => {
-    const cx = Math.floor(p.x / size);
-    const cy = Math.floor(p.y / size);
-    for (let dx = -1; dx <= 1; dx++)
-      for (let dy = -1; dy <= 1; dy++)
-        for (const j of grid.get(`${cx + dx},${cy + dy}`) ?? []) if (Math.hypot(points[j].x - p.x, points[j].y - p.y) < limit) out.push([j, i]);
-    const key = `${cx},${cy}`;
-    grid.set(key, [...(grid.get(key) ?? []), i]);
+    found.length = 0;
+    for (const j of grid.near(p, found)) out.push([j, i]);
+    grid.add(p, i);
   });
   return out;
 }
@@ -135,29 +129,12 @@ export function cleanLayout(input: readonly XY[], bonds: readonly { a: number; b
   const L = medianBondLength(points, bonds);
   const clear = CLEAR * L;
   const inSide = new Uint8Array(n);
-  const slot = new Int32Array(n);
 
-  /** Crowding between the atoms of `moved` (at `at`) and every other atom. */
-  const penalty = (moved: number[], at: (i: number) => XY): number => {
-    const grid = new Map<string, number[]>();
-    const cell = (v: number) => Math.floor(v / clear);
-    for (let i = 0; i < n; i++) {
-      if (inSide[i]) continue;
-      const key = `${cell(points[i].x)},${cell(points[i].y)}`;
-      grid.set(key, [...(grid.get(key) ?? []), i]);
-    }
-    let total = 0;
-    for (const a of moved) {
-      const p = at(a);
-      const [cx, cy] = [cell(p.x), cell(p.y)];
-      for (let dx = -1; dx <= 1; dx++)
-        for (let dy = -1; dy <= 1; dy++)
-          for (const b of grid.get(`${cx + dx},${cy + dy}`) ?? []) {
-            const d = Math.hypot(points[b].x - p.x, points[b].y - p.y);
-            if (d < clear) total += (clear - d) ** 2;
-          }
-    }
-    return total;
+  /** The atoms not being moved, in a grid, to measure a move's crowding against. */
+  const others = (): PointGrid => {
+    const grid = new PointGrid(clear);
+    for (let i = 0; i < n; i++) if (!inSide[i]) grid.add(points[i], i);
+    return grid;
   };
 
   for (let round = 0; round < MAX_ROUNDS; round++) {
@@ -175,12 +152,13 @@ export function cleanLayout(input: readonly XY[], bonds: readonly { a: number; b
         const sv = side(adj, v, u);
         const su = side(adj, u, v);
         const [moved, pivot, other] = sv.length <= su.length ? [sv, u, v] : [su, v, u];
-        moved.forEach((a, k) => ((inSide[a] = 1), (slot[a] = k)));
-        const before = penalty(moved, (a) => points[a]);
+        moved.forEach((a) => (inSide[a] = 1));
+        const rest = others();
+        const before = rest.crowding(moved.map((a) => points[a]));
         const candidates: XY[][] = [reflect(moved, points, points[pivot], points[other])];
         for (const t of TURNS) candidates.push(turn(moved, points, points[pivot], t));
         for (const to of candidates) {
-          const after = penalty(moved, (a) => to[slot[a]]);
+          const after = rest.crowding(to);
           if (after < before - 1e-9 && (!best || before - after > best.gain)) best = { moved, to, gain: before - after };
         }
         moved.forEach((a) => (inSide[a] = 0));

@@ -16,6 +16,9 @@ const MOLECULES: [string, string][] = [
   ['styrene–acrylic acid–ethylene oxide polymer ×5', 'C' + 'CC(c1ccccc1)CC(C(=O)O)COCCO'.repeat(5) + 'C'],
   // 704 heavy atoms: above layout-chunks.ts's 300, so laid out in pieces joined at chain bonds.
   ['the same polymer ×39 (laid out in pieces)', 'C' + 'CC(c1ccccc1)CC(C(=O)O)COCCO'.repeat(39) + 'C'],
+  // 4 + 240 × 8 + 2 = 1,926 heavy atoms: openchemlib's inventor in one piece left 440 pairs closer than half a bond.
+  ['polystyrene 240-mer (1,926 heavy atoms, laid out in pieces)', 'CCCC' + 'CC(c1ccccc1)'.repeat(240) + 'CC'],
+  ['the styrene–acrylic acid–ethylene oxide polymer ×111 (2,000 heavy atoms)', 'C' + 'CC(c1ccccc1)CC(C(=O)O)COCCO'.repeat(111) + 'C'],
 ];
 
 function minimumRatio(atoms: { x: number; y: number }[], bonds: { a: number; b: number }[]): number {
