@@ -30,13 +30,13 @@ export function relaxLayout(input: readonly XY[], bonds: readonly { a: number; b
   const near = new Set<number>();
   const pairKey = (a: number, b: number) => Math.min(a, b) * n + Math.max(a, b);
   const dist = (a: number, b: number) => Math.hypot(points[a].x - points[b].x, points[a].y - points[b].y);
-  for (const b of bonds) if (!near.has(pairKey(b.a, b.b))) near.add(pairKey(b.a, b.b)), keep.push([b.a, b.b, dist(b.a, b.b)]);
-  for (let c = 0; c < n; c++)
-    for (let i = 0; i < adj[c].length; i++)
-      for (let j = i + 1; j < adj[c].length; j++) {
-        const [a, b] = [adj[c][i], adj[c][j]];
-        if (!near.has(pairKey(a, b))) near.add(pairKey(a, b)), keep.push([a, b, dist(a, b)]);
-      }
+  const keepPair = (a: number, b: number) => {
+    if (near.has(pairKey(a, b))) return;
+    near.add(pairKey(a, b));
+    keep.push([a, b, dist(a, b)]);
+  };
+  for (const b of bonds) keepPair(b.a, b.b);
+  for (let c = 0; c < n; c++) for (let i = 0; i < adj[c].length; i++) for (let j = i + 1; j < adj[c].length; j++) keepPair(adj[c][i], adj[c][j]);
   const clear = CLEAR * median;
   for (let round = 0; round < ROUNDS; round++) {
     const grid = new PointGrid(clear);
