@@ -3,45 +3,29 @@ import { changePasswordBody } from '../../../shared/auth';
 import { PASSWORD_MIN } from '../../../shared/fields';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useChangePassword } from '../api/change-password';
 
 const schema = changePasswordBody
   .extend({ repeat: z.string() })
   .refine((v) => v.newPassword === v.repeat, { path: ['repeat'], message: 'The two new passwords differ.' });
 
-const empty = { currentPassword: '', newPassword: '', repeat: '' };
-
 export function ChangePasswordForm() {
   const change = useChangePassword();
-  const form = useForm(schema, empty, { serverError: change.error });
-
-  const submit = form.handleSubmit(({ currentPassword, newPassword }) =>
-    change.mutate({ currentPassword, newPassword }, { onSuccess: () => form.setValues(empty) }),
-  );
+  const form = useZodForm(schema, { currentPassword: '', newPassword: '', repeat: '' });
 
   return (
-    <form noValidate onSubmit={submit} className="flex max-w-md flex-col gap-4">
-      <TextField
-        label="Current password"
-        type="password"
-        autoComplete="current-password"
-        {...form.field('currentPassword')}
-      />
-      <TextField
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        {...form.field('newPassword')}
-      />
-      <TextField
-        label="Repeat the new password"
-        type="password"
-        autoComplete="new-password"
-        {...form.field('repeat')}
-      />
+    <Form
+      form={form}
+      serverError={change.error}
+      onSubmit={({ currentPassword, newPassword }) => change.mutate({ currentPassword, newPassword }, { onSuccess: () => form.reset() })}
+      className="flex max-w-md flex-col gap-4"
+    >
+      <FormField name="currentPassword" label="Current password" type="password" autoComplete="current-password" />
+      <FormField name="newPassword" label="New password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} />
+      <FormField name="repeat" label="Repeat the new password" type="password" autoComplete="new-password" />
       {change.error && <ErrorAlert error={change.error} />}
       {change.isSuccess && <Notice>Password changed. Your other sessions have been signed out.</Notice>}
       <div>
@@ -49,6 +33,6 @@ export function ChangePasswordForm() {
           Change password
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -1,13 +1,14 @@
 import { forgotBody } from '../../../shared/auth';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useRequestPasswordReset } from '../api/forgot-password';
 
 export function ForgotPasswordForm() {
   const request = useRequestPasswordReset();
-  const form = useForm(forgotBody, { email: '' }, { serverError: request.error });
+  const form = useZodForm(forgotBody, { email: '' });
 
   if (request.isSuccess) {
     return (
@@ -19,17 +20,12 @@ export function ForgotPasswordForm() {
   }
 
   return (
-    <form noValidate onSubmit={form.handleSubmit((body) => request.mutate(body))} className="flex flex-col gap-4">
-      <TextField
-        label="E-mail"
-        type="email"
-        autoComplete="email"
-        {...form.field('email')}
-      />
+    <Form form={form} serverError={request.error} onSubmit={(body) => request.mutate(body)} className="flex flex-col gap-4">
+      <FormField name="email" label="E-mail" type="email" autoComplete="email" />
       {request.error && <ErrorAlert error={request.error} />}
       <Button type="submit" pending={request.isPending} pendingText="Sending…">
         Send me a link
       </Button>
-    </form>
+    </Form>
   );
 }

@@ -3,8 +3,9 @@ import { resetBody } from '../../../shared/auth';
 import { PASSWORD_MIN } from '../../../shared/fields';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useResetPassword } from '../api/reset-password';
 
 // The shared schema checks the password; repeating it is a client-side courtesy.
@@ -16,31 +17,21 @@ const schema = resetBody
 /** `onDone(signedIn)`: whether the server signed the person in with the new password. */
 export function ResetPasswordForm({ token, onDone }: { token: string; onDone: (signedIn: boolean) => void }) {
   const reset = useResetPassword();
-  const form = useForm(schema, { password: '', repeat: '' }, { serverError: reset.error });
+  const form = useZodForm(schema, { password: '', repeat: '' });
 
   return (
-    <form
-      noValidate
-      onSubmit={form.handleSubmit(({ password }) => reset.mutate({ token, password }, { onSuccess: (response) => onDone(!!response) }))}
+    <Form
+      form={form}
+      serverError={reset.error}
+      onSubmit={({ password }) => reset.mutate({ token, password }, { onSuccess: (response) => onDone(!!response) })}
       className="flex flex-col gap-4"
     >
-      <TextField
-        label="New password"
-        type="password"
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN} characters.`}
-        {...form.field('password')}
-      />
-      <TextField
-        label="Repeat the password"
-        type="password"
-        autoComplete="new-password"
-        {...form.field('repeat')}
-      />
+      <FormField name="password" label="New password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN} characters.`} />
+      <FormField name="repeat" label="Repeat the password" type="password" autoComplete="new-password" />
       {reset.error && <ErrorAlert error={reset.error} />}
       <Button type="submit" pending={reset.isPending} pendingText="Saving…">
         Set password
       </Button>
-    </form>
+    </Form>
   );
 }

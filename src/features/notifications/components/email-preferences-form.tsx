@@ -1,9 +1,11 @@
-import { useState, type FormEvent } from 'react';
+import { useWatch } from 'react-hook-form';
 import { preferencesBody, type Preferences } from '../../../shared/notifications';
 import { Button } from '../../../components/ui/button';
-import { CheckboxField } from '../../../components/ui/checkbox-field';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
 import { Loading } from '../../../components/ui/loading';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { usePreferences } from '../api/get-preferences';
 import { useUpdatePreferences } from '../api/update-preferences';
 
@@ -17,18 +19,15 @@ export function EmailPreferencesForm() {
 
 function PreferencesForm({ initial }: { initial: Preferences }) {
   const update = useUpdatePreferences();
-  const [values, setValues] = useState(initial);
-  const submit = (e: FormEvent) => {
-    e.preventDefault();
-    update.mutate(preferencesBody.parse(values));
-  };
-  const never = !values.emailOnMention && !values.emailOnReply;
+  const form = useZodForm(preferencesBody, initial);
+  const [onMention, onReply] = useWatch({ control: form.control, name: ['emailOnMention', 'emailOnReply'] });
+  const never = !onMention && !onReply;
   return (
-    <form noValidate onSubmit={submit} className="flex max-w-md flex-col gap-3">
+    <Form form={form} serverError={update.error} onSubmit={(body) => update.mutate(body)} className="flex max-w-md flex-col gap-3">
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-sm font-semibold text-ink-800">E-mail me</legend>
-        <CheckboxField label="When someone mentions me" checked={values.emailOnMention} onCheckedChange={(v) => setValues({ ...values, emailOnMention: v })} />
-        <CheckboxField label="When someone replies in a thread I take part in" checked={values.emailOnReply} onCheckedChange={(v) => setValues({ ...values, emailOnReply: v })} />
+        <FormField name="emailOnMention" label="When someone mentions me" type="checkbox" />
+        <FormField name="emailOnReply" label="When someone replies in a thread I take part in" type="checkbox" />
       </fieldset>
       <p className="text-xs text-ink-600" aria-live="polite">
         {never ? 'Never: you will get no e-mail about threads, only the bell in Beadloom.' : 'The bell in Beadloom always shows mentions and replies.'}
@@ -40,6 +39,6 @@ function PreferencesForm({ initial }: { initial: Preferences }) {
           Save e-mail settings
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -1,32 +1,39 @@
+import { z } from 'zod';
 import { addMemberBody } from '../../../shared/projects';
 import { PROJECT_ROLES, ROLE_LABELS } from '../../../shared/roles';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
-import { SelectField } from '../../../components/ui/select-field';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useAddMember } from '../api/add-member';
 
 const roleOptions = PROJECT_ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
-const empty = { email: '', role: 'modeller', displayName: '' };
+
+// What the inputs hold, turned into the shared body: an empty name means "none given".
+const schema = z
+  .object({ email: z.string(), role: addMemberBody.shape.role, displayName: z.string() })
+  .transform(({ displayName, ...rest }) => ({ ...rest, ...(displayName.trim() ? { displayName } : {}) }))
+  .pipe(addMemberBody);
 
 export function AddMemberForm({ projectId }: { projectId: number }) {
   const add = useAddMember(projectId);
-  const form = useForm(addMemberBody, empty, {
-    serverError: add.error,
-    toInput: (v) => ({ ...v, displayName: v.displayName.trim() || undefined }),
-  });
-
-  const submit = form.handleSubmit((body) => add.mutate(body, { onSuccess: () => form.setValues(empty) }));
+  const form = useZodForm(schema, { email: '', role: 'modeller', displayName: '' });
 
   return (
-    <form noValidate aria-label="Add a member" onSubmit={submit} className="flex flex-col gap-4">
-      <TextField label="Member e-mail" type="email" autoComplete="off" {...form.field('email')} />
-      <SelectField label="Member role" options={roleOptions} {...form.field('role')} />
-      <TextField
+    <Form
+      form={form}
+      serverError={add.error}
+      onSubmit={(body) => add.mutate(body, { onSuccess: () => form.reset() })}
+      aria-label="Add a member"
+      className="flex flex-col gap-4"
+    >
+      <FormField name="email" label="Member e-mail" type="email" autoComplete="off" />
+      <FormField name="role" label="Member role" as="select" options={roleOptions} />
+      <FormField
+        name="displayName"
         label="Member name"
         hint="Only for someone new to Beadloom: their account gets this name and an invitation by e-mail."
-        {...form.field('displayName')}
       />
       {add.error && <ErrorAlert error={add.error} />}
       {add.isSuccess && (
@@ -41,6 +48,6 @@ export function AddMemberForm({ projectId }: { projectId: number }) {
           Add member
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -2,9 +2,9 @@ import type { ProjectSummary } from '../../../shared/projects';
 import { createProjectBody } from '../../../shared/projects';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';
-import { TextAreaField } from '../../../components/ui/text-area-field';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useCreateProject } from '../api/create-project';
 
 interface CreateProjectFormProps {
@@ -14,25 +14,18 @@ interface CreateProjectFormProps {
 
 export function CreateProjectForm({ onCreated, onCancel }: CreateProjectFormProps) {
   const create = useCreateProject();
-  const form = useForm(createProjectBody, { name: '', description: '' }, { serverError: create.error });
+  const form = useZodForm(createProjectBody, { name: '', description: '' });
 
   return (
-    <form
-      noValidate
+    <Form
+      form={form}
+      serverError={create.error}
+      onSubmit={(body) => create.mutate(body, { onSuccess: onCreated })}
       aria-label="New project"
-      onSubmit={form.handleSubmit((body) => create.mutate(body, { onSuccess: onCreated }))}
       className="flex flex-col gap-4"
     >
-      <TextField
-        label="Project name"
-        autoFocus
-        {...form.field('name')}
-      />
-      <TextAreaField
-        label="Description"
-        hint="What the group is mapping, and why. Optional."
-        {...form.field('description')}
-      />
+      <FormField name="name" label="Project name" autoFocus />
+      <FormField name="description" label="Description" as="textarea" hint="What the group is mapping, and why. Optional." />
       {create.error && <ErrorAlert error={create.error} />}
       <div className="flex gap-2">
         <Button type="submit" pending={create.isPending} pendingText="Creating…">
@@ -42,6 +35,6 @@ export function CreateProjectForm({ onCreated, onCancel }: CreateProjectFormProp
           Cancel
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -2,32 +2,26 @@ import type { ProjectSummary } from '../../../shared/projects';
 import { updateProjectBody } from '../../../shared/projects';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';
-import { TextAreaField } from '../../../components/ui/text-area-field';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form, FormError } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useUpdateProject } from '../api/update-project';
 
 export function EditProjectForm({ project, onDone }: { project: ProjectSummary; onDone: () => void }) {
   const update = useUpdateProject(project.id);
-  const form = useForm(
-    updateProjectBody,
-    { name: project.name, description: project.description },
-    { serverError: update.error },
-  );
+  const form = useZodForm(updateProjectBody, { name: project.name, description: project.description });
 
   return (
-    <form
-      noValidate
+    <Form
+      form={form}
+      serverError={update.error}
+      onSubmit={(body) => update.mutate(body, { onSuccess: onDone })}
       aria-label="Edit project"
-      onSubmit={form.handleSubmit((body) => update.mutate(body, { onSuccess: onDone }))}
       className="flex flex-col gap-4"
     >
-      <TextField label="Project name" {...form.field('name')} />
-      <TextAreaField
-        label="Description"
-        rows={4}
-        {...form.field('description')}
-      />
+      <FormField name="name" label="Project name" />
+      <FormField name="description" label="Description" as="textarea" rows={4} />
+      <FormError />
       {update.error && <ErrorAlert error={update.error} />}
       <div className="flex gap-2">
         <Button type="submit" pending={update.isPending} pendingText="Saving…">
@@ -37,6 +31,6 @@ export function EditProjectForm({ project, onDone }: { project: ProjectSummary; 
           Cancel
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

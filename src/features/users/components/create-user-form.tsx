@@ -1,46 +1,30 @@
-import type { FormEvent } from 'react';
 import { createUserBody } from '../../../shared/users';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
-import { CheckboxField } from '../../../components/ui/checkbox-field';
-import { TextField } from '../../../components/ui/text-field';
-import { useForm } from '../../../hooks/use-form';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { useCreateUser } from '../api/create-user';
-
-const empty = { email: '', displayName: '', isAdmin: false };
 
 export function CreateUserForm() {
   const create = useCreateUser();
-  const form = useForm(createUserBody, empty, { serverError: create.error });
-
-  const check = form.handleSubmit((body) => create.mutate(body, { onSuccess: () => form.setValues(empty) }));
-  // A new attempt forgets the last answer, so an old server error never stands beside a new one.
-  const submit = (e: FormEvent<HTMLFormElement>) => {
-    create.reset();
-    check(e);
-  };
+  const form = useZodForm(createUserBody, { email: '', displayName: '', isAdmin: false });
 
   return (
-    <form noValidate aria-label="Create an account" onSubmit={submit} className="flex flex-col gap-4">
+    <Form
+      form={form}
+      serverError={create.error}
+      onSubmit={(body) => create.mutate(body, { onSuccess: () => form.reset() })}
+      // A new attempt forgets the last answer, so an old server error never stands beside a new one.
+      onSubmitCapture={() => create.reset()}
+      aria-label="Create an account"
+      className="flex flex-col gap-4"
+    >
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField
-          label="E-mail"
-          type="email"
-          autoComplete="off"
-          {...form.field('email')}
-        />
-        <TextField
-          label="Display name"
-          autoComplete="off"
-          {...form.field('displayName')}
-        />
+        <FormField name="email" label="E-mail" type="email" autoComplete="off" />
+        <FormField name="displayName" label="Display name" autoComplete="off" />
       </div>
-      <CheckboxField
-        label="Site admin"
-        hint="Admins manage accounts and see every project."
-        checked={form.values.isAdmin}
-        onCheckedChange={(v) => form.set('isAdmin', v)}
-      />
+      <FormField name="isAdmin" label="Site admin" type="checkbox" hint="Admins manage accounts and see every project." />
       {create.error && <ErrorAlert error={create.error} />}
       {create.isSuccess && <Notice>Account created. {create.data.email} will receive a link to set a password.</Notice>}
       <div>
@@ -48,6 +32,6 @@ export function CreateUserForm() {
           Create account
         </Button>
       </div>
-    </form>
+    </Form>
   );
 }

@@ -10,6 +10,7 @@ import { useLock } from '../api/get-lock';
 import { useRestoreVersion } from '../api/restore-version';
 import type { StateRef } from '../api/get-compare';
 import { AuditTrail } from './audit-trail';
+import { CompareForm } from './compare-form';
 import { CompareView } from './compare-view';
 import { LockControls } from './lock-controls';
 import { SaveVersionForm } from './save-version-form';
@@ -33,8 +34,6 @@ interface MappingHistoryProps {
   editor?: () => { clientId: number; beadCount: number } | null;
 }
 
-const refOf = (v: string): StateRef => (v === 'draft' ? 'draft' : Number(v));
-
 /** History of a mapping: save, the version list, view, compare, restore, the lock and the audit trail. */
 export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionThreads, editor }: MappingHistoryProps) {
   const versions = useVersions(mapping.id);
@@ -42,14 +41,13 @@ export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionT
   const restore = useRestoreVersion(mapping.id, () => editor?.()?.clientId);
   const [open, setOpen] = useState<Open>(null);
   const [confirming, setConfirming] = useState<number | null>(null);
-  const [pick, setPick] = useState<{ from: string; to: string }>({ from: '', to: 'draft' });
   const names = new Map(mapping.draft.beads.map((b) => [b.id, b.name]));
   if (versions.isError || lock.isError) return <ErrorAlert error={versions.error ?? lock.error} />;
   if (!versions.data || !lock.data) return <Loading label="Loading the history…" />;
   const list = versions.data;
   const locked = lock.data.locked;
   const options = [...list.map((v) => ({ value: String(v.number), label: `Version ${v.number}` })), { value: 'draft', label: 'Draft' }];
-  const from = pick.from || (list[1] ? String(list[1].number) : list[0] ? String(list[0].number) : 'draft');
+  const from = list[1] ? String(list[1].number) : list[0] ? String(list[0].number) : 'draft';
   const states = [{ ref: 'draft' as const, label: 'The draft' }, ...(locked ? [{ ref: 'production' as const, label: `Production (version ${lock.data.version})` }] : [])];
 
   return (
@@ -83,17 +81,7 @@ export function MappingHistory({ mapping, canEdit, canLock, exportMenu, versionT
             />
           )}
           {list.length > 0 && (
-            <form className="flex flex-wrap items-end gap-2 text-sm" onSubmit={(e) => (e.preventDefault(), setOpen({ kind: 'compare', from: refOf(from), to: refOf(pick.to) }))}>
-              {(['from', 'to'] as const).map((side) => (
-                <label key={side} className="flex flex-col gap-1 font-semibold text-ink-800">
-                  Compare {side}
-                  <select className="rounded-md border border-ink-300 bg-paper-50 px-2 py-1 font-normal" value={side === 'from' ? from : pick.to} onChange={(e) => setPick({ ...pick, from, [side]: e.target.value })}>
-                    {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
-                  </select>
-                </label>
-              ))}
-              <Button type="submit" size="sm" variant="secondary">Compare</Button>
-            </form>
+            <CompareForm options={options} from={from} onCompare={(f, t) => setOpen({ kind: 'compare', from: f, to: t })} />
           )}
         </div>
         <div className="flex flex-col gap-4">

@@ -1,17 +1,7 @@
-import type { z } from 'zod';
 import { isApiError } from './api-client';
 
 /** Field name → the first message about it. '' holds messages about the whole form. */
 export type FieldErrors = Partial<Record<string, string>>;
-
-export function zodFieldErrors(error: z.ZodError): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length > 0 ? String(issue.path[0]) : '';
-    errors[key] ??= issue.message;
-  }
-  return errors;
-}
 
 interface IssueLike {
   path?: unknown;
