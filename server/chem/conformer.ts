@@ -1,18 +1,20 @@
 /**
  * generateConformer: reproducible 3D coordinates (Å) in the atom-index contract's order.
  *
- * openchemlib's ConformerGenerator (torsion-library based, seeded, bitwise reproducible for a given
- * seed) builds a collision-free conformer of the model with explicit hydrogens; openchemlib's MMFF94s+
- * force field then relaxes it with a capped number of minimiser iterations (more for small molecules,
- * fewer for large ones). The cap bounds the minimisation; the generator's own set-up time is
- * openchemlib's and grows with the number of rotatable bonds (see docs/benchmarks.md). References: T. A. Halgren,
- * J. Comput. Chem. 1996, 17, 490 (MMFF94); the openchemlib ConformerGenerator documentation.
+ * Two builders, by size of each disconnected part. Up to GENERATOR_MAX_ATOMS heavy atoms: openchemlib's
+ * ConformerGenerator (torsion-library based, seeded, bitwise reproducible for a given seed) builds a
+ * collision-free conformer with explicit hydrogens and openchemlib's MMFF94s+ relaxes it with a capped
+ * number of minimiser iterations (T. A. Halgren, J. Comput. Chem. 1996, 17, 490). Larger parts: the
+ * generator's set-up (a self-organised conformer set for every rigid fragment) grows too fast, so the 2D
+ * drawing is lifted into 3D and relaxed with our own geometric force field (embed-3d.ts), seeded and
+ * deterministic; a part it cannot relax within its bounds (ACCEPT) goes to openchemlib after all.
  * The conformer tables load once from openchemlib's own package files (Resources.registerFromNodejs).
  */
 import { ConformerGenerator, ForceFieldMMFF94, Resources } from 'openchemlib';
 import type { Molecule } from '../../src/shared/chem';
 import { ChemError } from './errors';
 import { componentsOf } from './graph';
+import { embed3d } from './embed-3d';
 import { contactDistance, contactPosition } from './ion-placement';
 import { toOcl } from './ocl-build';
 
@@ -20,7 +22,7 @@ let registered = false;
 
 export interface ConformerOptions {
   seed: number;
-  /** Cap on MMFF94 minimiser iterations; default scales with size. 0 skips minimisation. */
+  /** Cap on MMFF94 minimiser iterations for openchemlib-built parts; default scales with size. 0 skips it. */
   maxIterations?: number;
 }
 
@@ -115,7 +117,37 @@ function standardHydrogens(sub: Pick<Molecule, 'atoms'>, xyz: number[][]): numbe
   return out;
 }
 
+/**
+ * Parts above this many heavy atoms are built from their 2D drawing (embed-3d.ts): openchemlib's
+ * generator builds every rigid fragment with its self-organiser first, which took 7–17 s at 50 heavy
+ * atoms and 30–50 s at 150 on the shared machine; the drawing lifted to 3D and relaxed takes under 1 s
+ * of CPU at 150. Small parts keep openchemlib's torsion-library conformer and MMFF94s+ relaxation.
+ */
+export const GENERATOR_MAX_ATOMS = 30;
+
+/**
+ * When an embedding is accepted (Å): every bond within 0.05 of its typical length, every 1–3 distance
+ * within 0.35 of its ideal angle's (about 15°), no two atoms three or more bonds apart more than 0.6
+ * inside their contact distance. Our bounds, loose enough for strained rings and cages.
+ */
+const ACCEPT = { bond: 0.05, angle: 0.35, contact: 0.6 };
+const EMBED_STARTS = 3;
+
+function embedded(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number): number[][] | null {
+  // Up to three starts (the seed, then seeds derived from it); the first acceptable one is kept.
+  for (let k = 0; k < EMBED_STARTS; k++) {
+    const r = embed3d(sub, seed + k * 7919);
+    if (r.worstBond <= ACCEPT.bond && r.worstAngle <= ACCEPT.angle && r.worstContact <= ACCEPT.contact) return r.xyz;
+  }
+  return null;
+}
+
 function conformerOf(sub: Pick<Molecule, 'atoms' | 'bonds'>, seed: number, iterations: number): number[][] {
+  if (sub.atoms.length > GENERATOR_MAX_ATOMS) {
+    const xyz = embedded(sub, seed);
+    // A structure the embedding cannot relax (a tangled drawing, a strained cage) goes to openchemlib.
+    if (xyz) return xyz;
+  }
   let generated: ReturnType<typeof toOcl> | null;
   try {
     generated = new ConformerGenerator(seed).getOneConformerAsMolecule(toOcl(sub, true));

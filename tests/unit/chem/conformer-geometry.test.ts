@@ -34,4 +34,54 @@ describe('conformer bond lengths', () => {
     expect(s.rms).toBeLessThan(0.03);
     for (const kind of ['C-C', 'C:C', 'C-H'] as const) expect(s.byKind[kind].rms, kind).toBeLessThan(0.03);
   }, 600_000);
+
+  it('the same polymer: tetrahedral and ring angles, flat rings, no atoms on top of each other', async () => {
+    // Checks the bond statistics do not see (typical values; common practice, no source): C–C–C at an
+    // sp3 carbon 109.5° (each within 100–120°, mean within 3°), benzene's para carbons 2 × 1.39 = 2.78 Å apart
+    // when the ring is flat, and no two heavy atoms three or more bonds apart closer than 2.4 Å.
+    const m = await parseMolecule({ smiles: 'C' + 'CC(c1ccccc1)CC(C(=O)O)COCCO'.repeat(8) + 'CCCCC' });
+    const xyz = await generateConformer(m, { seed: 7 });
+    const nb: number[][] = m.atoms.map(() => []);
+    for (const b of m.bonds) {
+      nb[b.a].push(b.b);
+      nb[b.b].push(b.a);
+    }
+    const d = (i: number, j: number) => Math.hypot(xyz[i][0] - xyz[j][0], xyz[i][1] - xyz[j][1], xyz[i][2] - xyz[j][2]);
+    const sp3 = (i: number) => m.atoms[i].element === 'C' && !m.atoms[i].aromatic && m.bonds.every((b) => (b.a !== i && b.b !== i) || (b.order === 1 && !b.aromatic));
+    const angles: number[] = [];
+    m.atoms.forEach((_, j) => {
+      if (!sp3(j)) return;
+      const cs = nb[j].filter((i) => m.atoms[i].element === 'C');
+      for (let x = 0; x < cs.length; x++) for (let y = x + 1; y < cs.length; y++) {
+        const [a, c] = [cs[x], cs[y]];
+        angles.push((Math.acos((d(a, j) ** 2 + d(c, j) ** 2 - d(a, c) ** 2) / (2 * d(a, j) * d(c, j))) * 180) / Math.PI);
+      }
+    });
+    expect(angles.length).toBeGreaterThan(40);
+    for (const a of angles) expect(a).toBeGreaterThan(100);
+    for (const a of angles) expect(a).toBeLessThan(120);
+    expect(Math.abs(angles.reduce((s, a) => s + a, 0) / angles.length - 109.5)).toBeLessThan(3);
+    // Para carbons of each benzene ring: walk three aromatic bonds from each ring atom.
+    let para = 0;
+    m.atoms.forEach((a, i) => {
+      if (!a.aromatic) return;
+      const ring = (from: number, prev: number, left: number): number[] => (left === 0 ? [from] : nb[from].filter((j) => j !== prev && m.atoms[j].aromatic).flatMap((j) => ring(j, from, left - 1)));
+      for (const p of new Set(ring(i, -1, 3))) {
+        if (p === i) continue;
+        para++;
+        expect(d(i, p)).toBeCloseTo(2.78, 1);
+      }
+    });
+    expect(para).toBe(48);
+    // Topological distance by breadth-first search, then every far pair's distance.
+    for (let i = 0; i < m.atoms.length; i++) {
+      const hops = new Map([[i, 0]]);
+      let frontier = [i];
+      for (let h = 1; h <= 2; h++) {
+        frontier = frontier.flatMap((u) => nb[u].filter((v) => !hops.has(v)));
+        for (const v of frontier) hops.set(v, h);
+      }
+      for (let j = i + 1; j < m.atoms.length; j++) if (!hops.has(j)) expect(d(i, j), `atoms ${i + 1} and ${j + 1}`).toBeGreaterThan(2.4);
+    }
+  }, 600_000);
 });
