@@ -26,9 +26,12 @@ export function UploadMoleculesForm({ projectId }: { projectId: number }) {
   const form = useZodForm(schema, { file: undefined }, { mode: 'onChange' });
   const files = useWatch({ control: form.control, name: 'file' });
   const usable = !!files?.length && !form.formState.errors.file;
+  // Offered only when nothing was imported and every refusal is a duplicate: sending the file again
+  // with the flag then adds exactly the refused records, never a second copy of an imported one.
+  const onlyDuplicates = !!upload.data && upload.data.created === 0 && upload.data.records.every((r) => !r.ok && duplicateOf(r.error.code, r.error.details));
 
   return (
-    <Form form={form} serverError={upload.error} onSubmit={({ file }) => upload.mutate(file)} aria-label="Upload a structure file" className="flex flex-col gap-4">
+    <Form form={form} serverError={upload.error} onSubmit={({ file }) => upload.mutate({ file })} aria-label="Upload a structure file" className="flex flex-col gap-4">
       <FormField
         name="file"
         label="Molfile or SD file"
@@ -60,6 +63,11 @@ export function UploadMoleculesForm({ projectId }: { projectId: number }) {
               </li>
             ))}
           </ol>
+          {onlyDuplicates && upload.variables && (
+            <Button className="mt-2" size="sm" variant="secondary" pending={upload.isPending} onClick={() => upload.mutate({ file: upload.variables!.file, allowDuplicate: true })}>
+              Add it anyway
+            </Button>
+          )}
         </div>
       )}
     </Form>
