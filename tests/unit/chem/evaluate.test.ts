@@ -199,7 +199,15 @@ describe('type suggestion', () => {
 
   it('uses the invented demo library by default', async () => {
     const m = await parseMolecule({ smiles: 'CCCCCCCC' });
-    expect(evaluateMapping(m, beadsFrom([[0, 1, 2, 3], [4, 5, 6, 7]])).beads[0].suggestedType).not.toBeNull();
+    const bead = evaluateMapping(m, beadsFrom([[0, 1, 2, 3], [4, 5, 6, 7]])).beads[0];
+    // Each half of octane capped with hydrogen is butane. RDKit's CrippenClogP of CCCC is about 1.81, so
+    // ΔG_OW = ln(10) R T logP ≈ 5.708 × 1.81 ≈ 10.3 kJ/mol at 298.15 K: inside the demo band
+    // "oil-loving 2" (10 to 16 kJ/mol, server/chem/demo-library.ts) of the 4-atom size class.
+    const expected = ((Math.LN10 * 8.314462618 * 298.15) / 1000) * rdkitClogP('CCCC');
+    expect(bead.fragmentDeltaG!).toBeCloseTo(expected, 6);
+    expect(expected).toBeGreaterThan(10);
+    expect(expected).toBeLessThan(16);
+    expect([bead.suggestedType, bead.suggestedTypeFits]).toEqual(['oil-loving 2, 4 atoms', true]);
   });
 });
 
@@ -262,16 +270,34 @@ describe('CG topology, worked by hand', () => {
     expect(t.bonds).toContainEqual(['a', 'b']);
   });
 
-  it('two fused rings of beads give two rings (naphthalene in four beads plus a shared edge)', async () => {
+  // Rings are the smallest set of smallest rings of the bead graph (server/chem/topology.ts): as many
+  // rings as the graph's cycle rank (bonds − beads + connected parts), each as short as it can be.
+  it('two fused rings of beads give two rings (naphthalene in four beads)', async () => {
     const naphthalene = await parseMolecule({ smiles: 'c1ccc2ccccc2c1' });
-    // Bead graph wanted: square b0-b1-b2-b3 with b1–b3 bonded → two triangles.
-    const fused = naphthalene.atoms.filter((a) => naphthalene.bonds.filter((b) => b.a === a.index || b.b === a.index).length === 3).map((a) => a.index);
-    const rest = naphthalene.atoms.map((a) => a.index).filter((i) => !fused.includes(i));
-    const nb = (i: number) => naphthalene.bonds.filter((b) => b.a === i || b.b === i).map((b) => (b.a === i ? b.b : b.a));
-    const sideA = rest.filter((i) => nb(fused[0]).includes(i) || nb(i).some((j) => nb(fused[0]).includes(j) && !fused.includes(j)));
-    const sideB = rest.filter((i) => !sideA.includes(i));
-    const t = evaluateMapping(naphthalene, beadsFrom([sideA.slice(0, 4), [fused[0]], sideB.slice(0, 4), [fused[1]]])).topology;
-    expect(t.rings.length).toBeGreaterThanOrEqual(1);
-    for (const ring of t.rings) expect(ring.length).toBeGreaterThanOrEqual(3);
+    // Atoms in SMILES order: 0–9 with ring bonds 0–9 and 3–8; the fusion atoms are 3 and 8.
+    const bonds = naphthalene.bonds.map((b) => [Math.min(b.a, b.b), Math.max(b.a, b.b)].join('-')).sort();
+    expect(bonds).toEqual(['0-1', '0-9', '1-2', '2-3', '3-4', '3-8', '4-5', '5-6', '6-7', '7-8', '8-9'].sort());
+    // Beads by hand: b0 = {0,1,2,9} (the first ring without the fusion atoms), b1 = {3}, b2 = {8},
+    // b3 = {4,5,6,7} (the second ring without them). Bead bonds: b0–b1 (2–3), b0–b2 (9–8), b1–b2 (3–8),
+    // b3–b1 (4–3), b3–b2 (7–8): 5 bonds, 4 beads, one part → cycle rank 5 − 4 + 1 = 2. The smallest
+    // rings are the triangles b0–b1–b2 and b1–b2–b3 (the square b0–b1–b3–b2 around both is not one).
+    const t = evaluateMapping(naphthalene, beadsFrom([[0, 1, 2, 9], [3], [8], [4, 5, 6, 7]])).topology;
+    expect(t.bonds.map((b) => [...b].sort().join('-')).sort()).toEqual(['b0-b1', 'b0-b2', 'b1-b2', 'b1-b3', 'b2-b3']);
+    expect(t.rings.map((r) => [...r].sort().join(',')).sort()).toEqual(['b0,b1,b2', 'b1,b2,b3']);
+  });
+
+  it('a bead per atom gives the molecule’s own smallest rings (naphthalene: two six-rings, not the ten-ring)', async () => {
+    const naphthalene = await parseMolecule({ smiles: 'c1ccc2ccccc2c1' });
+    // 11 bonds, 10 atoms → cycle rank 2: the rings {0,1,2,3,8,9} and {3,4,5,6,7,8} (by hand, above).
+    const t = evaluateMapping(naphthalene, beadsFrom(naphthalene.atoms.map((a) => [a.index]))).topology;
+    expect(t.rings.map((r) => r.map((id) => Number(id.slice(1))).sort((x, y) => x - y).join(',')).sort()).toEqual(['0,1,2,3,8,9', '3,4,5,6,7,8']);
+  });
+
+  it('four beads around the naphthalene rim give one ring of four', async () => {
+    const naphthalene = await parseMolecule({ smiles: 'c1ccc2ccccc2c1' });
+    // b0 = {1,2,4,5}, b1 = {3}, b2 = {0,6,7,9}, b3 = {8}: bead bonds b0–b1 (2–3), b0–b2 (1–0, 5–6),
+    // b1–b3 (3–8), b2–b3 (7–8, 9–8): 4 bonds, 4 beads → cycle rank 1, the ring b0–b1–b3–b2.
+    const t = evaluateMapping(naphthalene, beadsFrom([[1, 2, 4, 5], [3], [0, 6, 7, 9], [8]])).topology;
+    expect(t.rings.map((r) => [...r].sort().join(','))).toEqual(['b0,b1,b2,b3']);
   });
 });
