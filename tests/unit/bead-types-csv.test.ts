@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import Papa from 'papaparse';
 import { beadTypesFromCsv, beadTypesToCsv, type BeadTypeRow } from '../../src/shared/bead-types';
 
 const rows: BeadTypeRow[] = [
@@ -7,10 +8,23 @@ const rows: BeadTypeRow[] = [
 ];
 
 describe('bead type CSV', () => {
-  it('round-trips quotes, commas and newlines; the size class is its own column, heavy atoms per bead', () => {
+  it('writes quotes, commas and newlines that a standard CSV parser (papaparse) reads back; the size class is its own column', () => {
     const csv = beadTypesToCsv(rows);
-    expect(csv.split('\n')[0]).toBe('name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max,description');
-    expect(beadTypesFromCsv(csv)).toEqual({ ok: true, types: rows });
+    expect(csv.split(/\r?\n/)[0]).toBe('name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max,description');
+    const parsed = Papa.parse<Record<string, string>>(csv, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    expect(parsed.data).toEqual([
+      { name: 'water-loving 1, 4 atoms', heavy_atoms_per_bead: '4', charge: '0', delta_g_min: '-8', delta_g_max: '-2', description: 'water-loving, "mild"' },
+      { name: 'cation, 3 atoms', heavy_atoms_per_bead: '3', charge: '1', delta_g_min: '-1000', delta_g_max: '1000', description: 'charged,\nsmall' },
+    ]);
+  });
+
+  it('reads a hand-written file with quoted commas, doubled quotes and a newline in a cell (RFC 4180)', () => {
+    const text =
+      'name,heavy_atoms_per_bead,charge,delta_g_min,delta_g_max,description\r\n' +
+      '"water-loving 1, 4 atoms",4,0,-8,-2,"water-loving, ""mild"""\r\n' +
+      '"cation, 3 atoms",3,1,-1000,1000,"charged,\nsmall"\r\n';
+    expect(beadTypesFromCsv(text)).toEqual({ ok: true, types: rows });
   });
 
   it('accepts columns in any order and without description', () => {
