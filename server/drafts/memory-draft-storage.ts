@@ -4,7 +4,9 @@ import type { DraftStorage, NewUpdate, StoredDraft } from './draft-storage';
 
 /**
  * Drafts kept in memory, for unit tests of the room without a database. Same contract as MariaDB's
- * (draft-storage.ts); loading applies the stored updates with the live checks, as MariaDB's does.
+ * (draft-storage.ts). Loading applies the stored updates with the live checks; a refused one is an
+ * error here (only the room stores, and it stores nothing it refused), where MariaDB's loader skips
+ * rows written before the checks existed.
  * `beforeAppend` runs at the start of every append (a test slows it down or makes it fail there).
  */
 export class MemoryDraftStorage implements DraftStorage {
