@@ -126,4 +126,20 @@ describe('the molecule page and list', () => {
     expect(await thumb.locator('[data-charge]').count()).toBe(4);
     if (process.env.BEADLOOM_SCREENSHOTS) await page.screenshot({ path: `${process.env.BEADLOOM_SCREENSHOTS}/molecule-list.png`, fullPage: true });
   });
+
+  it('draw attachment points as attachment marks, not as a * label', async () => {
+    const projectId = await page.evaluate(async () => (await (await fetch('/api/projects')).json())[0].id as number);
+    const { token } = await (await page.request.get('/api/auth/csrf')).json();
+    const res = await page.request.post(`/api/projects/${projectId}/molecules`, {
+      data: { name: 'Polystyrene repeat unit', smiles: '*CC(*)c1ccccc1', allowDuplicate: true },
+      headers: { 'x-csrf-token': token },
+    });
+    expect(res.ok(), await res.text()).toBe(true);
+    const { id } = await res.json();
+    await page.goto(`/molecules/${id}`);
+    const drawing = page.locator('[data-molecule-drawing]').first();
+    await drawing.waitFor();
+    expect(await drawing.locator('path[data-attachment]').count()).toBe(2);
+    expect(await drawing.textContent()).not.toContain('*');
+  });
 });
