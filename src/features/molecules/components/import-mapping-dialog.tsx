@@ -1,13 +1,20 @@
-import { useState } from 'react';
+import { useState, type ChangeEvent } from 'react';
+import { z } from 'zod';
 import { useNavigate } from 'react-router';
 import { ErrorAlert, errorMessage } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { Form } from '../../../components/ui/form';
+import { FormField } from '../../../components/ui/form-field';
 import { Modal } from '../../../components/ui/modal';
+import { useZodForm } from '../../../hooks/use-zod-form';
 import { isApiError } from '../../../lib/api-client';
 import { paths } from '../../../lib/paths';
 import type { MoleculeDetail } from '../../../shared/molecules';
 import { useImportMapping, usePreviewImport, type ImportFile } from '../api/import-mapping';
 import { ImportPreviewSummary } from './import-preview-summary';
+
+// The chosen file; what it holds is checked when it is read (JSON, then the server's preview).
+const schema = z.object({ file: z.custom<FileList | undefined>() });
 
 /**
  * Import a mapping from a JSON export onto this molecule: choose the file, see where its beads land
@@ -19,12 +26,13 @@ export function ImportMappingDialog({ molecule, onClose }: { molecule: MoleculeD
   const preview = usePreviewImport(molecule.id);
   const save = useImportMapping(molecule.id);
   const [file, setFile] = useState<{ name: string; body: ImportFile } | null>(null);
-  const [readError, setReadError] = useState<string | null>(null);
+  const form = useZodForm(schema, { file: undefined });
+  const setReadError = (message: string) => form.setError('file', { message });
   const hashRefused = isApiError(save.error) && save.error.code === 'content_hash_mismatch';
 
   const choose = async (chosen: File | undefined) => {
     setFile(null);
-    setReadError(null);
+    form.clearErrors('file');
     preview.reset();
     save.reset();
     if (!chosen) return;
@@ -54,11 +62,17 @@ export function ImportMappingDialog({ molecule, onClose }: { molecule: MoleculeD
         )}
       </>}
     >
-      <label className="flex flex-col gap-1 font-semibold text-ink-800">
-        Mapping file (JSON export)
-        <input type="file" accept=".json,application/json" className="text-sm font-normal" onChange={(e) => void choose(e.target.files?.[0])} />
-      </label>
-      <ErrorAlert>{readError}</ErrorAlert>
+      {/* The file is read and previewed as soon as it is chosen; the form ties the field to its label and error. */}
+      <Form form={form} onSubmit={() => undefined}>
+        <FormField
+          name="file"
+          label="Mapping file (JSON export)"
+          type="file"
+          accept=".json,application/json"
+          onChange={(e: ChangeEvent<HTMLInputElement>) => void choose(e.target.files?.[0])}
+          controlClassName="border-0 bg-transparent px-0 py-0 text-sm"
+        />
+      </Form>
       {preview.isPending && <p role="status">Matching {file?.name} to {molecule.name}…</p>}
       <ErrorAlert error={preview.error} />
       {preview.data && <ImportPreviewSummary preview={preview.data} molecule={molecule} />}
