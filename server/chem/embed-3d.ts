@@ -213,9 +213,10 @@ export function embed3d(model: { atoms: Atom[]; bonds: Bond[] }, seed: number, m
   return {
     xyz,
     iterations: it,
-    worstBond: Math.max(0, ...stretch.map((t) => Math.abs(off(t)))),
-    worstAngle: Math.max(0, ...angles.map((t) => (t.k >= 0 ? Math.abs(off(t)) : Math.max(0, -off(t))))),
-    worstContact: Math.max(0, ...pairList(pos, total, near, key, contact).map((t) => Math.max(0, -off(t)))),
+    // reduce, not Math.max(...list): a large molecule has more pairs than a call may take arguments.
+    worstBond: stretch.reduce((w, t) => Math.max(w, Math.abs(off(t))), 0),
+    worstAngle: angles.reduce((w, t) => Math.max(w, t.k >= 0 ? Math.abs(off(t)) : -off(t)), 0),
+    worstContact: pairList(pos, total, near, key, contact).reduce((w, t) => Math.max(w, -off(t)), 0),
   };
 }
 
