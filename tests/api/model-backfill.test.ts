@@ -22,7 +22,9 @@ afterAll(() => t.stop());
 describe('models for molecules stored before canonical models', () => {
   it('fills the model and derived columns from the stored SMILES, and the list works again', async () => {
     const [id] = await t.ctx.db('molecules').insert({ project_id: projectId, name: 'Old ethanol', smiles: 'OCC', notes: '', canonical_smiles: '', tags: '' }); // as migration 007 left such rows
-    expect((await modeller.get(`/api/projects/${projectId}/molecules`)).status).toBe(500);
+    // Such a row is a server-side state, not client input: startServer backfills before it listens
+    // (server/index.ts), so no request ever meets it. What the test checks is the row as it was left.
+    expect(await t.ctx.db('molecules').where({ id }).first('model', 'formula')).toEqual({ model: null, formula: '' });
 
     expect(await backfillModels(t.ctx.db, t.ctx.log)).toBe(1);
     const list = await modeller.get(`/api/projects/${projectId}/molecules`);
