@@ -64,6 +64,11 @@ describe('import and export by version', () => {
     expect(rows).toEqual(exported.content.beads.map((b: { name: string; atoms: [number, number][] }) => [b.name, b.atoms.map(([n, w]) => (w === 1 ? String(n) : `${n} (${w})`)).join(', ')]));
     const coloured = await preview.locator('[data-preview-atom]').evaluateAll((cs) => cs.filter((c) => c.getAttribute('data-bead-colour') !== 'none').length);
     expect(coloured).toBe(new Set(exported.content.beads.flatMap((b: { atoms: [number, number][] }) => b.atoms.map(([n]) => n))).size);
+    // Drawn by the shared renderer (src/shared/drawing): one hull per bead, in the colour its atoms are marked with.
+    const hulls = await preview.locator('path[data-bead]').evaluateAll((ps) => ps.map((p) => p.getAttribute('fill')));
+    expect(hulls).toHaveLength(exported.content.beads.length);
+    const marked = await preview.locator('[data-preview-atom]').evaluateAll((cs) => cs.map((c) => c.getAttribute('data-bead-colour')).filter((c) => c !== 'none'));
+    expect(new Set(marked)).toEqual(new Set(hulls));
     expect(await modeller.evaluate(async (id) => (await (await fetch(`/api/molecules/${id}/mappings`)).json()).length, mapping.moleculeId)).toBe(before);
 
     await dialog.getByRole('button', { name: 'Import', exact: true }).click();
