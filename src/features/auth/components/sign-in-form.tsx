@@ -1,18 +1,18 @@
 import type { LoginResponse } from '../../../shared/auth';
-import { loginBody } from '../../../shared/auth';
 import { Button } from '../../../components/ui/button';
 import { ErrorAlert } from '../../../components/ui/alert';
 import { Form } from '../../../components/ui/form';
 import { FormField } from '../../../components/ui/form-field';
 import { TextLink } from '../../../components/ui/text-link';
-import { useZodForm } from '../../../hooks/use-zod-form';
+import { useLazyZodForm } from '../../../hooks/use-zod-form';
 import { paths } from '../../../lib/paths';
 import { useLogin } from '../api/login';
 import { retryAfterSeconds, useRetryCountdown } from '../hooks/use-retry-countdown';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (response: LoginResponse) => void }) {
   const login = useLogin({ onSuccess: onSignedIn });
-  const form = useZodForm(loginBody, { email: '', password: '' });
+  // The shared schema (and zod with it) loads when the person starts typing, not with the page.
+  const form = useLazyZodForm(() => import('../../../shared/auth').then((m) => m.loginBody), { email: '', password: '' });
   const waitSeconds = useRetryCountdown(login.error);
   const limited = retryAfterSeconds(login.error) !== null;
 
