@@ -39,6 +39,14 @@ describe('the router-first client', () => {
     });
     expect(signInScripts.some((p) => /\/assets\/sign-in-[\w-]+\.js$/.test(p))).toBe(true);
     expect(signInScripts.filter((p) => /\/assets\/(mapping|bead-graph|new-molecule|rendered-comment-body|app-shell)-/.test(p))).toEqual([]);
+    // The shared schema loads with the first check, not with the page; it still refuses before anything is sent.
+    const validatorScripts = await scriptsLoaded(page, async () => {
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByText('Enter your password.').waitFor();
+      await page.getByText('Enter a valid e-mail address.').waitFor();
+    });
+    expect(validatorScripts.length).toBeGreaterThan(0);
+    expect(signInScripts.filter((p) => validatorScripts.includes(p))).toEqual([]);
 
     // A signed-out link to a mapping: sign-in first, then that mapping.
     const admin = await session.signedIn('admin@example.org', PASSWORD);
