@@ -81,6 +81,21 @@ const shots: Record<string, (page: Page) => Promise<void>> = {
     await page.locator('[data-connection="live"]').waitFor();
     await page.locator('[data-bead-tag]').first().waitFor();
   },
+  async 'atom-numbers-colour-by-bead'(page) {
+    const mappingId = await firstMappingId(page);
+    await page.goto(`/mappings/${mappingId}`);
+    await page.locator('[data-connection="live"]').waitFor();
+    await page.getByRole('button', { name: /^Show or hide atom numbers/ }).click();
+    await page.getByRole('button', { name: /^Colour atoms by bead/ }).click();
+  },
+  async 'bead-type-library'(page) {
+    await page.goto(`/projects/${await firstProjectId(page)}`);
+    // The table's top (the library's note and the column names) at the top of the picture.
+    await page.getByRole('table', { name: 'Bead types' }).evaluate((el) => {
+      el.scrollIntoView({ block: 'start' });
+      window.scrollBy(0, -160);
+    });
+  },
 };
 
 let failed = 0;
