@@ -104,7 +104,11 @@ describe('the live mapping editor', () => {
     await student.locator('[data-atom="2"]').click();
     await student.keyboard.press('r');
     await student.keyboard.press('b');
-    await student.waitForTimeout(800);
+    // Wait for an event, not for time: the student then selects atom 4. Keys and clicks are handled in
+    // order, and the student's socket sends in order, so once the first modeller sees that selection,
+    // any bead the keys had made would already be on both pages.
+    await student.locator('[data-atom="4"]').click();
+    await first.locator('[data-peer-selected="4"]').waitFor();
     expect(await student.locator('[data-bead]').count()).toBe(beadsBefore);
     expect(await first.locator('[data-bead]').count()).toBe(beadsBefore);
 
