@@ -26,9 +26,13 @@ import { beadTypeRoutes } from './bead-types/bead-types.routes';
 import { createCollab, type Collab } from './drafts/collab-server';
 import type { CollabOptions } from './drafts/room-options';
 import { chemRoutes } from './chem-api/chem.routes';
-import { registerThreads } from './threads/register';
-import { registerVersions } from './versions/register';
-import { LARGE_JSON_PATHS } from './exports/exports.routes';
+import { LiveHub } from './http/live-hub';
+import { threadRoutes } from './threads/threads.routes';
+import { notificationRoutes } from './notifications/notifications.routes';
+import { versionRoutes } from './versions/versions.routes';
+import { lockRoutes } from './lock/lock.routes';
+import { auditRoutes } from './audit/audit.routes';
+import { exportRoutes, LARGE_JSON_PATHS } from './exports/exports.routes';
 
 export interface BuiltApp {
   app: Express;
@@ -94,8 +98,14 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   mappingRoutes(routes, ctx, collab);
   beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
   chemRoutes(routes, ctx);
-  registerThreads(routes, ctx);
-  registerVersions(routes, ctx, collab);
+  // Threads and notifications share one live hub (server-sent events).
+  const live = new LiveHub();
+  threadRoutes(routes, ctx, live);
+  notificationRoutes(routes, ctx, live);
+  versionRoutes(routes, ctx, collab);
+  lockRoutes(routes, ctx, collab.rooms);
+  auditRoutes(routes, ctx);
+  exportRoutes(routes, ctx, collab);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);

@@ -9,6 +9,7 @@ import { createLoginLimiter } from './rate-limit';
 import { AppError } from '../http/errors';
 import { requireUser } from './access';
 import { buildMe } from './me.service';
+import { renameAccount } from './accounts.service';
 import { changePassword, requestPasswordReset, resetPassword } from './auth.service';
 
 interface AuthDeps {
@@ -76,8 +77,7 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
 
   r.patch('/api/me', validate({ body: updateMeBody }), async (req, res) => {
     const user = requireUser(req);
-    await ctx.db('users').where({ id: user.id }).update({ display_name: req.body.displayName, updated_at: ctx.db.fn.now() });
-    ctx.accessChanges.publish({ kind: 'account', userId: user.id }); // open sockets take the new name
+    await renameAccount(ctx, user.id, req.body.displayName);
     res.json(await buildMe(ctx.db, { ...user, displayName: req.body.displayName }));
   });
 

@@ -1,7 +1,7 @@
 import type { AppContext } from '../context';
 import { hashPassword, verifyPassword } from './passwords';
 import { consumeToken, issueToken } from './tokens';
-import { endSessions, findUserByEmail, findUserById, toSessionUser } from '../users/users.service';
+import { endSessions, findUserByEmail, findUserById, setPasswordHash, toSessionUser } from './accounts.service';
 import { resetMail } from '../mail/messages';
 import { AppError, badRequest } from '../http/errors';
 
@@ -23,7 +23,7 @@ export async function resetPassword(ctx: AppContext, token: string, password: st
   const hash = await hashPassword(password, ctx.config.bcryptCost);
   const userId = await consumeToken(ctx.db, token);
   if (userId === null) throw badRequest('invalid_token', 'This link has already been used or has expired. Ask for a new one.');
-  await ctx.db('users').where({ id: userId }).update({ password_hash: hash, updated_at: ctx.db.fn.now() });
+  await setPasswordHash(ctx.db, userId, hash);
   await endSessions(ctx, userId);
   const row = await findUserById(ctx.db, userId);
   return row && !row.disabled_at ? toSessionUser(row) : null;
@@ -35,7 +35,7 @@ export async function changePassword(ctx: AppContext, userId: number, current: s
     throw new AppError(400, 'invalid_credentials', 'The current password is not right.', { issues: [{ path: 'currentPassword', message: 'The current password is not right.' }] });
   }
   const hash = await hashPassword(next, ctx.config.bcryptCost);
-  await ctx.db('users').where({ id: userId }).update({ password_hash: hash, updated_at: ctx.db.fn.now() });
+  await setPasswordHash(ctx.db, userId, hash);
   await endSessions(ctx, userId);
   return row.session_version + 1;
 }

@@ -4,7 +4,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import { AppError } from '../http/errors';
 import { verifyPassword } from './passwords';
-import { findUserByEmail, findUserById, toSessionUser } from '../users/users.service';
+import { findUserByEmail, findUserById, toSessionUser } from './accounts.service';
 
 // The session stores { id, v }: the account id and its session version. A
 // disabled account, or one whose version moved on (disable, password change),

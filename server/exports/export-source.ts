@@ -1,12 +1,13 @@
 import type { Db } from '../db/knex';
 import type { Evaluation, Mapping, Molecule, Resolution } from '../../src/shared/chem';
 import type { VersionRef } from '../../src/shared/versions';
-import type { DraftAccess } from '../mappings/mappings.routes';
+import type { DraftAccess } from '../mappings/draft-access';
 import { conflict, notFound } from '../http/errors';
 import { parseModel } from '../molecules/molecule-view';
 import { getVersion } from '../versions/versions.service';
 import { lockState } from '../lock/lock.service';
-import { contentSha256 } from './content-hash';
+import { contentSha256 } from '../versions/content-hash';
+import { mappingForExport } from './exports.service';
 
 // Everything an export file is written from: one state of a mapping (the draft, a version, or the
 // locked production version) with its evaluation, the molecule and the content's SHA-256.
@@ -30,7 +31,7 @@ export interface ExportSource {
 export const stateLabel = (s: Pick<ExportSource, 'version'>) => (s.version === null ? 'draft' : `v${s.version}`);
 
 export async function exportSource(db: Db, drafts: DraftAccess, mappingId: number, ref: VersionRef): Promise<ExportSource> {
-  const row = await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('p.name', 'p.resolution', 'm.id as molecule_id', 'm.name as molecule_name', 'm.model', 'm.canonical_smiles');
+  const row = await mappingForExport(db, mappingId);
   if (!row) throw notFound('That mapping');
   const base = { mappingId, mappingName: row.name as string, moleculeName: row.molecule_name as string, model: parseModel({ id: row.molecule_id, model: row.model }) };
   const lock = await lockState(db, mappingId);

@@ -2,7 +2,7 @@ import express from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import type { DraftAccess } from '../mappings/mappings.routes';
+import type { DraftAccess } from '../mappings/draft-access';
 import { validate } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
@@ -14,6 +14,7 @@ import { exportSource } from './export-source';
 import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
 import { importMapping, planImport, previewOf } from './import.service';
+import { projectName } from './exports.service';
 import { slug } from './render';
 
 const params = z.object({ id: idParam });
@@ -39,9 +40,8 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
   r.get('/api/projects/:id/export.zip', validate({ params }), async (req, res) => {
     const id = Number(req.params.id);
     await authorizeProject(ctx.db, req, id, 'mapping:export');
-    const project = await ctx.db('projects').where({ id }).first('name');
     res.setHeader('Content-Type', 'application/zip');
-    res.setHeader('Content-Disposition', `attachment; filename="${slug(project.name)}-production.zip"`);
+    res.setHeader('Content-Disposition', `attachment; filename="${slug(await projectName(ctx.db, id))}-production.zip"`);
     await writeProjectZip(ctx.db, drafts, id, res);
   });
 

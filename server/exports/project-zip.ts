@@ -1,20 +1,16 @@
 import type { Writable } from 'node:stream';
 import type { Db } from '../db/knex';
 import { EXPORT_FORMATS } from '../../src/shared/exports';
-import type { DraftAccess } from '../mappings/mappings.routes';
+import type { DraftAccess } from '../mappings/draft-access';
 import { exportSource, stateLabel } from './export-source';
 import { renderExport, slug } from './render';
+import { projectMappings } from './exports.service';
 
 // The project download: every mapping's locked production version in every export format, one
 // folder per mapping ("<molecule>/<mapping>-v<N>/"), and manifest.json listing what is inside with
 // each version's SHA-256. Mappings without a production version are listed as skipped.
 export async function writeProjectZip(db: Db, drafts: DraftAccess, projectId: number, out: Writable): Promise<void> {
-  const rows = await db('mappings as p')
-    .join('molecules as m', 'm.id', 'p.molecule_id')
-    .leftJoin('mapping_locks as l', 'l.mapping_id', 'p.id')
-    .where('m.project_id', projectId)
-    .orderBy(['m.name', 'p.name', 'p.id'])
-    .select('p.id', 'p.name', 'm.name as molecule_name', 'l.mapping_id as locked');
+  const rows = await projectMappings(db, projectId);
   // Loaded on first use: the archiver package is large and most processes never build a zip.
   const { ZipArchive } = await import('archiver');
   const zip = new ZipArchive({ zlib: { level: 6 } });

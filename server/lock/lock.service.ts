@@ -28,12 +28,6 @@ export async function lockState(db: Db, mappingId: number): Promise<LockState> {
   };
 }
 
-/** REST edits of a locked mapping answer 409 mapping_locked. */
-export async function assertUnlocked(db: Db, mappingId: number): Promise<void> {
-  const row = await db('mappings').where({ id: mappingId }).first('locked');
-  if (row?.locked) throw conflict('mapping_locked', 'This mapping is locked for production; unlock it before changing the draft.');
-}
-
 async function onRoomQueue<T>(rooms: Rooms, mappingId: number, work: () => Promise<T>): Promise<T> {
   const room = await rooms.live(mappingId);
   if (!room) return work();

@@ -3,6 +3,7 @@ import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import { canSite } from '../../src/shared/permissions';
 import { escapeHtml } from './messages';
+import { caughtMail } from './dev-mail.service';
 
 // Development-only view of the local SMTP sink. The caught mail holds every
 // account's invitation and password-reset links, so reading it is taking over
@@ -22,38 +23,15 @@ export function devMailMounted(ctx: AppContext): boolean {
  */
 const mailReaderOnly: RequestHandler = (req, _res, next) => next(req.user && canSite({ isAdmin: req.user.isAdmin, roles: [] }, 'mail:read') ? undefined : 'route');
 
-interface DevMail {
-  id: number;
-  to: string[];
-  from: string;
-  subject: string;
-  text: string;
-  html: string;
-  createdAt: string;
-}
-
-async function caughtMail(ctx: AppContext): Promise<DevMail[]> {
-  const rows = await ctx.db('dev_mail').orderBy('id', 'desc').limit(200);
-  return rows.map((r) => ({
-    id: r.id,
-    to: String(r.to_addresses).split(', ').filter(Boolean),
-    from: r.from_address,
-    subject: r.subject,
-    text: r.text_body,
-    html: r.html_body,
-    createdAt: new Date(r.created_at).toISOString(),
-  }));
-}
-
 const linkify = (text: string) => escapeHtml(text).replace(/(https?:\/\/[^\s<]+)/g, '<a href="$1">$1</a>');
 
 export function devMailRoutes(r: RouteTable, ctx: AppContext): void {
   r.get('/dev/mail.json', mailReaderOnly, async (_req, res) => {
-    res.json(await caughtMail(ctx));
+    res.json(await caughtMail(ctx.db));
   });
 
   r.get('/dev/mail', mailReaderOnly, async (_req, res) => {
-    const mails = await caughtMail(ctx);
+    const mails = await caughtMail(ctx.db);
     const items = mails
       .map(
         (m) => `<article><h2>${escapeHtml(m.subject)}</h2><p class="meta">To ${escapeHtml(m.to.join(', '))} · ${escapeHtml(m.createdAt)}</p><pre>${linkify(m.text)}</pre></article>`,

@@ -3,10 +3,11 @@ import type { Db } from '../db/knex';
 import { can, canSee, type ProjectAction } from '../../src/shared/permissions';
 import { authorizeProject, requireUser, roleInProject, type Actor } from '../auth/access';
 import { notFound } from '../http/errors';
+import { mappingsWithMolecule } from './mappings.service';
 import type { ProjectRole } from '../../src/shared/roles';
 
 const projectOfMapping = async (db: Db, mappingId: number): Promise<number | null> =>
-  (await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first('m.project_id'))?.project_id ?? null;
+  (await mappingsWithMolecule(db).where('p.id', mappingId).first('m.project_id'))?.project_id ?? null;
 
 /** A mapping's project, authorised for `action`: 401 anonymous, 404 unknown or invisible, 403 not allowed. */
 export async function authorizeMapping(db: Db, req: Request, mappingId: number, action: ProjectAction): Promise<{ projectId: number; role: ProjectRole | null }> {

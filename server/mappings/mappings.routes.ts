@@ -10,18 +10,13 @@ import { createMappingBody, updateMappingBody, type CreateMappingBody, type Mapp
 import type { Mapping } from '../../src/shared/chem';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
-import { createMapping, findMapping, listMappings, updateMapping } from './mappings.service';
-import type { EvaluationResult } from '../drafts/evaluate-draft';
-import { assertUnlocked } from '../lock/lock.service';
+import { assertUnlocked, createMapping, findMapping, isMappingOf, listMappings, updateMapping } from './mappings.service';
+import type { DraftAccess } from './draft-access';
 
 const params = z.object({ id: idParam });
 
-/** The live drafts (the collab server): current state of a draft, live or from MariaDB. */
-export interface DraftAccess {
-  read(mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult }>;
-  /** The mapping's settings changed (resolution, lock): re-read them and re-evaluate if live. */
-  refresh(filter: { mappingId?: number; moleculeId?: number; projectId?: number }): void;
-}
+// Kept for server/collab until the drafts module imports ./draft-access itself.
+export type { DraftAccess } from './draft-access';
 
 export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
   const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
@@ -42,8 +37,7 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
     const body = req.body as CreateMappingBody;
     let draft: Mapping | null = null;
     if (body.copyOf !== undefined) {
-      const source = await ctx.db('mappings').where({ id: body.copyOf, molecule_id: moleculeId }).first('id');
-      if (!source) throw unprocessable('copy_source_invalid', `Mapping ${body.copyOf} is not a mapping of this molecule.`, { copyOf: body.copyOf });
+      if (!(await isMappingOf(ctx.db, body.copyOf, moleculeId))) throw unprocessable('copy_source_invalid', `Mapping ${body.copyOf} is not a mapping of this molecule.`, { copyOf: body.copyOf });
       draft = (await drafts.read(body.copyOf)).draft;
     }
     const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);

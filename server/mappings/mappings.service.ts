@@ -3,7 +3,7 @@ import type { Db } from '../db/knex';
 import type { Mapping } from '../../src/shared/chem';
 import type { CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
 import { mappingToDoc } from '../../src/shared/mapping-doc';
-import { notFound } from '../http/errors';
+import { conflict, notFound } from '../http/errors';
 import { writeSnapshot } from '../drafts/drafts.service';
 
 // Knex for `mappings`. The draft itself lives in mapping_updates / mapping_snapshots (drafts/drafts.service.ts).
@@ -38,7 +38,12 @@ export function toMappingSummary(row: MappingRow): MappingSummary {
   };
 }
 
-const base = (db: Db) => db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id');
+/**
+ * The mapping→molecule join, written once: `p` is the mapping, `m` its molecule (and through it the
+ * project). Every query that needs a mapping with its molecule or project starts here.
+ */
+export const mappingsWithMolecule = (db: Db) => db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id');
+const base = mappingsWithMolecule;
 
 export async function listMappings(db: Db, moleculeId: number): Promise<MappingSummary[]> {
   const rows = await base(db).where('p.molecule_id', moleculeId).orderBy('p.name').orderBy('p.id').select(COLUMNS);
@@ -74,3 +79,15 @@ export async function createMapping(db: Db, moleculeId: number, body: CreateMapp
 export async function updateMapping(db: Db, id: number, patch: UpdateMappingBody): Promise<void> {
   await db('mappings').where({ id }).update({ ...patch, updated_at: db.fn.now() });
 }
+
+/** A mapping of this molecule (the source of a copy must be one). */
+export async function isMappingOf(db: Db, mappingId: number, moleculeId: number): Promise<boolean> {
+  return !!(await db('mappings').where({ id: mappingId, molecule_id: moleculeId }).first('id'));
+}
+
+/** REST edits of a locked mapping answer 409 mapping_locked (the lock itself is server/lock's). */
+export async function assertUnlocked(db: Db, mappingId: number): Promise<void> {
+  const row = await db('mappings').where({ id: mappingId }).first('locked');
+  if (row?.locked) throw conflict('mapping_locked', 'This mapping is locked for production; unlock it before changing the draft.');
+}
+

@@ -119,3 +119,8 @@ export async function deleteOrArchive(db: Db, id: number): Promise<'deleted' | '
 export async function setXyz(db: Db, id: number, xyz: number[][], source: 'upload' | 'conformer'): Promise<void> {
   await db('molecules').where({ id }).update({ xyz: JSON.stringify(xyz), xyz_source: source, conformer_status: source === 'upload' ? 'none' : 'done', conformer_error: null, updated_at: db.fn.now() });
 }
+
+/** Whether the molecule belongs to the project (an upload may replace only its own project's coordinates). */
+export async function isMoleculeOf(db: Db, moleculeId: number, projectId: number): Promise<boolean> {
+  return !!(await db('molecules').where({ id: moleculeId, project_id: projectId }).first('id'));
+}

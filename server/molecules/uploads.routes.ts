@@ -9,7 +9,7 @@ import { AppError, badRequest, notFound } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
 import { UPLOAD_FIELD, UPLOAD_MAX_BYTES, uploadFields, type UploadFields, type UploadResponse } from '../../src/shared/molecules';
 import { toDetail } from './molecule-view';
-import { findMolecule } from './molecules.service';
+import { findMolecule, isMoleculeOf } from './molecules.service';
 import { attachCoordinates, importRecords, readStructureFile } from './uploads.service';
 import type { ConformerQueue } from './conformer-queue';
 
@@ -40,8 +40,7 @@ export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: Conform
     if (!req.file) throw badRequest('validation_failed', `Attach a molfile or SD file in the form field "${UPLOAD_FIELD}".`);
     const text = readStructureFile(req.file);
     if (fields.moleculeId !== undefined) {
-      const row = await ctx.db('molecules').where({ id: fields.moleculeId, project_id: projectId }).first('id');
-      if (!row) throw notFound('That molecule');
+      if (!(await isMoleculeOf(ctx.db, fields.moleculeId, projectId))) throw notFound('That molecule');
       await authorizeProject(ctx.db, req, projectId, 'molecule:update');
       await attachCoordinates(ctx.db, fields.moleculeId, text);
       return void res.json(toDetail(await findMolecule(ctx.db, fields.moleculeId, true), null));

@@ -4,7 +4,7 @@ import { validate } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { AppError } from '../http/errors';
 import { markReadBody, preferencesBody, type MarkReadBody, type NotificationEvent, type Preferences } from '../../src/shared/notifications';
-import { userChannel, wantsEventStream, type LiveHub } from '../threads/live-hub';
+import { userChannel, wantsEventStream, type LiveHub } from '../http/live-hub';
 import { getPreferences, listNotifications, markRead, putPreferences } from './notifications.service';
 
 // The signed-in person's own notifications and e-mail preferences; nobody sees anyone else's.

@@ -61,3 +61,14 @@ export async function putPreferences(db: Db, userId: number, prefs: Preferences)
     .merge();
   return getPreferences(db, userId);
 }
+
+/** A mapping's name for a notification's text (null when it is gone). */
+export async function mappingName(db: Db, mappingId: number): Promise<string | null> {
+  return (await db('mappings').where({ id: mappingId }).first('name'))?.name ?? null;
+}
+
+/** Where a person's notification e-mail goes. */
+export async function emailAddressee(db: Db, userId: number): Promise<{ email: string; displayName: string }> {
+  const row = await db('users').where({ id: userId }).first('email', 'display_name');
+  return { email: row.email, displayName: row.display_name };
+}

@@ -2,11 +2,10 @@ import type { AppContext } from '../context';
 import { wantsEmail, type NotificationEvent } from '../../src/shared/notifications';
 import { mentionedIds } from '../../src/shared/threads-mentions';
 import { threadLink } from '../../src/shared/threads';
-import { participants, projectMembers } from '../threads/threads.service';
-import { userChannel, type LiveHub } from '../threads/live-hub';
+import { userChannel, type LiveHub } from '../http/live-hub';
 import { recipients } from './recipients';
 import { notificationMail } from './notification-mail';
-import { getPreferences, insertNotifications, unreadCount } from './notifications.service';
+import { emailAddressee, getPreferences, insertNotifications, mappingName, unreadCount } from './notifications.service';
 
 // After a comment is stored: notify the people it concerns (recipients.ts) in the app, live, and by
 // e-mail as their preferences say. An edited comment notifies only the people it newly mentions.
@@ -25,28 +24,32 @@ export interface NewComment {
   previousBody?: string;
 }
 
-export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewComment): Promise<void> {
-  const members = await projectMembers(ctx.db, c.projectId);
+/** Who could hear about it, given by the thread's side: the project's members and the thread's earlier writers. */
+export interface Audience {
+  members: ReadonlySet<number>;
+  participants: readonly number[];
+}
+
+export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewComment, audience: Audience): Promise<void> {
   const edited = c.previousBody !== undefined;
   const before = new Set(edited ? mentionedIds(c.previousBody!) : []);
-  const earlier = edited ? [] : (await participants(ctx.db, c.threadId)).filter((id) => id !== c.author.id);
+  const earlier = edited ? [] : audience.participants.filter((id) => id !== c.author.id);
   const mentioned = mentionedIds(c.body).filter((id) => !before.has(id));
-  const targets = recipients({ authorId: c.author.id, mentioned, participants: earlier, members: new Set(members.keys()) });
+  const targets = recipients({ authorId: c.author.id, mentioned, participants: earlier, members: audience.members });
   if (!targets.length) return;
   await insertNotifications(ctx.db, targets.map((t) => ({ ...t, threadId: c.threadId, commentId: c.commentId, actorId: c.author.id })));
 
-  const mapping = await ctx.db('mappings').where({ id: c.mappingId }).first('name');
+  const mapping = await mappingName(ctx.db, c.mappingId);
   const link = threadLink(ctx.config.appUrl, c.mappingId, c.beadId, c.threadId);
   for (const t of targets) {
     const event: NotificationEvent = { type: 'notifications', unread: await unreadCount(ctx.db, t.userId) };
     live.publish(userChannel(t.userId), event.type, event);
     if (!wantsEmail(await getPreferences(ctx.db, t.userId), t.kind)) continue;
-    const to = await ctx.db('users').where({ id: t.userId }).first('email', 'display_name');
     const mail = notificationMail({
-      to: { email: to.email, displayName: to.display_name },
+      to: await emailAddressee(ctx.db, t.userId),
       kind: t.kind,
       actorName: c.author.displayName,
-      mappingName: mapping?.name ?? `Mapping ${c.mappingId}`,
+      mappingName: mapping ?? `Mapping ${c.mappingId}`,
       beadName: c.beadName,
       body: c.body,
       link,

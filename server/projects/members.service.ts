@@ -2,8 +2,8 @@ import type { AppContext } from '../context';
 import type { Member } from '../../src/shared/projects';
 import type { ProjectRole } from '../../src/shared/roles';
 import { conflict, notFound } from '../http/errors';
-import { findUserByEmail } from '../users/users.service';
-import { createInvitedAccount } from '../users/invitations';
+import { findUserByEmail } from '../auth/accounts.service';
+import { createInvitedAccount } from '../users/invitations.service';
 import { addedToProjectMail } from '../mail/messages';
 
 const memberColumns = ['u.id as userId', 'u.email', 'u.display_name as displayName', 'm.role', 'u.password_hash'] as const;

@@ -3,6 +3,7 @@ import type { Db } from '../db/knex';
 import type { ProjectAction } from '../../src/shared/permissions';
 import { authorizeProject, requireUser } from '../auth/access';
 import { notFound } from '../http/errors';
+import { mappingsWithMolecule } from '../mappings/mappings.service';
 import type { ProjectRole } from '../../src/shared/roles';
 
 // A thread or comment, authorised through its mapping's project: 401 anonymous, 404 unknown or in a
@@ -16,8 +17,7 @@ export interface ThreadPlace {
   role: ProjectRole | null;
 }
 
-const threadBase = (db: Db) =>
-  db('threads as t').join('mappings as p', 'p.id', 't.mapping_id').join('molecules as m', 'm.id', 'p.molecule_id');
+const threadBase = (db: Db) => mappingsWithMolecule(db).join('threads as t', 't.mapping_id', 'p.id');
 
 async function authorize(db: Db, req: Request, row: { threadId: number; mappingId: number; projectId: number; beadId: string } | undefined, what: string, action: ProjectAction) {
   if (!row) throw notFound(what);

@@ -10,9 +10,9 @@ import { getVersion } from '../versions/versions.service';
 import { idParam } from '../../src/shared/fields';
 import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, updateCommentBody, updateThreadBody, type ListThreadsQuery, type ThreadEvent } from '../../src/shared/threads';
 import { normaliseMentions } from '../../src/shared/threads-mentions';
-import { notifyComment } from '../notifications/notify';
+import { notifyComment, type NewComment } from '../notifications/notify';
 import { draftBeads } from './draft-beads';
-import { mappingChannel, wantsEventStream, type LiveHub } from './live-hub';
+import { mappingChannel, wantsEventStream, type LiveHub } from '../http/live-hub';
 import { authorizeComment, authorizeThread } from './thread-access';
 import * as threads from './threads.service';
 
@@ -34,6 +34,13 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     if (text.length > COMMENT_MAX) throw tooLarge(`A comment has at most ${COMMENT_MAX} characters.`, { max: COMMENT_MAX, length: text.length });
     return text;
   };
+
+  /** Notifies the people a stored comment concerns (notifications/notify.ts); the thread's side says who could. */
+  const notify = async (c: NewComment) =>
+    notifyComment(ctx, live, c, {
+      members: new Set((await threads.projectMembers(db, c.projectId)).keys()),
+      participants: c.previousBody === undefined ? await threads.participants(db, c.threadId) : [],
+    });
 
   /** Tells everyone viewing the mapping; returns the thread as it is now. */
   const publish = async (threadId: number, mappingId: number) => {
@@ -66,7 +73,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const text = await prepare(projectId, body);
     const { threadId, commentId } = await threads.createThread(db, { mappingId, beadId, beadName: beads.current.get(beadId) ?? null, userId: user.id, body: text });
     const thread = await publish(threadId, mappingId);
-    await notifyComment(ctx, live, { projectId, mappingId, threadId, commentId, beadId, beadName: thread.beadName, author: user, body: text });
+    await notify({ projectId, mappingId, threadId, commentId, beadId, beadName: thread.beadName, author: user, body: text });
     res.status(201).json(thread);
   });
 
@@ -76,7 +83,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const text = await prepare(place.projectId, (req.body as { body: string }).body);
     const commentId = await threads.addComment(db, place.threadId, user.id, text);
     const thread = await publish(place.threadId, place.mappingId);
-    await notifyComment(ctx, live, { ...place, commentId, beadName: thread.beadName, author: user, body: text });
+    await notify({ ...place, commentId, beadName: thread.beadName, author: user, body: text });
     res.status(201).json(thread.comments.find((c) => c.id === commentId));
   });
 
@@ -95,7 +102,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const text = await prepare(place.projectId, (req.body as { body: string }).body);
     await threads.editComment(db, id, text);
     const thread = await publish(place.threadId, place.mappingId);
-    await notifyComment(ctx, live, { ...place, commentId: id, beadName: thread.beadName, author: requireUser(req), body: text, previousBody });
+    await notify({ ...place, commentId: id, beadName: thread.beadName, author: requireUser(req), body: text, previousBody });
     res.json(thread.comments.find((c) => c.id === id));
   });
 

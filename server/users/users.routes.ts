@@ -5,9 +5,8 @@ import { validate } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { createUserBody, updateUserBody } from '../../src/shared/users';
 import { idParam } from '../../src/shared/fields';
-import { findUserById, listUsers, toUserSummary, updateAccount } from './users.service';
-import { createInvitedAccount } from './invitations';
-import { conflict, notFound } from '../http/errors';
+import { listUsers, toUserSummary, updateAccount } from './users.service';
+import { createInvitedAccount } from './invitations.service';
 
 const userParams = z.object({ id: idParam });
 
@@ -25,14 +24,6 @@ export function userRoutes(r: RouteTable, ctx: AppContext): void {
 
   r.patch('/api/users/:id', validate({ params: userParams, body: updateUserBody }), async (req, res) => {
     const admin = await authorizeSite(ctx.db, req, 'users:manage');
-    const id = Number(req.params.id);
-    const row = await findUserById(ctx.db, id);
-    if (!row) throw notFound('That account');
-    const { displayName, isAdmin, disabled } = req.body as z.infer<typeof updateUserBody>;
-    if (id === admin.id && (disabled === true || isAdmin === false)) {
-      throw conflict('conflict', 'You cannot disable your own account or remove your own admin flag.');
-    }
-    await updateAccount(ctx, id, { displayName, isAdmin, disabled });
-    res.json(toUserSummary((await findUserById(ctx.db, id))!));
+    res.json(await updateAccount(ctx, admin.id, Number(req.params.id), req.body));
   });
 }

@@ -1,29 +1,11 @@
 import type { Db } from '../db/knex';
 import type { AppContext } from '../context';
 import type { UserSummary } from '../../src/shared/users';
+import { endSessions, findUserById, type UserRow } from '../auth/accounts.service';
+import { conflict, notFound } from '../http/errors';
 
-// Knex access to accounts. Rows use snake_case; the API uses camelCase.
-
-export interface UserRow {
-  id: number;
-  email: string;
-  display_name: string;
-  password_hash: string | null;
-  is_admin: number | boolean;
-  disabled_at: Date | null;
-  session_version: number;
-  created_at: Date;
-}
-
-export function toSessionUser(row: UserRow): Express.User {
-  return {
-    id: row.id,
-    email: row.email,
-    displayName: row.display_name,
-    isAdmin: !!row.is_admin,
-    sessionVersion: row.session_version,
-  };
-}
+// Site administration of accounts (an admin's list and changes). Finding an account and ending its
+// sessions are the sign-in's, in auth/accounts.service.ts. Rows use snake_case; the API uses camelCase.
 
 export function toUserSummary(row: UserRow): UserSummary {
   return {
@@ -37,15 +19,7 @@ export function toUserSummary(row: UserRow): UserSummary {
   };
 }
 
-export const findUserById = (db: Db, id: number) => db<UserRow>('users').where({ id }).first();
-export const findUserByEmail = (db: Db, email: string) => db<UserRow>('users').where({ email: email.toLowerCase() }).first();
 export const listUsers = (db: Db) => db<UserRow>('users').orderBy('email');
-
-/** Ends every session of the account: their stored session version no longer matches (open sockets close too). */
-export async function endSessions(ctx: AppContext, userId: number): Promise<void> {
-  await ctx.db('users').where({ id: userId }).increment('session_version', 1);
-  ctx.accessChanges.publish({ kind: 'account', userId });
-}
 
 export interface AccountChanges {
   displayName?: string;
@@ -53,9 +27,16 @@ export interface AccountChanges {
   disabled?: boolean;
 }
 
-/** An admin's change to an account; disabling it ends its sessions. Open sockets follow (access-changes.ts). */
-export async function updateAccount(ctx: AppContext, id: number, changes: AccountChanges): Promise<void> {
+/**
+ * An admin's change to an account; disabling it ends its sessions. Open sockets follow
+ * (access-changes.ts). Nobody disables their own account or drops their own admin flag.
+ */
+export async function updateAccount(ctx: AppContext, adminId: number, id: number, changes: AccountChanges): Promise<UserSummary> {
   const { displayName, isAdmin, disabled } = changes;
+  if (!(await findUserById(ctx.db, id))) throw notFound('That account');
+  if (id === adminId && (disabled === true || isAdmin === false)) {
+    throw conflict('conflict', 'You cannot disable your own account or remove your own admin flag.');
+  }
   await ctx.db('users')
     .where({ id })
     .update({
@@ -66,4 +47,5 @@ export async function updateAccount(ctx: AppContext, id: number, changes: Accoun
     });
   if (disabled === true) await endSessions(ctx, id);
   else ctx.accessChanges.publish({ kind: 'account', userId: id });
+  return toUserSummary((await findUserById(ctx.db, id))!);
 }

@@ -2,8 +2,8 @@ import type { Db } from '../db/knex';
 import type { Rooms } from '../drafts/rooms';
 import { notFound } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
-import { assertUnlocked } from '../lock/lock.service';
-import { contentSha256 } from '../exports/content-hash';
+import { assertUnlocked, mappingsWithMolecule } from '../mappings/mappings.service';
+import { contentSha256 } from './content-hash';
 import { getVersion, insertVersion, latestVersionHash } from './versions.service';
 
 export interface RestoreResult {
@@ -36,7 +36,7 @@ export async function restoreVersion(db: Db, rooms: Rooms, mappingId: number, nu
       async (current, replace) => {
         const evaluated = room.snapshot().result;
         snapshot = await db.transaction(async (trx) => {
-          const mapping = await trx('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).forUpdate().first('m.canonical_smiles');
+          const mapping = await mappingsWithMolecule(trx).where('p.id', mappingId).forUpdate().first('m.canonical_smiles');
           if (!mapping) throw notFound('That mapping');
           await assertUnlocked(trx, mappingId);
           if (contentSha256(mapping.canonical_smiles, current) === (await latestVersionHash(trx, mappingId))) return null;

@@ -1,11 +1,12 @@
 import type { Db } from '../db/knex';
 import type { Evaluation, Mapping, Resolution } from '../../src/shared/chem';
 import type { VersionDetail, VersionSummary } from '../../src/shared/versions';
-import type { DraftAccess } from '../mappings/mappings.routes';
+import type { DraftAccess } from '../mappings/draft-access';
 import type { EvaluationResult } from '../drafts/evaluate-draft';
 import { conflict, notFound } from '../http/errors';
 import { appendAudit } from '../audit/audit.service';
-import { contentSha256 } from '../exports/content-hash';
+import { mappingsWithMolecule } from '../mappings/mappings.service';
+import { contentSha256 } from './content-hash';
 
 // Knex for `mapping_versions`. A save reads the server's own draft (the live room's document, else
 // the draft stored in MariaDB) — never anything a client sent — then numbers it inside a transaction
@@ -81,8 +82,7 @@ export async function saveVersion(db: Db, drafts: DraftAccess, mappingId: number
  * this makes hold the mapping's row lock, so concurrent saves queue and take 1, 2, 3… in turn).
  */
 export async function insertVersion(trx: Db, mappingId: number, authorId: number, message: string, draft: Mapping, result: EvaluationResult): Promise<number> {
-  const mapping = await trx('mappings as p')
-    .join('molecules as m', 'm.id', 'p.molecule_id')
+  const mapping = await mappingsWithMolecule(trx)
     .where('p.id', mappingId)
     .forUpdate()
     .first('p.resolution', 'm.canonical_smiles');

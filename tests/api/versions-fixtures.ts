@@ -70,7 +70,7 @@ export async function lockedMapping(db: Db, name: string): Promise<number> {
 
 /** A valid import body (a JSON export's essentials) for a molecule's first `atoms` atoms in one bead. */
 export async function importBodyFor(db: Db, moleculeId: number, atoms = 2) {
-  const { contentSha256 } = await import('../../server/exports/content-hash');
+  const { contentSha256 } = await import('../../server/versions/content-hash');
   const { versionContent } = await import('../../src/shared/exports');
   const { canonical_smiles: smiles, model } = await db('molecules').where({ id: moleculeId }).first('canonical_smiles', 'model');
   const mapping = { beads: [{ id: 'imp1', name: 'I1', centre: 'mass' as const, atoms: Array.from({ length: atoms }, (_, index) => ({ index, weight: 1 })) }] };

@@ -3,7 +3,7 @@ import type { ProjectRole } from '../../src/shared/roles';
 import { issueToken } from '../auth/tokens';
 import { passwordLink } from '../auth/auth.service';
 import { invitationMail } from '../mail/messages';
-import { findUserByEmail, type UserRow } from './users.service';
+import { findUserByEmail, type UserRow } from '../auth/accounts.service';
 import { conflict } from '../http/errors';
 
 interface NewAccount {

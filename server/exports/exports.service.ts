@@ -1,0 +1,26 @@
+import type { Db } from '../db/knex';
+import { mappingsWithMolecule } from '../mappings/mappings.service';
+import type { Resolution } from '../../src/shared/chem';
+
+// Knex for exports: the rows an export file and the project download are written from.
+
+/** A mapping with the molecule an export file needs; undefined when the mapping does not exist. */
+export async function mappingForExport(db: Db, mappingId: number) {
+  const row = await mappingsWithMolecule(db).where('p.id', mappingId).first('p.name', 'p.resolution', 'm.id as molecule_id', 'm.name as molecule_name', 'm.model', 'm.canonical_smiles');
+  return row as { name: string; resolution: Resolution; molecule_id: number; molecule_name: string; model: string | null; canonical_smiles: string } | undefined;
+}
+
+/** Every mapping of a project in download order, with whether it has a locked production version. */
+export async function projectMappings(db: Db, projectId: number): Promise<{ id: number; name: string; molecule_name: string; locked: number | null }[]> {
+  return mappingsWithMolecule(db)
+    .leftJoin('mapping_locks as l', 'l.mapping_id', 'p.id')
+    .where('m.project_id', projectId)
+    .orderBy(['m.name', 'p.name', 'p.id'])
+    .select('p.id', 'p.name', 'm.name as molecule_name', 'l.mapping_id as locked');
+}
+
+/** The project's name, for the download's file name. */
+export async function projectName(db: Db, projectId: number): Promise<string> {
+  const row = await db('projects').where({ id: projectId }).first('name');
+  return row?.name ?? `project-${projectId}`;
+}

@@ -1,0 +1,13 @@
+import type { Mapping } from '../../src/shared/chem';
+import type { EvaluationResult } from '../drafts/evaluate-draft';
+
+/**
+ * The live drafts as the REST side needs them (implemented by the collab server): the current state
+ * of a draft, live or from MariaDB, and a nudge when a mapping's settings change. A seam, so routes
+ * and services depend on this small interface rather than on the live-draft module.
+ */
+export interface DraftAccess {
+  read(mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult }>;
+  /** The mapping's settings changed (resolution, lock): re-read them and re-evaluate if live. */
+  refresh(filter: { mappingId?: number; moleculeId?: number; projectId?: number }): void;
+}
