@@ -49,7 +49,7 @@ export default tseslint.config(
   ...pluginQuery.configs['flat/recommended'].map((c) => ({ ...c, files: ['src/**/*.{ts,tsx}'] })),
   // Everything that runs in Node: the server, migrations, seeds, scripts, benchmarks, tests, configs.
   {
-    files: ['server/**', 'migrations/**', 'seeds/**', 'scripts/**', 'bench/**', 'tests/**', '*.{js,mjs,ts}'],
+    files: ['server/**', 'migrations/**', 'seeds/**', 'scripts/**', 'bench/**', 'tests/**', '*.{js,mjs,cjs,ts}'],
     languageOptions: { globals: globals.node },
   },
   {
