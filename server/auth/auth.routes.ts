@@ -3,7 +3,7 @@ import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import type { createCsrf } from './csrf';
 import type passport from 'passport';
-import { validate } from '../http/validate';
+import { typed, validate } from '../http/validate';
 import { changePasswordBody, forgotBody, loginBody, resetBody, updateMeBody, type LoginResponse } from '../../src/shared/auth';
 import { createLoginLimiter } from './rate-limit';
 import { AppError } from '../http/errors';
@@ -35,6 +35,7 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
       }
     });
 
+  // passport reads the (checked) body itself, so this one validates as a middleware.
   r.post('/api/auth/login', limiter.check, validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
     passport.authenticate('local', (err: unknown, user: Express.User | false) => {
       // Only a wrong password (or unknown e-mail) counts against the limits; see rate-limit.ts.
@@ -57,37 +58,37 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
     });
   });
 
-  r.post('/api/auth/forgot', validate({ body: forgotBody }), (req, res) => {
+  r.post('/api/auth/forgot', typed({ body: forgotBody }, ({ body }, _req, res) => {
     // Answer at once and send in the background: the timing says nothing about the address.
-    requestPasswordReset(ctx, req.body.email).catch((err) => ctx.log.error({ err }, 'password reset mail failed'));
+    requestPasswordReset(ctx, body.email).catch((err) => ctx.log.error({ err }, 'password reset mail failed'));
     res.status(202).json({ ok: true });
-  });
+  }));
 
   // Whoever just chose a password from their e-mailed link is signed in with it (a new session, as
   // at sign-in): 200 with the same body as a sign-in. 204 when the account is disabled.
-  r.post('/api/auth/reset', validate({ body: resetBody }), async (req, res, next) => {
-    const user = await resetPassword(ctx, req.body.token, req.body.password);
+  r.post('/api/auth/reset', typed({ body: resetBody }, async ({ body }, req, res, next) => {
+    const user = await resetPassword(ctx, body.token, body.password);
     if (!user) return void res.status(204).end();
     signIn(req, res, next, user);
-  });
+  }));
 
   r.get('/api/me', async (req, res) => {
     res.json(await buildMe(ctx.db, requireUser(req)));
   });
 
-  r.patch('/api/me', validate({ body: updateMeBody }), async (req, res) => {
+  r.patch('/api/me', typed({ body: updateMeBody }, async ({ body }, req, res) => {
     const user = requireUser(req);
-    await renameAccount(ctx, user.id, req.body.displayName);
-    res.json(await buildMe(ctx.db, { ...user, displayName: req.body.displayName }));
-  });
+    await renameAccount(ctx, user.id, body.displayName);
+    res.json(await buildMe(ctx.db, { ...user, displayName: body.displayName }));
+  }));
 
-  r.post('/api/me/password', validate({ body: changePasswordBody }), async (req, res, next) => {
+  r.post('/api/me/password', typed({ body: changePasswordBody }, async ({ body }, req, res, next) => {
     const user = requireUser(req);
-    const sessionVersion = await changePassword(ctx, user.id, req.body.currentPassword, req.body.newPassword);
+    const sessionVersion = await changePassword(ctx, user.id, body.currentPassword, body.newPassword);
     // Every other session of the account ends; this one signs in again with the new version.
     req.logIn({ ...user, sessionVersion }, (err) => {
       if (err) return next(err);
       res.json({ csrfToken: csrf.issue(req, res) });
     });
-  });
+  }));
 }

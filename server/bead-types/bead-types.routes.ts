@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { badRequest } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
@@ -38,23 +38,23 @@ function typesFromBody(body: unknown): { types: BeadTypeRow[]; note?: string } {
 export function beadTypeRoutes(r: RouteTable, ctx: AppContext, onChange: (projectId: number) => void): void {
   const library = async (projectId: number): Promise<BeadTypeLibrary> => ({ projectId, types: await libraryFor(ctx.db, projectId), ...(await lastChange(ctx.db, projectId)) });
 
-  r.get('/api/projects/:id/bead-types', validate({ params, query: beadTypesQuery }), async (req, res) => {
-    const projectId = Number(req.params.id);
+  r.get('/api/projects/:id/bead-types', typed({ params, query: beadTypesQuery }, async ({ params, query }, req, res) => {
+    const projectId = params.id;
     await authorizeProject(ctx.db, req, projectId, 'library:read');
     const lib = await library(projectId);
-    if ((req.query as { format: string }).format === 'csv') {
+    if (query.format === 'csv') {
       res.setHeader('Content-Disposition', `attachment; filename="bead-types-project-${projectId}.csv"`);
       return void res.type('text/csv').send(beadTypesToCsv(lib.types));
     }
     res.json(lib);
-  });
+  }));
 
-  r.put('/api/projects/:id/bead-types', validate({ params }), async (req, res) => {
-    const projectId = Number(req.params.id);
+  r.put('/api/projects/:id/bead-types', typed({ params }, async ({ params }, req, res) => {
+    const projectId = params.id;
     await authorizeProject(ctx.db, req, projectId, 'library:edit');
     const { types, note } = typesFromBody(req.body);
     await replaceLibrary(ctx.db, projectId, types, requireUser(req).id, note);
     onChange(projectId);
     res.json(await library(projectId));
-  });
+  }));
 }

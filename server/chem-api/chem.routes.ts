@@ -1,10 +1,10 @@
 import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { tooLarge } from '../http/errors';
-import { evaluateBodySchema, moleculeBodySchema, SMILES_MAX, type EvaluateBody, type MoleculeBody } from '../../src/shared/mapping-schema';
+import { evaluateBodySchema, moleculeBodySchema, SMILES_MAX, type MoleculeBody } from '../../src/shared/mapping-schema';
 import { parseAndEvaluateInThread, parseInThread } from '../workers/parse-thread';
 import { logPWarningOf } from '../chem/charged-groups';
 
@@ -23,16 +23,15 @@ const smilesLimit: RequestHandler = (req, _res, next) => {
 const structureOf = (body: MoleculeBody) => ('smiles' in body ? { smiles: body.smiles } : { molfile: body.molfile });
 
 export function chemRoutes(r: RouteTable, ctx: AppContext): void {
-  r.post('/api/chem/molecule', smilesLimit, validate({ body: moleculeBodySchema }), async (req, res) => {
+  r.post('/api/chem/molecule', smilesLimit, typed({ body: moleculeBodySchema }, async ({ body }, req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
-    const molecule = await parseInThread(structureOf(req.body));
+    const molecule = await parseInThread(structureOf(body));
     // The logP of an ion, salt or zwitterion is not a partition value: say so beside it.
     res.json({ ...molecule, logPWarning: logPWarningOf(molecule) });
-  });
+  }));
 
-  r.post('/api/chem/evaluate', smilesLimit, validate({ body: evaluateBodySchema }), async (req, res) => {
+  r.post('/api/chem/evaluate', smilesLimit, typed({ body: evaluateBodySchema }, async ({ body }, req, res) => {
     await authorizeSite(ctx.db, req, 'chem:use');
-    const body = req.body as EvaluateBody;
     res.json(await parseAndEvaluateInThread(structureOf(body), body.mapping, body.options ?? {}));
-  });
+  }));
 }

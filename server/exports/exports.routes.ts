@@ -3,10 +3,10 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import type { DraftAccess } from '../mappings/draft-access';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
-import { exportQuery, importBody, IMPORT_MAX_BYTES, type ExportQuery, type ImportBody, type ImportOutcome } from '../../src/shared/exports';
+import { exportQuery, importBody, IMPORT_MAX_BYTES, type ImportOutcome } from '../../src/shared/exports';
 import { authorizeMapping } from '../mappings/mapping-access';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { findMapping } from '../mappings/mappings.service';
@@ -23,10 +23,10 @@ const params = z.object({ id: idParam });
 export const LARGE_JSON_PATHS = /^\/api\/molecules\/[^/]+\/mappings\/import\/?$/;
 
 export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
-  r.get('/api/mappings/:id/export', validate({ params, query: exportQuery }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/mappings/:id/export', typed({ params, query: exportQuery }, async ({ params, query }, req, res) => {
+    const id = params.id;
     await authorizeMapping(ctx.db, req, id, 'mapping:export');
-    const q = req.query as unknown as ExportQuery;
+    const q = query;
     const source = await exportSource(ctx.db, drafts, id, q.version);
     const highlight = q.highlight?.split(',').map((n) => Number(n) - 1);
     const file = renderExport(source, q.format, { highlight });
@@ -35,28 +35,26 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     res.setHeader('X-Content-SHA256', source.sha256);
     res.setHeader('Cache-Control', 'no-store');
     res.send(file.body);
-  });
+  }));
 
-  r.get('/api/projects/:id/export.zip', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/projects/:id/export.zip', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     await authorizeProject(ctx.db, req, id, 'mapping:export');
     res.setHeader('Content-Type', 'application/zip');
     res.setHeader('Content-Disposition', `attachment; filename="${slug(await projectName(ctx.db, id))}-production.zip"`);
     await writeProjectZip(ctx.db, drafts, id, res);
-  });
+  }));
 
   r.post(
     '/api/molecules/:id/mappings/import',
     express.json({ limit: IMPORT_MAX_BYTES }),
-    validate({ params, body: importBody }),
-    async (req, res) => {
-      const moleculeId = Number(req.params.id);
+    typed({ params, body: importBody }, async ({ params, body }, req, res) => {
+      const moleculeId = params.id;
       await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
-      const body = req.body as ImportBody;
       if (body.preview) return void res.json(previewOf(await planImport(ctx.db, moleculeId, body)));
       const { id, plan } = await importMapping(ctx.db, moleculeId, body, requireUser(req).id);
       const outcome: ImportOutcome = { correspondence: plan.correspondence, modified: plan.modified };
       res.status(201).json({ ...(await findMapping(ctx.db, id)), import: outcome });
-    },
+    }),
   );
 }

@@ -1,12 +1,12 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { can } from '../../src/shared/permissions';
 import { unprocessable } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
-import { createMappingBody, updateMappingBody, type CreateMappingBody, type MappingDetail } from '../../src/shared/mappings';
+import { createMappingBody, updateMappingBody, type MappingDetail } from '../../src/shared/mappings';
 import type { Mapping } from '../../src/shared/chem';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
@@ -25,16 +25,15 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
     return { ...summary, draft, evaluation: result.evaluation, evaluationError: result.error, canEdit: canEdit && !summary.locked };
   };
 
-  r.get('/api/molecules/:id/mappings', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/molecules/:id/mappings', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     await authorizeMolecule(ctx.db, req, id, 'mapping:read');
     res.json(await listMappings(ctx.db, id));
-  });
+  }));
 
-  r.post('/api/molecules/:id/mappings', validate({ params, body: createMappingBody }), async (req, res) => {
-    const moleculeId = Number(req.params.id);
+  r.post('/api/molecules/:id/mappings', typed({ params, body: createMappingBody }, async ({ params, body }, req, res) => {
+    const moleculeId = params.id;
     await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
-    const body = req.body as CreateMappingBody;
     let draft: Mapping | null = null;
     if (body.copyOf !== undefined) {
       if (!(await isMappingOf(ctx.db, body.copyOf, moleculeId))) throw unprocessable('copy_source_invalid', `Mapping ${body.copyOf} is not a mapping of this molecule.`, { copyOf: body.copyOf });
@@ -42,20 +41,20 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
     }
     const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);
     res.status(201).json(await detail(id, true));
-  });
+  }));
 
-  r.get('/api/mappings/:id', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/mappings/:id', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     const { role } = await authorizeMapping(ctx.db, req, id, 'mapping:read');
     res.json(await detail(id, can({ isAdmin: requireUser(req).isAdmin, role }, 'mapping:edit')));
-  });
+  }));
 
-  r.patch('/api/mappings/:id', validate({ params, body: updateMappingBody }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.patch('/api/mappings/:id', typed({ params, body: updateMappingBody }, async ({ params, body }, req, res) => {
+    const id = params.id;
     await authorizeMapping(ctx.db, req, id, 'mapping:edit');
     await assertUnlocked(ctx.db, id);
-    await updateMapping(ctx.db, id, req.body);
+    await updateMapping(ctx.db, id, body);
     drafts.refresh({ mappingId: id });
     res.json(await detail(id, true));
-  });
+  }));
 }

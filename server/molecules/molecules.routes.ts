@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
-import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody, type CreateMoleculeBody, type ListMoleculesQuery } from '../../src/shared/molecules';
+import { createMoleculeBody, listMoleculesQuery, updateMoleculeBody } from '../../src/shared/molecules';
 import { parseInThread } from '../workers/parse-thread';
 import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
@@ -16,17 +16,16 @@ const params = z.object({ id: idParam });
 export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: ConformerQueue): void {
   const detail = async (id: number) => toDetail(await findMolecule(ctx.db, id, true), conformers.position(id));
 
-  r.get('/api/projects/:id/molecules', validate({ params, query: listMoleculesQuery }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/projects/:id/molecules', typed({ params, query: listMoleculesQuery }, async ({ params, query }, req, res) => {
+    const id = params.id;
     await authorizeProject(ctx.db, req, id, 'molecule:read');
-    const rows = await listMolecules(ctx.db, id, req.query as unknown as ListMoleculesQuery);
+    const rows = await listMolecules(ctx.db, id, query);
     res.json(rows.map((row) => toSummary(row, conformers.position(row.id))));
-  });
+  }));
 
-  r.post('/api/projects/:id/molecules', validate({ params, body: createMoleculeBody }), async (req, res) => {
-    const projectId = Number(req.params.id);
+  r.post('/api/projects/:id/molecules', typed({ params, body: createMoleculeBody }, async ({ params, body }, req, res) => {
+    const projectId = params.id;
     await authorizeProject(ctx.db, req, projectId, 'molecule:create');
-    const body = req.body as CreateMoleculeBody;
     const model = await parseInThread(body.smiles !== undefined ? { smiles: body.smiles } : { molfile: body.molfile! });
     await refuseDuplicate(ctx.db, projectId, model.canonicalSmiles, body.allowDuplicate);
     const id = await insertMolecule(ctx.db, {
@@ -41,25 +40,25 @@ export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Confo
     });
     if (!model.coordinates) conformers.enqueue(id);
     res.status(201).json(await detail(id));
-  });
+  }));
 
-  r.get('/api/molecules/:id', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/molecules/:id', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     await authorizeMolecule(ctx.db, req, id, 'molecule:read');
     res.json(await detail(id));
-  });
+  }));
 
-  r.patch('/api/molecules/:id', validate({ params, body: updateMoleculeBody }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.patch('/api/molecules/:id', typed({ params, body: updateMoleculeBody }, async ({ params, body }, req, res) => {
+    const id = params.id;
     await authorizeMolecule(ctx.db, req, id, 'molecule:update');
-    await updateMolecule(ctx.db, id, req.body);
+    await updateMolecule(ctx.db, id, body);
     res.json(await detail(id));
-  });
+  }));
 
-  r.delete('/api/molecules/:id', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.delete('/api/molecules/:id', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     await authorizeMolecule(ctx.db, req, id, 'molecule:delete');
     if ((await deleteOrArchive(ctx.db, id)) === 'deleted') return void res.status(204).end();
     res.json({ archived: true, molecule: toSummary(await findMolecule(ctx.db, id), null) });
-  });
+  }));
 }

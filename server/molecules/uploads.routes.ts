@@ -3,11 +3,11 @@ import multer from 'multer';
 import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { AppError, badRequest, notFound } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
-import { UPLOAD_FIELD, UPLOAD_MAX_BYTES, uploadFields, type UploadFields, type UploadResponse } from '../../src/shared/molecules';
+import { UPLOAD_FIELD, UPLOAD_MAX_BYTES, uploadFields, type UploadResponse } from '../../src/shared/molecules';
 import { toDetail } from './molecule-view';
 import { findMolecule, isMoleculeOf } from './molecules.service';
 import { attachCoordinates, importRecords, readStructureFile } from './uploads.service';
@@ -29,14 +29,14 @@ const receiveFile: RequestHandler = (req, res, next) =>
   });
 
 export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: ConformerQueue): void {
-  const authorize: RequestHandler = async (req, _res, next) => {
-    await authorizeProject(ctx.db, req, Number(req.params.id), 'molecule:create');
+  // Checked before the file is read, so a refused caller never uploads it.
+  const authorize = typed({ params }, async ({ params }, req, _res, next) => {
+    await authorizeProject(ctx.db, req, params.id, 'molecule:create');
     next();
-  };
+  });
 
-  r.post('/api/projects/:id/molecules/upload', validate({ params }), authorize, receiveFile, validate({ body: uploadFields }), async (req, res) => {
-    const projectId = Number(req.params.id);
-    const fields = req.body as UploadFields;
+  r.post('/api/projects/:id/molecules/upload', authorize, receiveFile, typed({ params, body: uploadFields }, async ({ params, body: fields }, req, res) => {
+    const projectId = params.id;
     if (!req.file) throw badRequest('validation_failed', `Attach a molfile or SD file in the form field "${UPLOAD_FIELD}".`);
     const text = readStructureFile(req.file);
     if (fields.moleculeId !== undefined) {
@@ -51,5 +51,5 @@ export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: Conform
     const body: UploadResponse = { records, created, failed: records.length - created };
     if (created === 0) throw new AppError(422, 'no_molecule_imported', 'No record of the file could be read as a molecule.', body);
     res.status(201).json(body);
-  });
+  }));
 }

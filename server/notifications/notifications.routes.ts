@@ -1,9 +1,9 @@
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { AppError } from '../http/errors';
-import { markReadBody, preferencesBody, type MarkReadBody, type NotificationEvent, type Preferences } from '../../src/shared/notifications';
+import { markReadBody, preferencesBody, type NotificationEvent } from '../../src/shared/notifications';
 import { userChannel, wantsEventStream, type LiveHub } from '../http/live-hub';
 import { getPreferences, listNotifications, markRead, putPreferences } from './notifications.service';
 
@@ -14,12 +14,12 @@ export function notificationRoutes(r: RouteTable, ctx: AppContext, live: LiveHub
     res.json(await listNotifications(ctx.db, requireUser(req).id));
   });
 
-  r.post('/api/notifications/read', validate({ body: markReadBody }), async (req, res) => {
+  r.post('/api/notifications/read', typed({ body: markReadBody }, async ({ body }, req, res) => {
     const user = requireUser(req);
-    const event: NotificationEvent = { type: 'notifications', unread: await markRead(ctx.db, user.id, req.body as MarkReadBody) };
+    const event: NotificationEvent = { type: 'notifications', unread: await markRead(ctx.db, user.id, body) };
     live.publish(userChannel(user.id), event.type, event);
     res.json({ unread: event.unread });
-  });
+  }));
 
   r.get('/api/notifications/events', async (req, res) => {
     const user = requireUser(req);
@@ -31,7 +31,7 @@ export function notificationRoutes(r: RouteTable, ctx: AppContext, live: LiveHub
     res.json(await getPreferences(ctx.db, requireUser(req).id));
   });
 
-  r.put('/api/me/preferences', validate({ body: preferencesBody }), async (req, res) => {
-    res.json(await putPreferences(ctx.db, requireUser(req).id, req.body as Preferences));
-  });
+  r.put('/api/me/preferences', typed({ body: preferencesBody }, async ({ body }, req, res) => {
+    res.json(await putPreferences(ctx.db, requireUser(req).id, body));
+  }));
 }

@@ -2,13 +2,13 @@ import { z } from 'zod';
 import type { RequestHandler } from 'express';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { requireUser } from '../auth/access';
 import { AppError, forbidden, tooLarge, unprocessable } from '../http/errors';
 import { authorizeMapping } from '../mappings/mapping-access';
 import { getVersion } from '../versions/versions.service';
 import { idParam } from '../../src/shared/fields';
-import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, updateCommentBody, updateThreadBody, type ListThreadsQuery, type ThreadEvent } from '../../src/shared/threads';
+import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, updateCommentBody, updateThreadBody, type ThreadEvent } from '../../src/shared/threads';
 import { normaliseMentions } from '../../src/shared/threads-mentions';
 import { notifyComment, type NewComment } from '../notifications/notify';
 import { draftBeads } from './draft-beads';
@@ -50,22 +50,20 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     return thread;
   };
 
-  r.get('/api/mappings/:id/threads', validate({ params, query: listThreadsQuery }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/mappings/:id/threads', typed({ params, query: listThreadsQuery }, async ({ params, query }, req, res) => {
+    const id = params.id;
     await authorizeMapping(db, req, id, 'thread:read');
-    const query = req.query as unknown as ListThreadsQuery;
     const list = await threads.listThreads(db, id, await draftBeads(db, id), query.status);
     if (query.version === undefined) return void res.json(list);
     // Viewing a version: the threads of the beads it contains.
     const inVersion = new Set((await getVersion(db, id, query.version)).draft.beads.map((b) => b.id));
     res.json(list.filter((t) => inVersion.has(t.beadId)));
-  });
+  }));
 
-  r.post('/api/mappings/:id/threads', bodyLimit, validate({ params, body: createThreadBody }), async (req, res) => {
-    const mappingId = Number(req.params.id);
+  r.post('/api/mappings/:id/threads', bodyLimit, typed({ params, body: createThreadBody }, async ({ params, body: { beadId, body } }, req, res) => {
+    const mappingId = params.id;
     const user = requireUser(req);
     const { projectId } = await authorizeMapping(db, req, mappingId, 'comment:create');
-    const { beadId, body } = req.body as z.infer<typeof createThreadBody>;
     const beads = await draftBeads(db, mappingId);
     if (!beads.ever.has(beadId) && !(await threads.beadInVersions(db, mappingId, beadId)) && !(await threads.beadRecorded(db, mappingId, beadId))) {
       throw unprocessable('unknown_bead', 'This mapping has never had a bead with that id.', { beadId });
@@ -75,39 +73,39 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
     const thread = await publish(threadId, mappingId);
     await notify({ projectId, mappingId, threadId, commentId, beadId, beadName: thread.beadName, author: user, body: text });
     res.status(201).json(thread);
-  });
+  }));
 
-  r.post('/api/threads/:id/comments', bodyLimit, validate({ params, body: createCommentBody }), async (req, res) => {
+  r.post('/api/threads/:id/comments', bodyLimit, typed({ params, body: createCommentBody }, async ({ params, body }, req, res) => {
     const user = requireUser(req);
-    const place = await authorizeThread(db, req, Number(req.params.id), 'comment:create');
-    const text = await prepare(place.projectId, (req.body as { body: string }).body);
+    const place = await authorizeThread(db, req, params.id, 'comment:create');
+    const text = await prepare(place.projectId, (body as { body: string }).body);
     const commentId = await threads.addComment(db, place.threadId, user.id, text);
     const thread = await publish(place.threadId, place.mappingId);
     await notify({ ...place, commentId, beadName: thread.beadName, author: user, body: text });
     res.status(201).json(thread.comments.find((c) => c.id === commentId));
-  });
+  }));
 
-  r.patch('/api/threads/:id', validate({ params, body: updateThreadBody }), async (req, res) => {
-    const place = await authorizeThread(db, req, Number(req.params.id), 'comment:create');
-    await threads.setResolved(db, place.threadId, requireUser(req).id, (req.body as { resolved: boolean }).resolved);
+  r.patch('/api/threads/:id', typed({ params, body: updateThreadBody }, async ({ params, body }, req, res) => {
+    const place = await authorizeThread(db, req, params.id, 'comment:create');
+    await threads.setResolved(db, place.threadId, requireUser(req).id, (body as { resolved: boolean }).resolved);
     res.json(await publish(place.threadId, place.mappingId));
-  });
+  }));
 
-  r.patch('/api/comments/:id', bodyLimit, validate({ params, body: updateCommentBody }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.patch('/api/comments/:id', bodyLimit, typed({ params, body: updateCommentBody }, async ({ params, body }, req, res) => {
+    const id = params.id;
     const place = await authorizeComment(db, req, id, 'comment:create');
     if (place.authorId !== requireUser(req).id) throw forbidden('Only its author may edit a comment.');
     if (place.deleted) throw new AppError(409, 'comment_deleted', 'That comment has been deleted.');
     const previousBody = await threads.commentBody(db, id);
-    const text = await prepare(place.projectId, (req.body as { body: string }).body);
+    const text = await prepare(place.projectId, (body as { body: string }).body);
     await threads.editComment(db, id, text);
     const thread = await publish(place.threadId, place.mappingId);
     await notify({ ...place, commentId: id, beadName: thread.beadName, author: requireUser(req), body: text, previousBody });
     res.json(thread.comments.find((c) => c.id === id));
-  });
+  }));
 
-  r.delete('/api/comments/:id', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.delete('/api/comments/:id', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     const user = requireUser(req);
     // Authors delete their own comments; supervisors (comment:moderate) delete anyone's.
     const own = await authorizeComment(db, req, id, 'comment:create');
@@ -117,12 +115,12 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
       await publish(own.threadId, own.mappingId);
     }
     res.status(204).end();
-  });
+  }));
 
-  r.get('/api/mappings/:id/events', validate({ params }), async (req, res) => {
-    const id = Number(req.params.id);
+  r.get('/api/mappings/:id/events', typed({ params }, async ({ params }, req, res) => {
+    const id = params.id;
     await authorizeMapping(db, req, id, 'thread:read');
     if (!wantsEventStream(req)) throw new AppError(406, 'not_acceptable', 'This is a server-sent event stream: ask for text/event-stream.');
     live.stream(req, res, mappingChannel(id));
-  });
+  }));
 }

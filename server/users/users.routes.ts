@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
-import { validate } from '../http/validate';
+import { typed } from '../http/validate';
 import { authorizeSite } from '../auth/access';
 import { createUserBody, updateUserBody } from '../../src/shared/users';
 import { idParam } from '../../src/shared/fields';
@@ -16,14 +16,14 @@ export function userRoutes(r: RouteTable, ctx: AppContext): void {
     res.json((await listUsers(ctx.db)).map(toUserSummary));
   });
 
-  r.post('/api/users', validate({ body: createUserBody }), async (req, res) => {
+  r.post('/api/users', typed({ body: createUserBody }, async ({ body }, req, res) => {
     const admin = await authorizeSite(ctx.db, req, 'users:manage');
-    const row = await createInvitedAccount(ctx, req.body, admin.displayName, null);
+    const row = await createInvitedAccount(ctx, body, admin.displayName, null);
     res.status(201).json(toUserSummary(row));
-  });
+  }));
 
-  r.patch('/api/users/:id', validate({ params: userParams, body: updateUserBody }), async (req, res) => {
+  r.patch('/api/users/:id', typed({ params: userParams, body: updateUserBody }, async ({ params, body }, req, res) => {
     const admin = await authorizeSite(ctx.db, req, 'users:manage');
-    res.json(await updateAccount(ctx, admin.id, Number(req.params.id), req.body));
-  });
+    res.json(await updateAccount(ctx, admin.id, params.id, body));
+  }));
 }
