@@ -27,6 +27,8 @@ import { createCollab, type Collab } from './drafts/collab-server';
 import type { CollabOptions } from './drafts/room-options';
 import { chemRoutes } from './chem-api/chem.routes';
 import { LiveHub } from './http/live-hub';
+import { createInProcessQueue } from './jobs/in-process-queue';
+import type { JobQueue } from './jobs/job-queue';
 import { threadRoutes } from './threads/threads.routes';
 import { notificationRoutes } from './notifications/notifications.routes';
 import { versionRoutes } from './versions/versions.routes';
@@ -45,6 +47,8 @@ export interface BuiltApp {
   collab: Collab;
   /** Background 3D conformer jobs. */
   conformers: ConformerQueue;
+  /** Work started by a request and run after its answer (notification e-mail). */
+  jobs: JobQueue;
   close(): Promise<void>;
 }
 
@@ -83,6 +87,9 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   const csrf = createCsrf(ctx.config);
   app.use(cookieParser(), session, passport.initialize(), passport.session());
   app.use(csrf.protect);
+  // Jobs a request enqueues start after its response (jobs/in-process-queue.ts).
+  const jobs = createInProcessQueue(async (job) => ctx.mailer.send(job.mail), ctx.log);
+  app.use(jobs.afterResponse);
 
   const conformers = new ConformerQueue(ctx.db, ctx.log);
   const collab = createCollab(ctx, [cookieParser(), session, passport.initialize(), passport.session()], collabOptions);
@@ -100,7 +107,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   chemRoutes(routes, ctx);
   // Threads and notifications share one live hub (server-sent events).
   const live = new LiveHub();
-  threadRoutes(routes, ctx, live);
+  threadRoutes(routes, ctx, live, jobs);
   notificationRoutes(routes, ctx, live);
   versionRoutes(routes, ctx, collab);
   lockRoutes(routes, ctx, collab.rooms);
@@ -121,7 +128,9 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
     passport,
     collab,
     conformers,
+    jobs,
     async close() {
+      await jobs.idle();
       await conformers.close();
       await collab.close();
       await store.close();

@@ -3,13 +3,15 @@ import { wantsEmail, type NotificationEvent } from '../../src/shared/notificatio
 import { mentionedIds } from '../../src/shared/threads-mentions';
 import { threadLink } from '../../src/shared/threads';
 import { userChannel, type LiveHub } from '../http/live-hub';
+import type { JobQueue } from '../jobs/job-queue';
 import { recipients } from './recipients';
 import { notificationMail } from './notification-mail';
 import { emailAddressee, getPreferences, insertNotifications, mappingName, unreadCount } from './notifications.service';
 
 // After a comment is stored: notify the people it concerns (recipients.ts) in the app, live, and by
 // e-mail as their preferences say. An edited comment notifies only the people it newly mentions.
-// A failing e-mail is logged; it never undoes the comment.
+// The e-mail is a job (jobs/job-queue.ts): it goes out after the answer, and a failing one is logged;
+// it never undoes the comment.
 
 export interface NewComment {
   projectId: number;
@@ -30,7 +32,13 @@ export interface Audience {
   participants: readonly number[];
 }
 
-export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewComment, audience: Audience): Promise<void> {
+/** Where notifications go out: the live hub (the bell, at once) and the job queue (e-mail, after the answer). */
+export interface NotifyChannels {
+  live: LiveHub;
+  jobs: JobQueue;
+}
+
+export async function notifyComment(ctx: AppContext, { live, jobs }: NotifyChannels, c: NewComment, audience: Audience): Promise<void> {
   const edited = c.previousBody !== undefined;
   const before = new Set(edited ? mentionedIds(c.previousBody!) : []);
   const earlier = edited ? [] : audience.participants.filter((id) => id !== c.author.id);
@@ -54,6 +62,6 @@ export async function notifyComment(ctx: AppContext, live: LiveHub, c: NewCommen
       body: c.body,
       link,
     });
-    await ctx.mailer.send(mail).catch((err) => ctx.log.error({ err, userId: t.userId }, 'notification e-mail failed'));
+    jobs.enqueue({ kind: 'mail', mail, about: `notification e-mail to user ${t.userId}` });
   }
 }

@@ -13,6 +13,7 @@ import { normaliseMentions } from '../../src/shared/threads-mentions';
 import { notifyComment, type NewComment } from '../notifications/notify';
 import { draftBeads } from './draft-beads';
 import { mappingChannel, wantsEventStream, type LiveHub } from '../http/live-hub';
+import type { JobQueue } from '../jobs/job-queue';
 import { authorizeComment, authorizeThread } from './thread-access';
 import * as threads from './threads.service';
 
@@ -25,7 +26,7 @@ const bodyLimit: RequestHandler = (req, _res, next) => {
   next();
 };
 
-export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): void {
+export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs: JobQueue): void {
   const db = ctx.db;
 
   /** Mentions rewritten against the project's members (threads-mentions.ts); still within the limit. */
@@ -37,7 +38,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub): voi
 
   /** Notifies the people a stored comment concerns (notifications/notify.ts); the thread's side says who could. */
   const notify = async (c: NewComment) =>
-    notifyComment(ctx, live, c, {
+    notifyComment(ctx, { live, jobs }, c, {
       members: new Set((await threads.projectMembers(db, c.projectId)).keys()),
       participants: c.previousBody === undefined ? await threads.participants(db, c.threadId) : [],
     });

@@ -2,7 +2,7 @@ import { createApp, type BuiltApp } from '../../server/app';
 import { configFromEnv, type Config } from '../../server/config';
 import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/mail/mailer';
-import { startMailSink } from '../../server/mail/sink';
+import { startMailSink, type CaughtMessage } from '../../server/mail/sink';
 import type { AppContext } from '../../server/context';
 import { seedDemo } from '../../seeds/demo';
 import { createLocalAccessChanges } from '../../server/auth/access-changes';
@@ -16,7 +16,12 @@ export interface TestApp extends BuiltApp {
   ctx: AppContext;
   database: TestDatabase;
   /** Messages the SMTP sink caught, newest first. */
-  mail(): Promise<{ to: string; subject: string; text: string; html: string }[]>;
+  mail(): Promise<CaughtMessage[]>;
+  /**
+   * The next message the sink stores that `match` accepts. Call it before the request that sends the
+   * mail (mail goes out after the answer), then await it: the test waits for the sink's event.
+   */
+  nextMail(match: (message: CaughtMessage) => boolean): Promise<CaughtMessage>;
   stop(): Promise<void>;
 }
 
@@ -40,6 +45,15 @@ export async function createTestApp(overrides: Partial<Config> = {}, collabOptio
     async mail() {
       const rows = await database.db('dev_mail').orderBy('id', 'desc');
       return rows.map((r) => ({ to: r.to_addresses, subject: r.subject, text: r.text_body, html: r.html_body }));
+    },
+    nextMail(match) {
+      return new Promise((resolve) => {
+        const stop = sink.onMessage((message) => {
+          if (!match(message)) return;
+          stop();
+          resolve(message);
+        });
+      });
     },
     async stop() {
       await built.close();
