@@ -82,8 +82,10 @@ describe('threads on beads', () => {
 
     // The e-mail, from the SMTP sink: recipient, subject and the deep link.
     // Read as the site admin: only an admin may read the caught mail.
-    const mail = await session.mail();
-    const mention = mail.find((m) => String(m.to).includes('supervisor@example.org') && m.subject.includes('mentioned you'))!;
+    // Mail goes out after the answer (a job), so wait until the sink holds it rather than reading once.
+    const mentionMail = async () => (await session.mail()).find((m) => String(m.to).includes('supervisor@example.org') && m.subject.includes('mentioned you'));
+    await expect.poll(async () => (await mentionMail()) !== undefined, { timeout: 15_000 }).toBe(true);
+    const mention = (await mentionMail())!;
     expect(mention.subject).toBe(`Tomas <b onmouseover="window.__xss=2">Brenn</b> mentioned you on ${BEAD_NAME}`);
     const link = /Open the thread: (\S+)/.exec(mention.text)![1]!;
     expect(link).toBe(`${session.url}/mappings/${mappingId}?bead=${id}&thread=${threadId}`);
