@@ -15,7 +15,7 @@ import type { Duplex } from 'node:stream';
 import type { RequestHandler } from 'express';
 import { WebSocketServer } from 'ws';
 import type { AppContext } from '../context';
-import type { DraftAccess } from '../mappings/mappings.routes';
+import type { DraftAccess } from '../mappings/draft-access';
 import { loadEvaluationInputs, readStoredDraft } from './drafts.service';
 import { notFound } from '../http/errors';
 import { serveConnection } from './connection';

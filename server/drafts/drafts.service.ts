@@ -9,6 +9,10 @@ import type { StoredDraft } from './draft-storage';
 import type { EvaluationInputs, EvaluationResult } from './evaluate-draft';
 import { evaluateOnceInThread } from './evaluation-thread';
 
+// The snapshot writer lives with the mappings (a new mapping's first snapshot is written there, and
+// this module builds on mappings, not the other way round); re-exported for the storage seam.
+export { writeSnapshot } from '../mappings/draft-snapshots';
+
 // The drafts' queries. Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
 // (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).
 // The draft is the snapshot with every later update applied, in id order. Loading makes the live
@@ -81,21 +85,6 @@ function docOf(updates: Uint8Array[]): Y.Doc {
 async function atomCountOf(db: Db, mappingId: number): Promise<number> {
   const row = await db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where('p.id', mappingId).first(db.raw("JSON_LENGTH(m.model, '$.atoms') as n"));
   return Number(row?.n ?? 0);
-}
-
-/**
- * Stores `state` as the snapshot holding every update up to `lastUpdateId`, and drops those updates.
- * READ COMMITTED: the DELETE then locks only the rows it removes, not the gap after them, so a live
- * room's appends of newer updates (update-log.ts) never wait for a compaction.
- */
-export async function writeSnapshot(db: Db, mappingId: number, state: Uint8Array, lastUpdateId: number): Promise<void> {
-  await db.transaction(async (trx) => {
-    await trx('mapping_snapshots')
-      .insert({ mapping_id: mappingId, state: Buffer.from(state), last_update_id: lastUpdateId, updated_at: trx.fn.now() })
-      .onConflict('mapping_id')
-      .merge();
-    await trx('mapping_updates').where('mapping_id', mappingId).andWhere('id', '<=', lastUpdateId).delete();
-  }, { isolationLevel: 'read committed' });
 }
 
 /** Keeps the mapping row's bead count and "updated" time current for lists. */

@@ -1,6 +1,8 @@
-import type { BeadType, Evaluation, Mapping, Molecule, Resolution } from '../../src/shared/chem';
+import type { BeadType, Mapping, Molecule, Resolution } from '../../src/shared/chem';
 import { evaluateMapping } from '../chem/evaluate';
 import { isChemError } from '../chem/errors';
+import type { EvaluationResult } from '../mappings/draft-access';
+export type { EvaluationResult };
 
 // One mapping draft's evaluation with the core's refusals turned into data (a draft mid-edit may be
 // unevaluable). No database here: the evaluation thread loads this module.
@@ -17,11 +19,6 @@ export interface EvaluationInputs {
   library: BeadType[] | undefined;
 }
 
-export interface EvaluationResult {
-  evaluation: Evaluation | null;
-  error: { code: string; message: string } | null;
-  evaluatedAt: string;
-}
 
 export function evaluateDraft(inputs: EvaluationInputs, mapping: Mapping): EvaluationResult {
   const evaluatedAt = new Date().toISOString();

@@ -1,5 +1,11 @@
-import type { Mapping } from '../../src/shared/chem';
-import type { EvaluationResult } from '../drafts/evaluate-draft';
+import type { Evaluation, Mapping } from '../../src/shared/chem';
+
+/** One evaluation of a draft: the numbers, or the error that stopped them, and when. */
+export interface EvaluationResult {
+  evaluation: Evaluation | null;
+  error: { code: string; message: string } | null;
+  evaluatedAt: string;
+}
 
 /**
  * The live drafts as the REST side needs them (implemented by the collab server): the current state

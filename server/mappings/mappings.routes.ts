@@ -15,9 +15,6 @@ import type { DraftAccess } from './draft-access';
 
 const params = z.object({ id: idParam });
 
-// Kept for server/collab until the drafts module imports ./draft-access itself.
-export type { DraftAccess } from './draft-access';
-
 export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
   const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
     const summary = await findMapping(ctx.db, id);
