@@ -7,7 +7,7 @@ import { createMailer } from './mail/mailer';
 import { startMailSink, type MailSink } from './mail/sink';
 import { createApp } from './app';
 import type { AppContext } from './context';
-import { backfillModels } from './molecules/model-backfill';
+import { backfillModels } from './molecules/model-backfill.service';
 import { createLocalAccessChanges } from './auth/access-changes';
 
 // Starts Beadloom: database pool, mail (real SMTP or the local sink), the

@@ -1,6 +1,6 @@
 import type { AppContext } from '../context';
 import { hashPassword, verifyPassword } from './passwords';
-import { consumeToken, issueToken } from './tokens';
+import { consumeToken, issueToken } from './tokens.service';
 import { endSessions, findUserByEmail, findUserById, setPasswordHash, toSessionUser } from './accounts.service';
 import { resetMail } from '../mail/messages';
 import { AppError, badRequest } from '../http/errors';

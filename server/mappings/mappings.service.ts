@@ -4,7 +4,7 @@ import type { Mapping } from '../../src/shared/chem';
 import type { CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
 import { mappingToDoc } from '../../src/shared/mapping-doc';
 import { conflict, notFound } from '../http/errors';
-import { writeSnapshot } from './draft-snapshots';
+import { writeSnapshot } from './draft-snapshots.service';
 
 // Knex for `mappings`. The draft itself lives in mapping_updates / mapping_snapshots (drafts/drafts.service.ts).
 

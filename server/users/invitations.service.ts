@@ -1,6 +1,6 @@
 import type { AppContext } from '../context';
 import type { ProjectRole } from '../../src/shared/roles';
-import { issueToken } from '../auth/tokens';
+import { issueToken } from '../auth/tokens.service';
 import { passwordLink } from '../auth/auth.service';
 import { invitationMail } from '../mail/messages';
 import { findUserByEmail, type UserRow } from '../auth/accounts.service';

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { demoProjectId } from '../helpers/fixtures';
-import { backfillModels } from '../../server/molecules/model-backfill';
+import { backfillModels } from '../../server/molecules/model-backfill.service';
 import type { MoleculeSummary } from '../../src/shared/molecules';
 
 // Rows written before canonical models existed carry only name, SMILES and notes (migration 006);
