@@ -9,7 +9,7 @@ import { LiveMapping } from '../../features/editor/components/live-mapping';
 import { mappingQueryOptions } from '../../features/mappings/api/get-mapping';
 import { moleculeQueryOptions } from '../../features/molecules/api/get-molecule';
 import { useProject } from '../../features/projects/api/get-project';
-import { useEditorThreads } from '../../features/threads/hooks/use-editor-threads';
+import { useEditorThreads } from '../../features/threads/components/use-editor-threads';
 import { VersionThreads } from '../../features/threads/components/version-threads';
 import { MappingHistory } from '../../features/versions/components/mapping-history';
 import { ExportMenu } from '../../features/exports/components/export-menu';

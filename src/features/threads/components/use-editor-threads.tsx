@@ -2,8 +2,8 @@ import { useCallback, useMemo, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router';
 import { openThreadCounts } from '../../../shared/threads';
 import { useThreads } from '../api/get-threads';
-import { ThreadPanel } from '../components/thread-panel';
-import { useThreadEvents } from './use-thread-events';
+import { ThreadPanel } from './thread-panel';
+import { useThreadEvents } from '../hooks/use-thread-events';
 
 interface Options {
   mappingId: number;
