@@ -104,16 +104,21 @@ describe('bead colours in the editor and in the exported PNG', () => {
 });
 
 describe('the molecule page and list', () => {
-  it('draw aromatic rings and charges with the shared renderer', async () => {
+  // Adds a molecule to the first project through the API, as the signed-in page.
+  const addMolecule = async (name: string, smiles: string) => {
     const projectId = await page.evaluate(async () => (await (await fetch('/api/projects')).json())[0].id as number);
     const { token } = await (await page.request.get('/api/auth/csrf')).json();
-    // A disulfonated azo dye with two Na+ (the issue's example): two aromatic rings, four charges.
     const res = await page.request.post(`/api/projects/${projectId}/molecules`, {
-      data: { name: 'Azo dye sodium salt', smiles: 'Nc1ccc(cc1)N=Nc1ccc(cc1S(=O)(=O)[O-])S(=O)(=O)[O-].[Na+].[Na+]', allowDuplicate: true },
+      data: { name, smiles, allowDuplicate: true },
       headers: { 'x-csrf-token': token },
     });
     expect(res.ok(), await res.text()).toBe(true);
-    const { id } = await res.json();
+    return { projectId, id: (await res.json()).id as number };
+  };
+
+  it('draw aromatic rings and charges with the shared renderer', async () => {
+    // A disulfonated azo dye with two Na+ (the issue's example): two aromatic rings, four charges.
+    const { projectId, id } = await addMolecule('Azo dye sodium salt', 'Nc1ccc(cc1)N=Nc1ccc(cc1S(=O)(=O)[O-])S(=O)(=O)[O-].[Na+].[Na+]');
     await page.goto(`/molecules/${id}`);
     const drawing = page.locator('[data-molecule-drawing]').first();
     await drawing.waitFor();
@@ -128,14 +133,7 @@ describe('the molecule page and list', () => {
   });
 
   it('draw attachment points as attachment marks, not as a * label', async () => {
-    const projectId = await page.evaluate(async () => (await (await fetch('/api/projects')).json())[0].id as number);
-    const { token } = await (await page.request.get('/api/auth/csrf')).json();
-    const res = await page.request.post(`/api/projects/${projectId}/molecules`, {
-      data: { name: 'Polystyrene repeat unit', smiles: '*CC(*)c1ccccc1', allowDuplicate: true },
-      headers: { 'x-csrf-token': token },
-    });
-    expect(res.ok(), await res.text()).toBe(true);
-    const { id } = await res.json();
+    const { id } = await addMolecule('Polystyrene repeat unit', '*CC(*)c1ccccc1');
     await page.goto(`/molecules/${id}`);
     const drawing = page.locator('[data-molecule-drawing]').first();
     await drawing.waitFor();
