@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { startMariaDb } from './lib/mariadb';
 import { freePort } from './lib/free-port';
-import { launchBrowser } from '../tests/helpers/browser';
+import { launchBrowser, signedInPage } from '../tests/helpers/browser';
 import { firstMappingId } from '../tests/helpers/demo-ids';
 
 const OUT = 'docs/screenshots';
@@ -22,15 +22,12 @@ const { startTestServer } = await import('../tests/helpers/app-server');
 const server = await startTestServer({ CHEM_JOB_TIMEOUT_MS: '300000' });
 const browser = await launchBrowser();
 mkdirSync(OUT, { recursive: true });
+const pageErrors: string[] = [];
 
+// Signed in through the real sign-in page (the browser tests' helper), at the pictures' size.
 async function signedIn(): Promise<Page> {
-  const context = await browser.newContext({ baseURL: server.url, viewport: { width: 1280, height: 800 } });
-  const page = await context.newPage();
-  await page.goto('/sign-in');
-  await page.getByLabel('E-mail').fill('modeller@example.org');
-  await page.getByLabel('Password', { exact: true }).fill('beadloom-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { level: 1, name: 'Projects' }).waitFor();
+  const { page } = await signedInPage(browser, server.url, 'modeller@example.org', 'beadloom-demo', pageErrors);
+  await page.setViewportSize({ width: 1280, height: 800 });
   return page;
 }
 
@@ -114,6 +111,8 @@ for (const [name, take] of Object.entries(shots)) {
     await page.context().close();
   }
 }
+// Page errors do not stop a picture, but a picture of a page that threw is not to be trusted.
+for (const e of pageErrors) console.error(`page error: ${e}`);
 await browser.close();
 await server.stop();
 await mariadb.stop();
