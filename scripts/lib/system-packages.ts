@@ -48,3 +48,23 @@ export function ensureMariaDbServer(): { mariadbd: string; installDb: string; cl
 export function ensureChromium(): string {
   return ensureDebianPackage('chromium', ['chromium']);
 }
+
+/** GROMACS's `gmx` (grompp, trjconv, traj): the reference-trajectory and export tests compare with it. */
+export function ensureGromacs(): string {
+  return ensureDebianPackage('gromacs', ['gmx', 'gmx_d']);
+}
+
+/** LAMMPS's `lmp`: the export tests run the exported data file and input script. */
+export function ensureLammps(): string {
+  return ensureDebianPackage('lammps', ['lmp', 'lmp_serial', 'lmp_stable']);
+}
+
+/** Redis for the scale-out tests and `npm run start:cluster`. */
+export function ensureRedisServer(): string {
+  return ensureDebianPackage('redis-server', ['redis-server']);
+}
+
+/** nginx, the load balancer in front of two app instances in the scale-out tests and `start:cluster`. */
+export function ensureNginx(): string {
+  return ensureDebianPackage('nginx', ['nginx']);
+}
