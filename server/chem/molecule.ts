@@ -8,12 +8,21 @@ import { typeAtoms } from './crippen';
 import { hillFormula } from './formula';
 import { componentsOf } from './graph';
 import { molecularWeight } from './masses';
+import { canonicalSmiles } from './canonical-smiles';
 import { buildModel } from './model';
 import { layout2d } from './ocl-build';
 import { parseInput, type MoleculeInput, type OclMolecule } from './parse';
 import { loadRdkit } from './rdkit';
 
-export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
+export interface ParseOptions {
+  /**
+   * The canonical SMILES, computed elsewhere from the same input (canonical-smiles.ts) while this
+   * parse lays out and types the atoms; when it fails, it is computed here after all.
+   */
+  canonicalSmiles?: Promise<string>;
+}
+
+export async function parseMolecule(input: MoleculeInput, options: ParseOptions = {}): Promise<Molecule> {
   const rd = await loadRdkit();
   const { mol, source, declared3D, warnings, attachments } = parseInput(input);
   const threeD = source === 'molfile' && (declared3D || hasDepth(mol));
@@ -43,13 +52,14 @@ export async function parseMolecule(input: MoleculeInput): Promise<Molecule> {
     warnings.push(`Wildman–Crippen has no atom type for ${el}; its logP contribution is taken as 0.`);
   }
   const attachmentPoints = atoms.filter((a) => a.attachment).map((a) => a.index);
+  const smiles = options.canonicalSmiles ? await options.canonicalSmiles.catch(() => canonicalSmiles(mol)) : canonicalSmiles(mol);
   return {
     atoms,
     bonds,
     formula: hillFormula(atoms),
     molecularWeight: molecularWeightValue,
     netCharge: atoms.reduce((q, a) => q + a.charge, 0),
-    canonicalSmiles: mol.toIsomericSmiles().replace(/\[Rf\]/g, '*'),
+    canonicalSmiles: smiles,
     logP: typing.logP,
     atomLogP: typing.atomLogP,
     atomTypes: typing.atomTypes,

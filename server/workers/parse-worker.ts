@@ -5,6 +5,7 @@
 import { parentPort } from 'node:worker_threads';
 import { isChemError, parseMolecule, evaluateMapping, loadRdkit } from '../chem/index';
 import type { ParseJob, ParseReply } from './parse-thread';
+import { canonicalSmilesInThread, worthSplitting } from './canonical-smiles-thread';
 
 // Libraries are loaded and warmed before the thread reports ready (the module finishes loading at
 // the `await` below; ts-worker.ts): the job time limit measures a job's own work, not the ~1–3 s
@@ -19,7 +20,9 @@ parentPort!.on('message', async (job: ParseJob & { id: number }) => {
   let reply: ParseReply & { id: number };
   try {
     await warmed;
-    const molecule = await parseMolecule(job.input);
+    const canonicalSmiles = worthSplitting(job.input) ? canonicalSmilesInThread(job.input) : undefined;
+    canonicalSmiles?.catch(() => undefined); // a refused input rejects it too; the parse reports why
+    const molecule = await parseMolecule(job.input, { canonicalSmiles });
     if (job.evaluate) {
       await loadRdkit();
       reply = { id: job.id, molecule, evaluation: evaluateMapping(molecule, job.evaluate.mapping, job.evaluate.options) };
