@@ -28,7 +28,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'api',
-          include: ['tests/api/**/*.test.ts', 'tests/collab/**/*.test.ts', 'tests/fuzz/**/*.test.ts'],
+          include: ['tests/api/**/*.test.ts', 'tests/collab/**/*.test.ts', 'tests/cluster/**/*.test.ts', 'tests/fuzz/**/*.test.ts'],
           environment: 'node',
           testTimeout: 30_000,
           hookTimeout: 60_000,

@@ -1,7 +1,8 @@
-// `npm start`: a private MariaDB under .data/, migrations, the demo seed (empty
-// database only), the client build, and the app on one port (4820 unless PORT).
-// Ctrl-C stops the app and then MariaDB. A second run reuses .data/.
-import { startLocalDatabase, sessionSecret } from './lib/local-db';
+// `npm start`: a private MariaDB under .data/ (or the one DATABASE_URL names: then none is started),
+// migrations, the demo seed (empty database only), the client build, and the app on one port (4820
+// unless PORT). REDIS_URL makes this instance one of several (docs/scaling.md); without it nothing
+// changes. Ctrl-C stops the app and then MariaDB. A second run reuses .data/.
+import { prepareExternalDatabase, startLocalDatabase, sessionSecret } from './lib/local-db';
 import { bin, run } from './lib/run';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../seeds/demo-data';
 import { configFromEnv } from '../server/config';
@@ -10,7 +11,9 @@ import { devMailMounted } from '../server/mail/dev-mail.routes';
 
 const production = process.env.NODE_ENV === 'production';
 const wantSeed = !production || process.env.BEADLOOM_SEED === '1';
-const { mariadb, seeded } = await startLocalDatabase(wantSeed);
+const external = process.env.DATABASE_URL;
+const { mariadb, seeded } = external ? { mariadb: null, seeded: await prepareExternalDatabase(external, wantSeed) } : await startLocalDatabase(wantSeed);
+const databaseUrl = external ?? mariadb!.url;
 
 let server: RunningServer | undefined;
 let stopping = false;
@@ -19,7 +22,7 @@ async function stopAll(code: number) {
   stopping = true;
   console.log('\n[beadloom] stopping…');
   await server?.stop().catch(() => undefined);
-  await mariadb.stop();
+  await mariadb?.stop();
   console.log('[beadloom] stopped.');
   process.exit(code);
 }
@@ -33,13 +36,15 @@ try {
 
   const config = configFromEnv({
     ...process.env,
-    DATABASE_URL: mariadb.url,
+    DATABASE_URL: databaseUrl,
     SESSION_SECRET: sessionSecret(),
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
   });
   server = await startServer(config, process.env.HOST ?? '127.0.0.1');
 
   console.log(`\nBeadloom is running at ${config.appUrl}${seeded ? ' (demo data seeded)' : ''}`);
+  if (external) console.log('[beadloom] Database: DATABASE_URL (no private MariaDB started).');
+  if (config.redisUrl) console.log('[beadloom] REDIS_URL set: drafts, live events and access changes cross instances; heavy jobs wait for `npm run worker`.');
   if (devMailMounted(server.ctx)) console.log(`Caught e-mail: ${config.appUrl}/dev/mail (signed in as a site admin)`);
   else if (server.ctx.mailSinkInUse) console.log('[beadloom] No SMTP_URL: e-mail is caught by the local sink and not delivered; /dev/mail is off in production (BEADLOOM_DEV_MAIL=1 turns it on for admins).');
   if (wantSeed) {

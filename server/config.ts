@@ -2,7 +2,17 @@
 // set these; nothing else in the server reads process.env.
 
 export interface Config {
+  /** DATABASE_URL: the MariaDB every instance shares (npm start starts a private one only when it is unset). */
   databaseUrl: string;
+  /**
+   * REDIS_URL: with it, several instances work as one (docs/scaling.md): draft updates, presence,
+   * live events, access changes and cache invalidations cross through Redis pub/sub, sign-in limits
+   * and evaluation leases live in Redis, heavy jobs go to BullMQ for `npm run worker`. Without it
+   * (the default) everything stays in this process.
+   */
+  redisUrl: string | null;
+  /** BEADLOOM_DATA_DIR: uploaded files; every instance and worker must see the same folder. */
+  dataDir: string;
   port: number;
   /** Public origin used in e-mailed links, e.g. http://localhost:4820. */
   appUrl: string;
@@ -42,6 +52,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
   if (!sessionSecret || sessionSecret.length < 32) throw new Error('SESSION_SECRET must be at least 32 characters.');
   return {
     databaseUrl,
+    redisUrl: env.REDIS_URL || null,
+    dataDir: env.BEADLOOM_DATA_DIR || '.data/files',
     port,
     appUrl: (env.APP_URL ?? `http://localhost:${port}`).replace(/\/$/, ''),
     sessionSecret,

@@ -3,6 +3,8 @@ import type { Config } from './config';
 import type { Db } from './db/knex';
 import type { Mailer } from './mail/mailer';
 import type { AccessChanges } from './auth/access-changes';
+import type { InvalidationBus } from './cluster/invalidation-bus';
+import type { RedisLink } from './cluster/redis-link';
 
 /** What every route module and service is given; built once in server/app.ts. */
 export interface AppContext {
@@ -14,4 +16,8 @@ export interface AppContext {
   mailSinkInUse: boolean;
   /** Role, membership, account, lock and sign-out changes, for open sockets to follow. */
   accessChanges: AccessChanges;
+  /** Cache invalidations that reach every instance (in-process without REDIS_URL). */
+  invalidation: InvalidationBus;
+  /** The shared Redis (REDIS_URL), null for a single process: relays, leases, rate limits and queues use it. */
+  redis: RedisLink | null;
 }

@@ -8,7 +8,9 @@ import { startMailSink, type MailSink } from './mail/sink';
 import { createApp } from './app';
 import type { AppContext } from './context';
 import { backfillModels } from './molecules/model-backfill.service';
-import { createLocalAccessChanges } from './auth/access-changes';
+import { createLocalAccessChanges, type AccessChanges } from './auth/access-changes';
+import { createRedisAccessChanges } from './auth/redis-access-changes';
+import { connectCluster } from './cluster/cluster-links';
 
 // Starts Beadloom: database pool, mail (real SMTP or the local sink), the
 // Express app, and the HTTP server. `npm start` and `npm run dev` call this
@@ -28,8 +30,12 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
   let sink: MailSink | null = null;
   if (!config.smtpUrl) sink = await startMailSink(db);
   const mailer = createMailer(config.smtpUrl ?? (sink as MailSink).url, config.mailFrom);
-  const accessChanges = createLocalAccessChanges((err) => log.error({ err }, 'access change listener failed'));
-  const ctx: AppContext = { config, db, log, mailer, mailSinkInUse: sink !== null, accessChanges };
+  const cluster = await connectCluster(config.redisUrl, log);
+  const onAccessError = (err: unknown) => log.error({ err }, 'access change listener failed');
+  let accessChanges: AccessChanges & { close?(): void };
+  if (cluster.redis) accessChanges = createRedisAccessChanges(cluster.redis, onAccessError);
+  else accessChanges = createLocalAccessChanges(onAccessError);
+  const ctx: AppContext = { config, db, log, mailer, mailSinkInUse: sink !== null, accessChanges, invalidation: cluster.invalidation, redis: cluster.redis };
   const built = createApp(ctx);
   const server = createServer(built.app);
   server.on('upgrade', built.collab.handleUpgrade);
@@ -51,6 +57,8 @@ export async function startServer(config: Config, host = '127.0.0.1'): Promise<R
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await built.close();
+      accessChanges.close?.();
+      await cluster.close();
       mailer.close();
       await sink?.close();
       await db.destroy();

@@ -27,4 +27,15 @@ export async function startLocalDatabase(seed: boolean): Promise<{ mariadb: Runn
   }
 }
 
+/** An external MariaDB (DATABASE_URL): migrated, and seeded with the demo when empty and asked to. */
+export async function prepareExternalDatabase(url: string, seed: boolean): Promise<boolean> {
+  const db = createDb(url);
+  try {
+    await migrateLatest(db);
+    return seed && (await seedDemo(db, 12));
+  } finally {
+    await db.destroy();
+  }
+}
+
 export const sessionSecret = () => process.env.SESSION_SECRET ?? persistentSecret('.data/session-secret', 48);

@@ -7,9 +7,9 @@
  * Publish after the change is committed: a listener re-reads MariaDB and must see it. Listeners run
  * synchronously and must not throw (they start their own async work).
  *
- * In-process for now. It is an interface because the Redis relay of PRODUCT.md will carry the same
- * events to every app server: a relaying implementation publishes locally and to the channel, and
- * feeds what arrives from the channel to its local listeners. The events are plain JSON for that.
+ * In-process here; with REDIS_URL, redis-access-changes.ts carries the same events to every app
+ * server: it publishes locally and to the channel, and feeds what arrives from the channel to its
+ * local listeners. The events are plain JSON for that.
  */
 export type AccessChange =
   /** A member's role changed, or they were removed from the project. */
@@ -19,7 +19,12 @@ export type AccessChange =
   /** A mapping was locked for production or unlocked. */
   | { kind: 'lock'; mappingId: number }
   /** One session signed out. */
-  | { kind: 'signed_out'; sessionId: string };
+  | { kind: 'signed_out'; sessionId: string }
+  /**
+   * This instance may have missed changes (its Redis subscription was interrupted, redis-access-changes.ts):
+   * every open connection and room decides again. Never sent to other instances.
+   */
+  | { kind: 'resync' };
 
 export type AccessListener = (change: AccessChange) => void;
 

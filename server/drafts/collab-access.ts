@@ -53,17 +53,19 @@ function concerns(change: AccessChange, { peer, projectId }: OpenConnection): bo
       return peer.sessionId === change.sessionId;
     case 'lock':
       return false; // the room re-reads its lock; connections follow it per message
+    case 'resync':
+      return true;
   }
 }
 
 /** Routes access changes to the open connections and rooms they concern; returns the unsubscribe function. */
 export function followAccessChanges(changes: AccessChanges, connections: () => Iterable<OpenConnection>, rooms: () => Promise<DraftRoom[]>, onError: (err: unknown) => void): () => void {
   return changes.subscribe((change) => {
-    if (change.kind === 'lock') {
+    if (change.kind === 'lock' || change.kind === 'resync') {
       rooms().then((open) => {
-        for (const room of open) if (room.id === change.mappingId) room.serial(() => room.recheckLock()).catch(onError);
+        for (const room of open) if (change.kind === 'resync' || room.id === change.mappingId) room.serial(() => room.recheckLock()).catch(onError);
       }, onError);
-      return;
+      if (change.kind === 'lock') return;
     }
     for (const c of connections()) if (concerns(change, c)) c.peer.reconsider(change);
   });

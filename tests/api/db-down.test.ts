@@ -11,6 +11,7 @@ import { createLogger } from '../../server/logger';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppContext } from '../../server/context';
 import { createLocalAccessChanges } from '../../server/auth/access-changes';
+import { createInProcessInvalidationBus } from '../../server/cluster/invalidation-bus';
 import { seedDemo } from '../../seeds/demo';
 import { ApiClient, signedIn } from '../helpers/client';
 import { demoProjectId, snapshot } from '../helpers/fixtures';
@@ -37,7 +38,7 @@ beforeAll(async () => {
   await migrateLatest(db);
   await seedDemo(db, 12);
   const config = { ...configFromEnv({ DATABASE_URL: mariadb.url, SESSION_SECRET: 'db-down-secret-that-is-long-enough-012345' }), clientDir: null, logLevel: 'silent' };
-  const ctx: AppContext = { config, db, log: createLogger('silent'), mailer: createMailer('smtp://127.0.0.1:9', config.mailFrom), mailSinkInUse: false, accessChanges: createLocalAccessChanges() };
+  const ctx: AppContext = { config, db, log: createLogger('silent'), mailer: createMailer('smtp://127.0.0.1:9', config.mailFrom), mailSinkInUse: false, accessChanges: createLocalAccessChanges(), invalidation: createInProcessInvalidationBus(), redis: null };
   built = createApp(ctx);
   supervisor = await signedIn(built.app, 'supervisor@example.org');
   before = await snapshot(db);

@@ -6,6 +6,7 @@ import { startMailSink, type CaughtMessage } from '../../server/mail/sink';
 import type { AppContext } from '../../server/context';
 import { seedDemo } from '../../seeds/demo';
 import { createLocalAccessChanges } from '../../server/auth/access-changes';
+import { createInProcessInvalidationBus } from '../../server/cluster/invalidation-bus';
 import { createTestDatabase, type TestDatabase } from './db';
 import type { CollabOptions } from '../../server/drafts/room-options';
 
@@ -36,7 +37,7 @@ export async function createTestApp(overrides: Partial<Config> = {}, collabOptio
     ...overrides,
   };
   const mailer = createMailer(sink.url, config.mailFrom);
-  const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true, accessChanges: createLocalAccessChanges() };
+  const ctx: AppContext = { config, db: database.db, log: createLogger('silent'), mailer, mailSinkInUse: true, accessChanges: createLocalAccessChanges(), invalidation: createInProcessInvalidationBus(), redis: null };
   const built = createApp(ctx, collabOptions);
   return {
     ...built,
