@@ -34,6 +34,7 @@ import { notificationRoutes } from './notifications/notifications.routes';
 import { versionRoutes } from './versions/versions.routes';
 import { lockRoutes } from './lock/lock.routes';
 import { auditRoutes } from './audit/audit.routes';
+import { bondedTermRoutes } from './bonded/bonded-terms.routes';
 import { exportRoutes, LARGE_JSON_PATHS } from './exports/exports.routes';
 
 export interface BuiltApp {
@@ -113,6 +114,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   lockRoutes(routes, ctx, collab.rooms);
   auditRoutes(routes, ctx);
   exportRoutes(routes, ctx, collab);
+  bondedTermRoutes(routes, ctx, collab);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);

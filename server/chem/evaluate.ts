@@ -17,6 +17,7 @@
 import type { BeadEvaluation, EvaluateOptions, Evaluation, Mapping, MappingBead, Molecule, PartitionBasis, PartitionSource } from '../../src/shared/chem';
 import { beadCentre, checkCoordinates } from './centres';
 import { runChecks } from './checks';
+import { bondedChecks } from './bonded-checks';
 import { DEMO_LIBRARY } from './demo-library';
 import { ChemError } from './errors';
 import { fragmentLogP } from './fragments';
@@ -106,6 +107,7 @@ export function evaluateMapping(molecule: Molecule, mapping: Mapping, options: E
     heavyAtoms: beads.map((b) => b.heavyAtoms),
     resolution,
   });
+  checks.push(...bondedChecks(mapping, topology));
   return { temperature, resolution, partitionBasis, beads, topology, checks, warnings };
 }
 

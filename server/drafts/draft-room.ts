@@ -189,10 +189,19 @@ export class DraftRoom {
    * frame instead of a sync update, so its editor can make it one undoable step.
    */
   replaceDraft(mapping: Mapping, userId: number, around?: (current: Mapping, replace: () => Promise<void>) => Promise<void>, undoFor?: number): Promise<void> {
+    return this.editDraft((next) => mappingToDoc(next, mapping), userId, around, undoFor);
+  }
+
+  /**
+   * A server-side edit of the draft (a restore, bonded terms set through the API): `edit` runs on a
+   * copy, and the difference is stored, relayed and applied like any accepted update, on the room's
+   * queue. `around` runs inside the queue with the draft as it is then and decides whether to apply.
+   */
+  editDraft(edit: (next: Y.Doc, current: Mapping) => void, userId: number, around?: (current: Mapping, replace: () => Promise<void>) => Promise<void>, undoFor?: number): Promise<void> {
     return this.serial(async () => {
       const replace = async () => {
         const next = copyOf(this.doc);
-        mappingToDoc(next, mapping);
+        edit(next, this.draft());
         const update = Y.encodeStateAsUpdate(next, Y.encodeStateVector(this.doc));
         next.destroy();
         const prevSeq = this.compactor.lastUpdateId;

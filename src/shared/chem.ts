@@ -8,6 +8,8 @@
  * index order, then each heavy atom's hydrogens, grouped by parent in parent order, unlabelled ones first.
  */
 
+import type { BondedParams } from './bonded-terms';
+
 export type CentreRule = 'mass' | 'geometry' | 'geometry-heavy';
 export type Resolution = '4:1' | '3:1' | '2:1';
 /** Size class of a bead: the heavy atoms a bead of that class stands for (common practice, no source). */
@@ -116,6 +118,10 @@ export interface Mapping {
   beads: MappingBead[];
   /** Basis of type suggestions for beads without a measured value; 'fragment' when absent. */
   partitionBasis?: PartitionBasis;
+  /** Bonded terms by term key (src/shared/bonded-terms.ts); absent when none is set. */
+  bonded?: Record<string, BondedParams>;
+  /** Non-bonded exclusion count (GROMACS nrexcl); absent when not set. */
+  exclusions?: number;
 }
 
 export interface BeadType {

@@ -1,7 +1,8 @@
 import { z } from 'zod';
 import type { CentreRule, Mapping, MeasuredPartition, PartitionBasis } from './chem';
 import { measuredSchema, partitionBasisSchema } from './mapping-schema';
-import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES } from './mapping-doc';
+import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES, TERM_KEY_MAX } from './mapping-doc';
+import { bondedParamsProblem, exclusionsSchema, parseTermKey, type BondedParams } from './bonded-terms';
 import { versionRef, type VersionRef } from './versions';
 
 // Export formats of a mapping (docs/exports.md) and the JSON export's shape, which is also what
@@ -44,12 +45,15 @@ export interface ContentBead {
 
 /**
  * What a version's SHA-256 covers: the molecule (canonical SMILES), the beads and, when set, the
- * mapping's partition basis; nothing else.
+ * mapping's partition basis, its bonded terms (keys in string order) and its exclusion count; nothing
+ * else. A mapping without bonded terms hashes as it did before they existed.
  */
 export interface VersionContent {
   canonicalSmiles: string;
   beads: ContentBead[];
   partitionBasis?: PartitionBasis;
+  bonded?: Record<string, BondedParams>;
+  exclusions?: number;
 }
 
 /** The content of a mapping, keys in the documented order (the hash depends on that order). */
@@ -65,7 +69,26 @@ export function versionContent(canonicalSmiles: string, mapping: Mapping): Versi
       ...(b.measured ? { measured: { kind: b.measured.kind, value: b.measured.value, source: b.measured.source } } : {}),
     })),
     ...(mapping.partitionBasis ? { partitionBasis: mapping.partitionBasis } : {}),
+    ...(mapping.bonded && Object.keys(mapping.bonded).length > 0 ? { bonded: sortedTerms(mapping.bonded) } : {}),
+    ...(mapping.exclusions !== undefined ? { exclusions: mapping.exclusions } : {}),
   };
+}
+
+/** Terms in key order, each params object in a fixed key order, so the hash does not depend on edit order. */
+function sortedTerms(bonded: Record<string, BondedParams>): Record<string, BondedParams> {
+  const out: Record<string, BondedParams> = {};
+  for (const key of Object.keys(bonded).sort()) {
+    const p = bonded[key];
+    out[key] = {
+      function: p.function,
+      value: p.value,
+      k: p.k,
+      ...(p.multiplicity !== undefined ? { multiplicity: p.multiplicity } : {}),
+      ...(p.constraint !== undefined ? { constraint: p.constraint } : {}),
+      ...(p.omit !== undefined ? { omit: p.omit } : {}),
+    };
+  }
+  return out;
 }
 
 /** The exact text whose UTF-8 bytes are hashed: compact JSON of the content (JSON.stringify). */
@@ -75,8 +98,19 @@ export function contentToMapping(content: VersionContent): Mapping {
   return {
     beads: content.beads.map((b) => ({ id: b.id, name: b.name, ...(b.type ? { type: b.type } : {}), centre: b.centre, atoms: b.atoms.map(([n, weight]) => ({ index: n - 1, weight })), ...(b.measured ? { measured: b.measured } : {}) })),
     ...(content.partitionBasis ? { partitionBasis: content.partitionBasis } : {}),
+    ...(content.bonded ? { bonded: content.bonded } : {}),
+    ...(content.exclusions !== undefined ? { exclusions: content.exclusions } : {}),
   };
 }
+
+/** Stored bonded terms as a file carries them: valid term keys and params for each key's kind. */
+export const contentBonded = z.record(z.string().max(TERM_KEY_MAX), z.any()).superRefine((terms, ctx) => {
+  for (const [key, p] of Object.entries(terms)) {
+    const parsed = parseTermKey(key);
+    const why = parsed ? bondedParamsProblem(parsed.kind, p) : 'not a term key ("kind:id,id…")';
+    if (why) ctx.addIssue({ code: 'custom', path: [key], message: why });
+  }
+}) as unknown as z.ZodType<Record<string, BondedParams>>;
 
 const contentBead = z.strictObject({
   id: z.string().min(1).max(BEAD_ID_MAX),
@@ -121,7 +155,7 @@ export const importBody = z.looseObject({
   mapping: z.looseObject({ name: z.string().trim().min(1).max(200), resolution: z.enum(['4:1', '3:1', '2:1']) }),
   /** The exported molecule's atoms and bonds: the beads are placed by matching this structure. */
   molecule: z.looseObject({ atoms: z.array(exportAtom).max(100_000), bonds: z.array(exportBond).max(200_000).optional() }).optional(),
-  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000), partitionBasis: partitionBasisSchema.optional() }),
+  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000), partitionBasis: partitionBasisSchema.optional(), bonded: contentBonded.optional(), exclusions: exclusionsSchema.optional() }),
   sha256: z.string().regex(/^[0-9a-f]{64}$/, 'sha256 is 64 lower-case hex digits.'),
   /** Name for the new mapping; defaults to the exported mapping's name. */
   name: z.string().trim().min(1).max(200).optional(),

@@ -12,15 +12,17 @@
  * relays, so nothing unchecked (a struct the document already had, sent again with other content)
  * travels on.
  *
- * Refused: anything at the top level but `beads`, `atoms` and `settings`; list content anywhere; a bead
+ * Refused: anything at the top level but `beads`, `atoms`, `settings` and `bonded`; list content anywhere; a bead
  * that is not a Y.Map of `name` (1–40 characters), `type` (string ≤ 40 or null), `centre` (a centre
  * rule) and optionally `measured` (null or a measured value within MEASURED_LIMITS with a source of
  * 1–300 characters); an atom key that is not a decimal index below the molecule's atom count; an atom
  * value that is not a non-empty plain object of bead id → weight in (0, 1]; a setting other than
- * `partitionBasis` ('fragment' or 'atoms').
+ * `partitionBasis` ('fragment' or 'atoms') and `exclusions` (a whole number 0–6); a bonded entry whose
+ * key is not a term key or whose value is not valid params for its kind (bonded-terms.ts).
  */
 import * as Y from 'yjs';
-import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, atomsOf, beadsOf, measuredProblem, settingsOf } from './mapping-doc';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, atomsOf, beadsOf, bondedOf, measuredProblem, settingsOf } from './mapping-doc';
+import { TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
 import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkIntegratedStructs, checkUpdateStructs } from './mapping-update-check';
 
 export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range' | 'too_large' | 'missing_dependencies';
@@ -66,8 +68,22 @@ export function checkSetting(key: string, value: unknown): DocProblem | null {
   const path = `${SETTINGS}.${key}`;
   if (!(SETTING_KEYS as readonly string[]).includes(key)) return problem('unknown_key', path, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
   if (value === undefined) return null; // deleted
+  if (key === 'exclusions') {
+    const { min, max } = TERM_LIMITS.exclusions;
+    return typeof value === 'number' && Number.isInteger(value) && value >= min && value <= max ? null : problem('wrong_type', path, `The exclusion count is a whole number from ${min} to ${max}.`);
+  }
   if (!PARTITION_BASES.includes(value as never)) return problem('wrong_type', path, `The partition basis is ${PARTITION_BASES.join(' or ')}.`);
   return null;
+}
+
+export function checkBonded(key: string, value: unknown): DocProblem | null {
+  const path = `${BONDED}.${key.slice(0, 80)}`;
+  const parsed = key.length <= TERM_KEY_MAX ? parseTermKey(key) : null;
+  if (!parsed || parsed.ids.some((id) => id.length > BEAD_ID_MAX)) return problem('unknown_key', path, 'A bonded term key is "kind:id,id…" with the kind\'s number of bead ids.');
+  if (value === undefined) return null; // deleted
+  if (value instanceof Y.AbstractType || value instanceof Uint8Array) return problem('wrong_type', path, 'A bonded term is a plain object.');
+  const why = bondedParamsProblem(parsed.kind, value);
+  return why ? problem('wrong_type', path, why) : null;
 }
 
 export function checkAtom(key: string, value: unknown, atomCount: number): DocProblem | null {
@@ -91,7 +107,7 @@ export function checkAtom(key: string, value: unknown, atomCount: number): DocPr
 
 function checkTopLevel(doc: Y.Doc): DocProblem | null {
   for (const [name, type] of doc.share) {
-    if (name !== BEADS && name !== ATOMS && name !== SETTINGS) return problem('unknown_key', name, `The draft has only "${BEADS}", "${ATOMS}" and "${SETTINGS}" at the top; "${name}" is not allowed.`);
+    if (name !== BEADS && name !== ATOMS && name !== SETTINGS && name !== BONDED) return problem('unknown_key', name, `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}" and "${BONDED}" at the top; "${name}" is not allowed.`);
     if ((type as unknown as { _start: unknown })._start !== null) return problem('wrong_type', name, `"${name}" is a map, not a list.`);
   }
   return null;
@@ -112,6 +128,12 @@ export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
   if (doc.share.has(SETTINGS)) {
     for (const [key, value] of settingsOf(doc).entries()) {
       const p = checkSetting(key, value);
+      if (p) return p;
+    }
+  }
+  if (doc.share.has(BONDED)) {
+    for (const [key, value] of bondedOf(doc).entries()) {
+      const p = checkBonded(key, value);
       if (p) return p;
     }
   }
@@ -148,6 +170,7 @@ export function applyCheckedUpdate(doc: Y.Doc, update: Uint8Array, atomCount: nu
   const beads = beadsOf(doc) as Y.Map<unknown>;
   const atoms = atomsOf(doc) as Y.Map<unknown>;
   const settings = settingsOf(doc);
+  const bonded = bondedOf(doc) as Y.Map<unknown>;
   const transactions: Y.Transaction[] = [];
   let structural: DocProblem | null = null;
   const added: Uint8Array[] = [];
@@ -182,6 +205,7 @@ export function applyCheckedUpdate(doc: Y.Doc, update: Uint8Array, atomCount: nu
           type === (beads as unknown) ? checkBead(key, beads.get(key))
           : type === (atoms as unknown) ? checkAtom(key, atoms.get(key), atomCount)
           : type === (settings as unknown) ? checkSetting(key, settings.get(key))
+          : type === (bonded as unknown) ? checkBonded(key, bonded.get(key))
           : nestedBead(type, beads);
         if (p) return refused(p);
       }

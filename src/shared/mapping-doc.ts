@@ -6,7 +6,9 @@
  *   doc.getMap('beads')    bead id → Y.Map { name: string, type: string | null, centre: CentreRule,
  *                          measured?: { kind: 'logP' | 'deltaG', value: number, source: string } | null }
  *   doc.getMap('atoms')    atom index as a decimal string ("0", "17") → plain object { [beadId]: weight }
- *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms' }
+ *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms', exclusions?: 0…6 }
+ *   doc.getMap('bonded')   optional; term key ("angle:b1,b2,b3") → plain object BondedParams
+ *                          (src/shared/bonded-terms.ts: function, value, k, multiplicity, constraint, omit)
  *
  * `measured` is a modeller's measured or literature partition value for the bead with its source; it
  * wins over both estimates in suggestions and exports (limits: MEASURED_LIMITS, a source of 1 to
@@ -30,18 +32,26 @@
  * Weights lie in (0, 1]; 1 means "wholly in this bead". Sums other than 1 are allowed in the document
  * (someone is mid-edit) and reported by the chemistry core's checks, not refused.
  *
+ * A bonded term is one plain object replaced whole, like an atom entry: a value and its force constant
+ * never come from two different people. Its key names bead ids, so a rename keeps it; a term whose beads
+ * no longer form it stays stored (unlisted) and comes back when they do.
+ *
  * Every helper below runs in one `doc.transact` so an edit is one undo step and one network update.
  * Pass an `origin` (e.g. the editor's UndoManager tracked origin) when you need one.
  */
 import * as Y from 'yjs';
 import type { CentreRule, Mapping, MappingBead, MeasuredPartition, PartitionBasis } from './chem';
 import { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES, measuredProblem } from './partition-input';
+import { TERM_LIMITS, type BondedParams } from './bonded-terms';
 
 export const BEADS = 'beads';
 export const ATOMS = 'atoms';
 export const SETTINGS = 'settings';
+export const BONDED = 'bonded';
+/** A term key names a kind and up to four bead ids. */
+export const TERM_KEY_MAX = 12 + 4 * 65;
 export const BEAD_KEYS = ['name', 'type', 'centre', 'measured'] as const;
-export const SETTING_KEYS = ['partitionBasis'] as const;
+export const SETTING_KEYS = ['partitionBasis', 'exclusions'] as const;
 export { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES, measuredProblem };
 export const CENTRE_RULES: readonly CentreRule[] = ['mass', 'geometry', 'geometry-heavy'];
 export const BEAD_NAME_MAX = 40;
@@ -59,6 +69,36 @@ export interface BeadProps {
 export const beadsOf = (doc: Y.Doc) => doc.getMap<Y.Map<unknown>>(BEADS);
 export const atomsOf = (doc: Y.Doc) => doc.getMap<AtomEntry>(ATOMS);
 export const settingsOf = (doc: Y.Doc) => doc.getMap<unknown>(SETTINGS);
+export const bondedOf = (doc: Y.Doc) => doc.getMap<BondedParams>(BONDED);
+
+/** The exclusion count as the draft holds it (undefined when never set). */
+export function readExclusions(doc: Y.Doc): number | undefined {
+  if (!doc.share.has(SETTINGS)) return undefined;
+  const v = settingsOf(doc).get('exclusions');
+  return typeof v === 'number' && Number.isInteger(v) && v >= TERM_LIMITS.exclusions.min && v <= TERM_LIMITS.exclusions.max ? v : undefined;
+}
+
+/** The stored bonded terms by key (empty when none). */
+export function readBonded(doc: Y.Doc): Record<string, BondedParams> {
+  const out: Record<string, BondedParams> = {};
+  if (doc.share.has(BONDED)) bondedOf(doc).forEach((p, key) => void (out[key] = { ...p }));
+  return out;
+}
+
+/**
+ * Sets bonded terms (key → params; null deletes the entry) and, when given, the exclusion count
+ * (null clears it), as one transaction. Callers check the params first (bondedParamsProblem).
+ */
+export function setBonded(doc: Y.Doc, terms: Readonly<Record<string, BondedParams | null>>, exclusions?: number | null, origin?: unknown): void {
+  doc.transact(() => {
+    for (const [key, p] of Object.entries(terms)) {
+      if (p === null) bondedOf(doc).delete(key);
+      else bondedOf(doc).set(key, { ...p });
+    }
+    if (exclusions === null) settingsOf(doc).delete('exclusions');
+    else if (exclusions !== undefined) settingsOf(doc).set('exclusions', exclusions);
+  }, origin);
+}
 
 /** The mapping's partition basis as the draft holds it (undefined when never set). */
 export function readPartitionBasis(doc: Y.Doc): PartitionBasis | undefined {
@@ -102,7 +142,14 @@ export function docToMapping(doc: Y.Doc): Mapping {
   const first = (b: MappingBead) => b.atoms[0]?.index ?? Number.MAX_SAFE_INTEGER;
   beads.sort((a, b) => first(a) - first(b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   const partitionBasis = readPartitionBasis(doc);
-  return partitionBasis ? { beads, partitionBasis } : { beads };
+  const bonded = readBonded(doc);
+  const exclusions = readExclusions(doc);
+  return {
+    beads,
+    ...(partitionBasis ? { partitionBasis } : {}),
+    ...(Object.keys(bonded).length > 0 ? { bonded } : {}),
+    ...(exclusions !== undefined ? { exclusions } : {}),
+  };
 }
 
 /** Writes a whole mapping into an empty (or to-be-replaced) draft, e.g. to seed or copy a mapping. */
@@ -112,6 +159,12 @@ export function mappingToDoc(doc: Y.Doc, mapping: Mapping, origin?: unknown): vo
     atomsOf(doc).clear();
     if (mapping.partitionBasis) settingsOf(doc).set('partitionBasis', mapping.partitionBasis);
     else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('partitionBasis');
+    if (mapping.exclusions !== undefined) settingsOf(doc).set('exclusions', mapping.exclusions);
+    else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('exclusions');
+    if (doc.share.has(BONDED) || mapping.bonded) {
+      bondedOf(doc).clear();
+      for (const [key, p] of Object.entries(mapping.bonded ?? {})) bondedOf(doc).set(key, { ...p });
+    }
     const atoms = new Map<number, AtomEntry>();
     for (const b of mapping.beads) {
       putBead(doc, b.id, { name: b.name, type: b.type ?? null, centre: b.centre, measured: b.measured ?? null });

@@ -48,7 +48,13 @@ export const mappingBeadSchema = z.strictObject({
 });
 
 export const mappingSchema = z
-  .strictObject({ beads: z.array(mappingBeadSchema).max(BEADS_MAX, `A mapping has at most ${BEADS_MAX} beads.`), partitionBasis: partitionBasisSchema.optional() })
+  .strictObject({
+    beads: z.array(mappingBeadSchema).max(BEADS_MAX, `A mapping has at most ${BEADS_MAX} beads.`),
+    partitionBasis: partitionBasisSchema.optional(),
+    // Bonded terms are not evaluated by the chemistry core beyond the missing-value check; a caller may send them.
+    bonded: z.record(z.string(), z.any()).optional(),
+    exclusions: z.number().int().min(0).max(6).optional(),
+  })
   .refine((m) => new Set(m.beads.map((b) => b.id)).size === m.beads.length, { message: 'Bead ids must be unique.', path: ['beads'] });
 
 const point = z.tuple([z.number().finite(), z.number().finite(), z.number().finite()], 'A coordinate is [x, y, z] in Å.');

@@ -9,16 +9,19 @@
  * all of it to what a draft can hold:
  *   - content is a Y.Map (a bead), a plain value, or a deleted range; no list, text, binary, embed,
  *     format or sub-document content;
- *   - a plain value is null, text of at most the longest bead field, an atom entry (≤ 16 bead
- *     ids of ≤ BEAD_ID_MAX characters → finite numbers) or a valid measured value;
- *   - a top-level name is "beads", "atoms" or "settings"; a key directly in "beads" is a bead id, in
- *     "atoms" an atom index below the atom count, in "settings" a setting; a key in a nested map is a
- *     bead field; list positions (no key) are refused.
+ *   - a plain value is null, text of at most the longest bead field, a whole number 0–6 (the
+ *     exclusion count), an atom entry (≤ 16 bead ids of ≤ BEAD_ID_MAX characters → finite numbers),
+ *     a valid measured value or valid bonded-term params (of any kind; the key's kind is checked
+ *     once the value lands);
+ *   - a top-level name is "beads", "atoms", "settings" or "bonded"; a key directly in "beads" is a bead
+ *     id, in "atoms" an atom index below the atom count, in "settings" a setting, in "bonded" a term
+ *     key; a key in a nested map is a bead field; list positions (no key) are refused.
  * A struct whose parent comes from its left neighbour (an overwrite) carries no key: its value is
  * still bounded as above, and where it lands is checked once it is applied.
  */
 import * as Y from 'yjs';
-import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, SETTING_KEYS, SETTINGS, measuredProblem } from './mapping-doc';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, measuredProblem } from './mapping-doc';
+import { TERM_KINDS, TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
 import type { DocProblem } from './mapping-doc-check';
 
 const TEXT_MAX = Math.max(BEAD_NAME_MAX, BEAD_TYPE_MAX);
@@ -30,8 +33,10 @@ const refuse = (code: DocProblem['code'], path: string, message: string): DocPro
 function plainValue(value: unknown): boolean {
   if (value === null) return true;
   if (typeof value === 'string') return value.length <= TEXT_MAX;
+  if (typeof value === 'number') return Number.isInteger(value) && value >= TERM_LIMITS.exclusions.min && value <= TERM_LIMITS.exclusions.max;
   if (typeof value !== 'object' || Array.isArray(value) || value instanceof Uint8Array) return false;
   if (measuredProblem(value) === null) return true;
+  if (TERM_KINDS.some((kind) => bondedParamsProblem(kind, value) === null)) return true;
   const entries = Object.entries(value);
   return entries.length <= MAX_BEADS_PER_ATOM && entries.every(([k, w]) => k.length > 0 && k.length <= BEAD_ID_MAX && typeof w === 'number' && Number.isFinite(w));
 }
@@ -52,14 +57,15 @@ function checkKey(item: Y.Item, atomCount: number): DocProblem | null {
   if (raw === null) return null;
   const parent = typeof raw === 'string' ? raw : raw instanceof Y.AbstractType && raw._item === null ? Y.findRootTypeKey(raw) : null;
   const parentSub = item.parentSub;
-  if (parent !== null && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS) {
-    return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}" and "${SETTINGS}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
+  if (parent !== null && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS && parent !== BONDED) {
+    return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}" and "${BONDED}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
   }
   const where = parent ?? 'beads.…';
   if (parentSub === null) return refuse('wrong_type', where, 'The draft holds no list content.');
   const key = parentSub.slice(0, 80);
   if (parent === BEADS) return parentSub.length <= BEAD_ID_MAX ? null : refuse('wrong_type', `${BEADS}.${key}…`, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
   if (parent === ATOMS) return atomKeyProblem(parentSub, atomCount);
+  if (parent === BONDED) return parentSub.length <= TERM_KEY_MAX && parseTermKey(parentSub) ? null : refuse('unknown_key', `${BONDED}.${key}`, 'A bonded term key is "kind:id,id…" with the kind\'s number of bead ids.');
   if (parent === SETTINGS) {
     return (SETTING_KEYS as readonly string[]).includes(parentSub) ? null : refuse('unknown_key', `${SETTINGS}.${key}`, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
   }

@@ -200,6 +200,14 @@ export const ROUTE_CASES: RouteCase[] = [
     }),
     expect: byRule(200, 'library:edit'),
   },
+  // The bonded-terms table of a mapping's draft (docs/exports.md).
+  { method: 'get', path: '/api/mappings/:id/bonded-terms', request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/bonded-terms` }), expect: byRule(200, 'mapping:read') },
+  {
+    method: 'put',
+    path: '/api/mappings/:id/bonded-terms',
+    request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/bonded-terms`, body: { terms: [], exclusions: 1 } }),
+    expect: byRule(200, 'mapping:edit'),
+  },
   // The caught mail holds reset links: a site admin only; anyone else gets the unknown-route 404.
   { method: 'get', path: '/dev/mail', request: url('/dev/mail'), expect: { ...all(404), admin: 200 } },
   { method: 'get', path: '/dev/mail.json', request: url('/dev/mail.json'), expect: { ...all(404), admin: 200 } },

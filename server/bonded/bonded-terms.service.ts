@@ -1,0 +1,89 @@
+import type { Db } from '../db/knex';
+import type { DraftAccess } from '../mappings/draft-access';
+import type { Rooms } from '../drafts/rooms';
+import type { BondedParams, BondedTerm, BondedTermsPutBody, BondedTermsView } from '../../src/shared/bonded-terms';
+import { BEADS_PER_TERM, bondedRows, termKey, topologyTermIds } from '../../src/shared/bonded-terms';
+import type { Mapping, Topology } from '../../src/shared/chem';
+import { readBonded, setBonded } from '../../src/shared/mapping-doc';
+import { conflict, notFound, unprocessable } from '../http/errors';
+import { assertUnlocked } from '../mappings/mappings.service';
+
+// The bonded-terms table of a mapping's draft. The terms live in the draft document (mapping-doc.ts),
+// so reading is reading the draft and writing is a server-side edit of the live room, stored and
+// relayed like a person's edit and saved with every version (docs/exports.md, "Bonded terms").
+
+/** The topology the table lists: the draft's latest evaluation. */
+function topologyOf(result: { evaluation: { topology: Topology } | null; error: { message: string } | null }): Topology {
+  if (!result.evaluation) throw conflict('not_evaluated', `The draft has no evaluation yet, so no CG topology to list${result.error ? `: ${result.error.message}` : ''}.`);
+  return result.evaluation.topology;
+}
+
+export function bondedView(draft: Mapping, topology: Topology): BondedTermsView {
+  const names = new Map(draft.beads.map((b) => [b.id, b.name]));
+  return { terms: bondedRows(topology, draft.bonded ?? {}, (id) => names.get(id) ?? id), exclusions: draft.exclusions ?? null };
+}
+
+export async function readBondedTerms(drafts: DraftAccess, mappingId: number): Promise<BondedTermsView> {
+  const { draft, result } = await drafts.read(mappingId);
+  return bondedView(draft, topologyOf(result));
+}
+
+/** Turns rows named by bead names into stored entries; every problem is named (422 with details). */
+export function entriesOf(draft: Mapping, topology: Topology, terms: readonly BondedTerm[]): Record<string, BondedParams> {
+  const byName = new Map<string, string[]>();
+  for (const b of draft.beads) byName.set(b.name, [...(byName.get(b.name) ?? []), b.id]);
+  const known = new Set(topologyTermIds(topology).map(({ kind, ids }) => termKey(kind, ids)));
+  const problems: { term: number; message: string }[] = [];
+  const entries: Record<string, BondedParams> = {};
+  terms.forEach((t, i) => {
+    const ids: string[] = [];
+    for (const name of t.beads) {
+      const found = byName.get(name) ?? [];
+      if (found.length === 0) problems.push({ term: i, message: `No bead is named "${name}".` });
+      else if (found.length > 1) problems.push({ term: i, message: `${found.length} beads are named "${name}"; rename them apart first.` });
+      else ids.push(found[0]);
+    }
+    if (ids.length !== BEADS_PER_TERM[t.kind]) return;
+    const key = termKey(t.kind, ids);
+    if (t.kind === 'improper') {
+      if (new Set(ids).size !== 4) problems.push({ term: i, message: 'An improper dihedral joins four different beads.' });
+    } else if (!known.has(key)) problems.push({ term: i, message: `${t.beads.join('–')} is not a ${t.kind} of the draft's topology.` });
+    if (key in entries) problems.push({ term: i, message: `${t.kind} ${t.beads.join('–')} is listed twice.` });
+    const { kind: _kind, beads: _beads, ...params } = t;
+    entries[key] = params;
+  });
+  if (problems.length > 0) throw unprocessable('bonded_terms_invalid', problems.map((p) => `term ${p.term + 1}: ${p.message}`).join(' '), { problems });
+  return entries;
+}
+
+/** PUT: the table becomes exactly these terms (and exclusion count, when given). */
+export async function writeBondedTerms(db: Db, rooms: Rooms, drafts: DraftAccess, mappingId: number, body: BondedTermsPutBody, userId: number): Promise<BondedTermsView> {
+  if ('fromAnalysis' in body) return fillFromAnalysis(db, mappingId, body.fromAnalysis);
+  await assertUnlocked(db, mappingId);
+  const room = await rooms.open(mappingId);
+  if (!room) throw notFound('That mapping');
+  try {
+    const { result } = await drafts.read(mappingId);
+    const topology = topologyOf(result);
+    await room.editDraft((next, current) => {
+      const entries: Record<string, BondedParams | null> = entriesOf(current, topology, body.terms);
+      for (const key of Object.keys(readBonded(next))) if (!(key in entries)) entries[key] = null;
+      setBonded(next, entries, body.exclusions);
+    }, userId);
+  } finally {
+    await room.releaseIfIdle();
+  }
+  return readBondedTerms(drafts, mappingId);
+}
+
+/**
+ * Fitted values from a reference analysis. The analyses (reference trajectories) are another
+ * module's table; until it exists every id is unknown, and an unknown id is a 404, never a made-up fill.
+ */
+async function fillFromAnalysis(db: Db, mappingId: number, analysisId: number): Promise<BondedTermsView> {
+  if (!(await db.schema.hasTable('analyses'))) throw notFound('That analysis');
+  const row = await db('analyses').where({ id: analysisId }).first('mapping_id');
+  if (!row) throw notFound('That analysis');
+  if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
+  throw unprocessable('analysis_fill_unavailable', 'Filling bonded terms from an analysis is not available yet in this build.', { analysisId });
+}
