@@ -17,6 +17,8 @@ import * as m033 from './20261204_033_mapping_audit';
 import * as m041 from './20261205_041_audit_import';
 import * as m051 from './20261205_051_bead_type_heavy_atoms';
 import * as m052 from './20261205_052_bead_type_library_note';
+import * as m061 from './20261206_061_references';
+import * as m062 from './20261206_062_analyses';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -39,6 +41,8 @@ const migrations: Record<string, Knex.Migration> = {
   '20261205_041_audit_import': m041,
   '20261205_051_bead_type_heavy_atoms': m051,
   '20261205_052_bead_type_library_note': m052,
+  '20261206_061_references': m061,
+  '20261206_062_analyses': m062,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

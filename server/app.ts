@@ -36,6 +36,8 @@ import { lockRoutes } from './lock/lock.routes';
 import { auditRoutes } from './audit/audit.routes';
 import { bondedTermRoutes } from './bonded/bonded-terms.routes';
 import { exportRoutes, LARGE_JSON_PATHS } from './exports/exports.routes';
+import { createInProcessTasks, type BackgroundTasks } from './jobs/background-task';
+import { referenceRoutes } from './references/references.routes';
 
 export interface BuiltApp {
   app: Express;
@@ -50,10 +52,13 @@ export interface BuiltApp {
   conformers: ConformerQueue;
   /** Work started by a request and run after its answer (notification e-mail). */
   jobs: JobQueue;
+  /** Long jobs everyone watches: reference matching and analyses (jobs/background-task.ts). */
+  tasks: BackgroundTasks;
   close(): Promise<void>;
 }
 
-const UPLOAD_PATHS = /\/upload$/;
+// Multipart bodies: molecule uploads and reference uploads.
+const UPLOAD_PATHS = /(\/upload|^\/api\/molecules\/[^/]+\/references)$/;
 
 export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions> = {}): BuiltApp {
   const app = express();
@@ -115,6 +120,8 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   auditRoutes(routes, ctx);
   exportRoutes(routes, ctx, collab);
   bondedTermRoutes(routes, ctx, collab);
+  const tasks = createInProcessTasks(ctx.log);
+  referenceRoutes(routes, ctx, tasks);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);
@@ -131,8 +138,10 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
     collab,
     conformers,
     jobs,
+    tasks,
     async close() {
       await jobs.idle();
+      await tasks.idle();
       await conformers.close();
       await collab.close();
       await store.close();

@@ -42,6 +42,10 @@ export interface Config {
   /** COLLAB_MAX_FRAME_BYTES: the largest collaboration frame (a Yjs update) a client may send; 1 MiB. */
   collabMaxFrameBytes: number;
   logLevel: string;
+  /** REFERENCE_MAX_BYTES: the largest reference file (structure or trajectory) accepted; 2 GiB. */
+  referenceMaxBytes: number;
+  /** PROJECT_QUOTA_BYTES: all reference files of one project together; 20 GiB. */
+  projectQuotaBytes: number;
 }
 
 export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
@@ -75,6 +79,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: trustProxyFrom(env.TRUST_PROXY),
     chemJobTimeoutMs: positive(env.CHEM_JOB_TIMEOUT_MS, 10_000),
     logLevel: env.LOG_LEVEL ?? 'info',
+    referenceMaxBytes: positive(env.REFERENCE_MAX_BYTES, 2 * 1024 ** 3),
+    projectQuotaBytes: positive(env.PROJECT_QUOTA_BYTES, 20 * 1024 ** 3),
   };
 }
 

@@ -29,6 +29,11 @@ export const PROJECT_ACTIONS = [
   'thread:read',
   'comment:create',
   'comment:moderate',
+  'reference:read',
+  'reference:create',
+  'reference:delete',
+  'analysis:start',
+  'analysis:manage',
 ] as const;
 export type ProjectAction = (typeof PROJECT_ACTIONS)[number];
 
@@ -62,6 +67,13 @@ export const PROJECT_RULES: Readonly<Record<ProjectAction, readonly ProjectRole[
   'thread:read': EVERYONE,
   'comment:create': EVERYONE,
   'comment:moderate': SUPERVISORS,
+  // References and analyses: everyone in the project sees them; modellers and supervisors upload and
+  // start them; the starter may cancel or remove their own analysis, a supervisor anyone's.
+  'reference:read': EVERYONE,
+  'reference:create': EDITORS,
+  'reference:delete': EDITORS,
+  'analysis:start': EDITORS,
+  'analysis:manage': SUPERVISORS,
 };
 
 /**

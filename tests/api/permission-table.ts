@@ -3,6 +3,7 @@ import { can, canSee, canSite, type ProjectAction, type ProjectStanding, type Si
 import { createAccount, createMolecule, demoMappingId, demoMoleculeId, demoProjectId, userId } from '../helpers/fixtures';
 import { createThreadFixture, firstBeadId, sharedThread } from './threads-fixtures';
 import { importBodyFor, lockedMapping, versionedMapping } from './versions-fixtures';
+import { insertReference } from '../../server/references/references.service';
 
 // The route × role table: for every route of the app, what each kind of caller
 // gets. The permission test fails when the app has a route that is not here.
@@ -277,7 +278,27 @@ export const ROUTE_CASES: RouteCase[] = [
     },
     expect: byRule(201, 'mapping:create'),
   },
+  // References (issue 15). The upload sends no file here, so a permitted caller gets 400.
+  { method: 'post', path: '/api/molecules/:id/references', request: async (env) => ({ url: `/api/molecules/${(await shared(env)).moleculeId}/references`, body: {} }), expect: byRule(400, 'reference:create') },
+  { method: 'get', path: '/api/molecules/:id/references', request: async (env) => ({ url: `/api/molecules/${(await shared(env)).moleculeId}/references` }), expect: byRule(200, 'reference:read') },
+  { method: 'get', path: '/api/references/:id', request: async (env) => ({ url: `/api/references/${await referenceFixture(env, 'shared')}` }), expect: byRule(200, 'reference:read') },
+  { method: 'delete', path: '/api/references/:id', request: async (env, c) => ({ url: `/api/references/${await referenceFixture(env, unique(c))}` }), expect: byRule(204, 'reference:delete') },
 ];
+
+/** A reference row of the shared molecule (no files; enough for reading and deleting). */
+const references = new Map<string, Promise<number>>();
+function referenceFixture(env: CaseEnv, key: string): Promise<number> {
+  const k = `${key}`;
+  if (!references.has(k) || key !== 'shared') {
+    references.set(
+      k,
+      shared(env).then(({ moleculeId }) =>
+        insertReference(env.db, { moleculeId, projectId: env.projectId, name: `Reference ${key}`, structureName: 'box.gro', structureFormat: 'gro', trajectoryName: null, trajectoryFormat: null, selection: null, bytes: 0, createdBy: null }),
+      ),
+    );
+  }
+  return references.get(k)!;
+}
 
 /** One versioned mapping shared by the read-only version rows (made on first use). */
 const versioned = new WeakMap<Db, Promise<{ moleculeId: number; mappingId: number }>>();

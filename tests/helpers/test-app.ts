@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { createApp, type BuiltApp } from '../../server/app';
 import { configFromEnv, type Config } from '../../server/config';
 import { createLogger } from '../../server/logger';
@@ -30,9 +33,11 @@ export async function createTestApp(overrides: Partial<Config> = {}, collabOptio
   const database = await createTestDatabase();
   await seedDemo(database.db, 12);
   const sink = await startMailSink(database.db);
+  const dataDir = mkdtempSync(join(tmpdir(), 'beadloom-data-'));
   const config: Config = {
     ...configFromEnv({ DATABASE_URL: database.url, SESSION_SECRET: 'test-secret-that-is-long-enough-0123456789', PORT: '4820' }),
     clientDir: null,
+    dataDir,
     logLevel: 'silent',
     ...overrides,
   };
@@ -61,6 +66,7 @@ export async function createTestApp(overrides: Partial<Config> = {}, collabOptio
       mailer.close();
       await sink.close();
       await database.drop();
+      rmSync(dataDir, { recursive: true, force: true });
     },
   };
 }

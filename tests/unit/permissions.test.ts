@@ -39,6 +39,11 @@ const EXPECTED: Record<ProjectAction, string> = {
   'thread:read': 'SMV',
   'comment:create': 'SMV', // everyone comments
   'comment:moderate': 'V', // removing others' comments manages the project (not named in PRODUCT.md)
+  'reference:read': 'SMV', // issue 15: everyone in the project sees references and analyses
+  'reference:create': 'MV', // uploading a reference is a modeller's work
+  'reference:delete': 'MV',
+  'analysis:start': 'MV', // issue 15: modellers and supervisors start analyses; a student may not (403)
+  'analysis:manage': 'V', // cancelling or removing someone else's analysis manages the project
 };
 
 describe('the shared permission table', () => {

@@ -1,0 +1,132 @@
+/**
+ * Coordinates of a range of frames, read with molstar's readers (XTC, TRR, DCD, GRO, XYZ; PDB lines
+ * through its tokenizer, columns per the wwPDB format). Only the range's bytes are read from disk, so
+ * memory follows the range, not the file. Coordinates come back interleaved, in Å; boxes as nine
+ * numbers in Å (box.ts), or null when the frame has none.
+ *
+ * molstar's TRR and DCD readers view `data.buffer` from byte 0, so each range is read into a fresh
+ * buffer of its own. Its DCD reader reads the unit cell's second value from a wrong offset; the box
+ * lengths A, B, C (cell values 0, 2, 5) are right and are all that is used here.
+ */
+import { open } from 'node:fs/promises';
+import { parseXtc } from 'molstar/lib/mol-io/reader/xtc/parser.js';
+import { parseTrr } from 'molstar/lib/mol-io/reader/trr/parser.js';
+import { parseDcd } from 'molstar/lib/mol-io/reader/dcd/parser.js';
+import { parseGRO } from 'molstar/lib/mol-io/reader/gro/parser.js';
+import { parseXyz } from 'molstar/lib/mol-io/reader/xyz/parser.js';
+import { parsePDB } from 'molstar/lib/mol-io/reader/pdb/parser.js';
+import { FrameError, type FrameIndex } from './frame-index';
+
+export interface Frame {
+  xyz: Float32Array;
+  box: Float64Array | null;
+}
+
+async function readBytes(path: string, at: number, length: number, prefix?: Uint8Array): Promise<Uint8Array> {
+  const out = new Uint8Array((prefix?.length ?? 0) + length);
+  const fh = await open(path, 'r');
+  try {
+    if (prefix) out.set(prefix, 0);
+    await fh.read(out, prefix?.length ?? 0, length, at);
+  } finally {
+    await fh.close();
+  }
+  return out;
+}
+
+function interleave(count: number, x: ArrayLike<number>, y: ArrayLike<number>, z: ArrayLike<number>, scale: number): Float32Array {
+  const out = new Float32Array(3 * count);
+  for (let i = 0; i < count; i++) {
+    out[3 * i] = x[i] * scale;
+    out[3 * i + 1] = y[i] * scale;
+    out[3 * i + 2] = z[i] * scale;
+  }
+  return out;
+}
+
+const rectangular = (a: number, b: number, c: number): Float64Array | null => (a > 0 && b > 0 && c > 0 ? Float64Array.from([a, 0, 0, 0, b, 0, 0, 0, c]) : null);
+
+/** Frames from (0-based) up to but not including `to`. */
+export async function readFrames(path: string, index: FrameIndex, from: number, to: number): Promise<Frame[]> {
+  const start = index.offsets[from];
+  const length = index.offsets[to] - start;
+  const fail = (message: string): never => {
+    throw new FrameError(`${message} (in frames ${from + 1}–${to}).`, from + 1);
+  };
+  switch (index.format) {
+    case 'xtc': {
+      const r = await parseXtc(await readBytes(path, start, length)).run();
+      if (r.isError) return fail(`The XTC file could not be read: ${r.message}`);
+      return r.result.frames.map((f, i) => ({ xyz: interleave(f.count, f.x, f.y, f.z, 1), box: Float64Array.from(r.result.boxes[i]) }));
+    }
+    case 'trr': {
+      const r = await parseTrr(await readBytes(path, start, length)).run();
+      if (r.isError) return fail(`The TRR file could not be read: ${r.message}`);
+      return r.result.frames.map((f, i) => ({ xyz: interleave(f.count, f.x, f.y, f.z, 1), box: r.result.boxes[i] ? Float64Array.from(r.result.boxes[i]) : null }));
+    }
+    case 'dcd': {
+      const header = await readBytes(path, 0, index.headerBytes);
+      // The header's frame count (NSET) must say how many frames this range holds.
+      new DataView(header.buffer).setInt32(8, to - from, true);
+      const r = await parseDcd(await readBytes(path, start, length, header)).run();
+      if (r.isError) return fail(`The DCD file could not be read: ${String(r.message)}`);
+      return r.result.frames.map((f) => ({ xyz: interleave(f.elementCount, f.x, f.y, f.z, 1), box: f.cell ? rectangular(f.cell[0], f.cell[2], f.cell[5]) : null }));
+    }
+    case 'gro': {
+      const text = Buffer.from(await readBytes(path, start, length)).toString('latin1');
+      const r = await parseGRO(text).run();
+      if (r.isError) return fail(`The GRO file could not be read: ${r.message}`);
+      return r.result.structures.map((s: GroStructure) => ({
+        xyz: interleave(s.atoms.count, col(s.atoms.x, s.atoms.count), col(s.atoms.y, s.atoms.count), col(s.atoms.z, s.atoms.count), 10),
+        box: rectangular(10 * s.header.box[0], 10 * s.header.box[1], 10 * s.header.box[2]),
+      }));
+    }
+    case 'xyz': {
+      const text = Buffer.from(await readBytes(path, start, length)).toString('latin1');
+      const r = await parseXyz(text).run();
+      if (r.isError) return fail(`The XYZ file could not be read: ${r.message}`);
+      return r.result.molecules.map((m) => ({ xyz: interleave(m.count, col(m.x, m.count), col(m.y, m.count), col(m.z, m.count), 1), box: null }));
+    }
+    case 'pdb': {
+      const text = Buffer.from(await readBytes(path, start, length)).toString('latin1');
+      return pdbFrames(text);
+    }
+  }
+}
+
+interface NumberColumn {
+  value(row: number): number;
+}
+interface GroStructure {
+  header: { box: number[] };
+  atoms: { count: number; x: NumberColumn; y: NumberColumn; z: NumberColumn };
+}
+
+function col(c: NumberColumn, n: number): Float64Array {
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = c.value(i);
+  return out;
+}
+
+/** Models of PDB text: ATOM/HETATM coordinates (columns 31–54) and CRYST1 (a, b, c; rectangular). */
+export async function pdbFrames(text: string): Promise<Frame[]> {
+  const r = await parsePDB(text).run();
+  if (r.isError) throw new FrameError(`The PDB file could not be read: ${r.message}`, 1);
+  const { lines } = r.result;
+  const frames: Frame[] = [];
+  let xyz: number[] = [];
+  let box: Float64Array | null = null;
+  const flush = () => {
+    if (xyz.length) frames.push({ xyz: Float32Array.from(xyz), box });
+    xyz = [];
+  };
+  for (let i = 0; i < lines.count; i++) {
+    const line = text.slice(lines.indices[2 * i], lines.indices[2 * i + 1]);
+    const rec = line.slice(0, 6);
+    if (rec === 'ATOM  ' || rec === 'HETATM') xyz.push(Number(line.slice(30, 38)), Number(line.slice(38, 46)), Number(line.slice(46, 54)));
+    else if (rec === 'CRYST1') box = rectangular(Number(line.slice(6, 15)), Number(line.slice(15, 24)), Number(line.slice(24, 33)));
+    else if (rec === 'ENDMDL' || rec.trim() === 'END') flush();
+  }
+  flush();
+  return frames;
+}

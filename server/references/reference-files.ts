@@ -1,0 +1,23 @@
+import { mkdir, rename, rm } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+
+// Where a reference's and an analysis's files live under the data folder (config.dataDir):
+//   references/<id>/structure.<ext>, trajectory.<ext>, copies.bin, frames.json
+//   analyses/<id>/centres.f32 (frames × copies × beads × 3, float32, nm)
+//   uploads/  multer's temporary files until a reference row takes them
+
+// Absolute, so worker threads and later worker processes find the same files.
+export const uploadDir = (dataDir: string) => join(resolve(dataDir), 'uploads');
+export const referenceDir = (dataDir: string, id: number) => join(resolve(dataDir), 'references', String(id));
+export const analysisDir = (dataDir: string, id: number) => join(resolve(dataDir), 'analyses', String(id));
+
+export async function adoptUpload(tmpPath: string, dir: string, name: string): Promise<string> {
+  await mkdir(dir, { recursive: true });
+  const to = join(dir, name);
+  await rename(tmpPath, to);
+  return to;
+}
+
+export async function removeDir(dir: string): Promise<void> {
+  await rm(dir, { recursive: true, force: true });
+}
