@@ -22,6 +22,8 @@ import { devMailMounted, devMailRoutes } from './mail/dev-mail.routes';
 import { uploadRoutes } from './molecules/uploads.routes';
 import { ConformerQueue } from './molecules/conformer-queue';
 import { mappingRoutes } from './mappings/mappings.routes';
+import { mappingStarts } from './proposals/proposals.service';
+import { proposalRoutes } from './proposals/proposals.routes';
 import { beadTypeRoutes } from './bead-types/bead-types.routes';
 import { createCollab, type Collab } from './drafts/collab-server';
 import type { CollabOptions } from './drafts/room-options';
@@ -108,7 +110,8 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   projectRoutes(routes, ctx);
   uploadRoutes(routes, ctx, conformers);
   moleculeRoutes(routes, ctx, conformers);
-  mappingRoutes(routes, ctx, collab);
+  mappingRoutes(routes, ctx, collab, mappingStarts(ctx.db, collab));
+  proposalRoutes(routes, ctx, collab);
   beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
   chemRoutes(routes, ctx);
   // Threads and notifications share one live hub (server-sent events).

@@ -12,10 +12,12 @@ import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
 import { assertUnlocked, createMapping, findMapping, isMappingOf, listMappings, updateMapping } from './mappings.service';
 import type { DraftAccess } from './draft-access';
+import type { MappingStarts } from './mapping-starts';
+import type { TransferReport } from '../../src/shared/proposals';
 
 const params = z.object({ id: idParam });
 
-export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess): void {
+export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess, starts: MappingStarts): void {
   const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
     const summary = await findMapping(ctx.db, id);
     const { draft, result } = await drafts.read(id);
@@ -31,13 +33,20 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
   r.post('/api/molecules/:id/mappings', typed({ params, body: createMappingBody }, async ({ params, body }, req, res) => {
     const moleculeId = params.id;
     await authorizeMolecule(ctx.db, req, moleculeId, 'mapping:create');
+    const start = body.start ?? (body.copyOf !== undefined ? { copyOf: body.copyOf } : 'empty');
     let draft: Mapping | null = null;
-    if (body.copyOf !== undefined) {
-      if (!(await isMappingOf(ctx.db, body.copyOf, moleculeId))) throw unprocessable('copy_source_invalid', `Mapping ${body.copyOf} is not a mapping of this molecule.`, { copyOf: body.copyOf });
-      draft = (await drafts.read(body.copyOf)).draft;
+    let transfer: TransferReport | undefined;
+    if (start === 'proposal') draft = await starts.proposal(moleculeId, body.resolution);
+    else if (typeof start === 'object' && 'copyOf' in start) {
+      if (!(await isMappingOf(ctx.db, start.copyOf, moleculeId))) throw unprocessable('copy_source_invalid', `Mapping ${start.copyOf} is not a mapping of this molecule.`, { copyOf: start.copyOf });
+      draft = (await drafts.read(start.copyOf)).draft;
+    } else if (typeof start === 'object') {
+      const result = await starts.transfer(moleculeId, start, body.resolution);
+      draft = result.draft;
+      transfer = result.report;
     }
     const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);
-    res.status(201).json(await detail(id, true));
+    res.status(201).json({ ...(await detail(id, true)), ...(transfer ? { transfer } : {}) });
   }));
 
   r.get('/api/mappings/:id', typed({ params }, async ({ params }, req, res) => {

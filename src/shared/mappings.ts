@@ -11,13 +11,34 @@ export const resolution = z.enum(RESOLUTIONS, 'Choose a resolution of 4:1, 3:1 o
 const name = z.string().trim().min(1, 'Enter a mapping name.').max(NAME_MAX, `A name has at most ${NAME_MAX} characters.`);
 const description = z.string().trim().max(5000, 'A description has at most 5000 characters.');
 
-export const createMappingBody = z.strictObject({
-  name,
-  resolution,
-  description: description.optional(),
-  /** Start as a copy of this mapping's current draft (same molecule). */
-  copyOf: z.number().int().positive().optional(),
-});
+const mappingId = z.number('A mapping id is a number.').int('A mapping id is a whole number.').positive('A mapping id is positive.');
+
+/**
+ * How a new mapping's draft starts: empty; the best automatic proposal; a copy of another mapping of
+ * the same molecule; or a transfer from a mapping (its draft, or one of its versions) of a molecule of
+ * the same project (docs/chemistry.md, "Mapping proposals").
+ */
+export const mappingStart = z.union(
+  [
+    z.literal('empty'),
+    z.literal('proposal'),
+    z.strictObject({ copyOf: mappingId }),
+    z.strictObject({ transferFrom: mappingId, version: z.number().int().positive('A version number is positive.').optional() }),
+  ],
+  "Start with 'empty', 'proposal', { copyOf } or { transferFrom, version? }.",
+);
+export type MappingStart = z.infer<typeof mappingStart>;
+
+export const createMappingBody = z
+  .strictObject({
+    name,
+    resolution,
+    description: description.optional(),
+    /** Start as a copy of this mapping's current draft (same molecule); the same as `start: { copyOf }`. */
+    copyOf: mappingId.optional(),
+    start: mappingStart.optional(),
+  })
+  .refine((b) => b.copyOf === undefined || b.start === undefined, { message: 'Give either copyOf or start, not both.', path: ['start'] });
 export type CreateMappingBody = z.infer<typeof createMappingBody>;
 
 export const updateMappingBody = z

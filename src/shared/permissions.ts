@@ -20,6 +20,7 @@ export const PROJECT_ACTIONS = [
   'mapping:read',
   'mapping:create',
   'mapping:edit',
+  'mapping:propose',
   'mapping:export',
   'version:save',
   'version:restore',
@@ -58,6 +59,8 @@ export const PROJECT_RULES: Readonly<Record<ProjectAction, readonly ProjectRole[
   'mapping:read': EVERYONE,
   'mapping:create': EDITORS,
   'mapping:edit': EDITORS,
+  // Proposals write nothing, but they are for editing the draft: the people who may edit ask for them.
+  'mapping:propose': EDITORS,
   'mapping:export': EVERYONE,
   'version:save': EDITORS,
   'version:restore': EDITORS,

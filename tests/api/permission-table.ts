@@ -191,6 +191,12 @@ export const ROUTE_CASES: RouteCase[] = [
     request: async (env, c) => ({ url: `/api/mappings/${await demoMappingId(env.db)}`, body: { description: `Notes by ${c}.` } }),
     expect: byRule(200, 'mapping:edit'),
   },
+  {
+    method: 'post',
+    path: '/api/mappings/:id/proposal',
+    request: async (env) => ({ url: `/api/mappings/${await demoMappingId(env.db)}/proposal`, body: { scope: 'unassigned' } }),
+    expect: byRule(200, 'mapping:propose'),
+  },
   { method: 'get', path: '/api/projects/:id/bead-types', request: project('/bead-types'), expect: byRule(200, 'library:read') },
   {
     method: 'put',

@@ -30,6 +30,7 @@ const EXPECTED: Record<ProjectAction, string> = {
   'mapping:read': 'SMV',
   'mapping:create': 'MV', // create mappings
   'mapping:edit': 'MV', // edit drafts live; never the student
+  'mapping:propose': 'MV', // ask for proposals to edit the draft with; never the student
   'mapping:export': 'SMV', // students export
   'version:save': 'MV', // save versions
   'version:restore': 'MV', // restore a version into the draft
