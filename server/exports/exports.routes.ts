@@ -6,7 +6,10 @@ import type { DraftAccess } from '../mappings/draft-access';
 import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
-import { exportQuery, importBody, IMPORT_MAX_BYTES, type ImportOutcome } from '../../src/shared/exports';
+import { exportQuery, importBody, isEngineFormat, IMPORT_MAX_BYTES, type ExportFormat, type ImportOutcome } from '../../src/shared/exports';
+import { unprocessable } from '../http/errors';
+import { engineZip } from './engine-export';
+import { assertUnits } from './repeat-units';
 import { authorizeMapping } from '../mappings/mapping-access';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { findMapping } from '../mappings/mappings.service';
@@ -14,7 +17,7 @@ import { exportSource } from './export-source';
 import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
 import { importMapping, planImport, previewOf } from './import.service';
-import { projectName } from './exports.service';
+import { analysisForExport, projectName } from './exports.service';
 import { slug } from './render';
 
 const params = z.object({ id: idParam });
@@ -28,8 +31,19 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     await authorizeMapping(ctx.db, req, id, 'mapping:export');
     const q = query;
     const source = await exportSource(ctx.db, drafts, id, q.version);
+    if (isEngineFormat(q.format)) {
+      if (q.analysis !== undefined) await analysisForExport(ctx.db, id, q.analysis);
+      assertUnits(source, q.units);
+      const zip = await engineZip(source, q.format, new Map());
+      res.setHeader('Content-Type', 'application/zip');
+      res.setHeader('Content-Disposition', `attachment; filename="${zip.name}"`);
+      res.setHeader('X-Content-SHA256', source.sha256);
+      res.setHeader('Cache-Control', 'no-store');
+      return void res.send(zip.body);
+    }
+    if (q.analysis !== undefined || q.units !== undefined) throw unprocessable('engine_only', 'analysis and units apply to the gromacs and lammps formats only.');
     const highlight = q.highlight?.split(',').map((n) => Number(n) - 1);
-    const file = renderExport(source, q.format, { highlight });
+    const file = renderExport(source, q.format as ExportFormat, { highlight });
     res.setHeader('Content-Type', file.mime);
     res.setHeader('Content-Disposition', `attachment; filename="${file.name}"`);
     res.setHeader('X-Content-SHA256', source.sha256);

@@ -1,6 +1,7 @@
 import type { Db } from '../db/knex';
 import { mappingsWithMolecule } from '../mappings/mappings.service';
 import type { Resolution } from '../../src/shared/chem';
+import { notFound, unprocessable } from '../http/errors';
 
 // Knex for exports: the rows an export file and the project download are written from.
 
@@ -23,4 +24,16 @@ export async function projectMappings(db: Db, projectId: number): Promise<{ id: 
 export async function projectName(db: Db, projectId: number): Promise<string> {
   const row = await db('projects').where({ id: projectId }).first('name');
   return row?.name ?? `project-${projectId}`;
+}
+
+/**
+ * The reference analysis an engine export takes its structure from. Analyses belong to the reference
+ * trajectories module; until its table exists every id is unknown (404), never a made-up structure.
+ */
+export async function analysisForExport(db: Db, mappingId: number, analysisId: number): Promise<never> {
+  if (!(await db.schema.hasTable('analyses'))) throw notFound('That analysis');
+  const row = await db('analyses').where({ id: analysisId }).first('mapping_id');
+  if (!row) throw notFound('That analysis');
+  if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
+  throw unprocessable('analysis_structure_unavailable', 'Coordinates from an analysis\'s mean structure are not available yet in this build; export without analysis to use the 3D coordinates.', { analysisId });
 }

@@ -12,8 +12,21 @@ import { versionRef, type VersionRef } from './versions';
 export const EXPORT_FORMATS = ['csv', 'json', 'pdb', 'groups', 'svg', 'png'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
+/** Engine downloads: a zip of GROMACS or LAMMPS files (docs/exports.md); not part of the project zip. */
+export const ENGINE_FORMATS = ['gromacs', 'lammps'] as const;
+export type EngineFormat = (typeof ENGINE_FORMATS)[number];
+export const isEngineFormat = (f: string): f is EngineFormat => (ENGINE_FORMATS as readonly string[]).includes(f);
+/** Repeat units a chain export may hold. */
+export const UNITS_MAX = 200;
+
+const ALL_FORMATS = [...EXPORT_FORMATS, ...ENGINE_FORMATS] as const;
+
 export const exportQuery = z.strictObject({
-  format: z.enum(EXPORT_FORMATS, `The format is one of ${EXPORT_FORMATS.join(', ')}.`),
+  format: z.enum(ALL_FORMATS, `The format is one of ${ALL_FORMATS.join(', ')}.`),
+  /** Engine formats: a reference analysis whose mean structure gives the coordinates. */
+  analysis: z.string().regex(/^[1-9][0-9]{0,9}$/, 'analysis is an analysis id.').transform(Number).optional(),
+  /** Engine formats, repeat units only: how many units the chain has. */
+  units: z.string().regex(/^[0-9]{1,6}$/, 'units is a whole number.').transform(Number).optional(),
   version: versionRef.default('draft'),
   /** SVG only: 1-based atom numbers to ring, comma-separated (the compare screen's moved atoms). */
   highlight: z.string().regex(/^[1-9][0-9]{0,5}(,[1-9][0-9]{0,5}){0,999}$/, 'highlight lists 1-based atom numbers separated by commas.').optional(),
@@ -205,7 +218,7 @@ export interface ImportOutcome {
 }
 
 /** The download (or picture) URL of one state of a mapping. */
-export function exportUrl(mappingId: number, format: ExportFormat, version: VersionRef = 'draft', highlight: readonly number[] = []): string {
+export function exportUrl(mappingId: number, format: ExportFormat | EngineFormat, version: VersionRef = 'draft', highlight: readonly number[] = []): string {
   const q = new URLSearchParams({ format, version: String(version) });
   if (highlight.length) q.set('highlight', highlight.join(','));
   return `/api/mappings/${mappingId}/export?${q}`;

@@ -65,6 +65,19 @@ describe('bonded terms', () => {
     expect(res.body.error.code).toBe('not_found');
   });
 
+  it('an engine export of a table with missing values is refused with each one named, and so are bad parameters', async () => {
+    const res = await modeller.get(`/api/mappings/${mappingId}/export?format=gromacs&version=draft`).expect(422);
+    expect(res.body.error.code).toBe('model_incomplete');
+    const checks = res.body.error.details.problems.map((p: { check: string; message: string }) => `${p.check}: ${p.message}`);
+    expect(checks).toContain('bonded_value_missing: bond A–B: not set.');
+    expect(checks).toContain('bonded_value_missing: dihedral A–B–C–D: not set.');
+    expect(checks).toContain('exclusions_missing: No exclusion count set.');
+    expect(checks).toContain('bead_type_missing: Bead A has no bead type.');
+    expect((await modeller.get(`/api/mappings/${mappingId}/export?format=lammps&units=3`).expect(422)).body.error.code).toBe('not_a_repeat_unit');
+    expect((await modeller.get(`/api/mappings/${mappingId}/export?format=gromacs&analysis=424242`).expect(404)).body.error.code).toBe('not_found');
+    expect((await modeller.get(`/api/mappings/${mappingId}/export?format=csv&units=3`).expect(422)).body.error.code).toBe('engine_only');
+  });
+
   it('stores the table in the draft: read back in canonical direction, missing values are error checks, saved with a version', async () => {
     const half = await modeller.put(url(), { terms: full.slice(0, 3), exclusions: 1 }).expect(200);
     expect(half.body.exclusions).toBe(1);

@@ -5,8 +5,8 @@ import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import JSZip from 'jszip';
-import type { Test } from 'supertest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
+import { binary } from '../helpers/binary';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { contentText } from '../../src/shared/exports';
 import { versionedMapping } from './versions-fixtures';
@@ -16,13 +16,6 @@ let student: ApiClient;
 let supervisor: ApiClient;
 let mappingId: number;
 let moleculeId: number;
-
-const binary = (res: Test): Test =>
-  res.buffer(true).parse((r, cb) => {
-    const chunks: Buffer[] = [];
-    r.on('data', (c: Buffer) => chunks.push(c));
-    r.on('end', () => cb(null, Buffer.concat(chunks)));
-  });
 
 beforeAll(async () => {
   t = await createTestApp();

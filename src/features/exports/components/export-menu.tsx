@@ -1,14 +1,16 @@
 import { useState } from 'react';
-import { EXPORT_FORMATS, exportUrl, projectZipUrl, type ExportFormat } from '../../../shared/exports';
+import { ENGINE_FORMATS, EXPORT_FORMATS, exportUrl, projectZipUrl, type EngineFormat, type ExportFormat } from '../../../shared/exports';
 import type { VersionRef } from '../../../shared/versions';
 
-const LABELS: Record<ExportFormat, string> = {
+const LABELS: Record<ExportFormat | EngineFormat, string> = {
   csv: 'Mapping table (CSV)',
   json: 'Mapping (JSON)',
   pdb: 'CG structure (PDB)',
   groups: 'Atom groups (text)',
   svg: 'Picture (SVG)',
   png: 'Picture (PNG)',
+  gromacs: 'GROMACS model (zip)',
+  lammps: 'LAMMPS model (zip)',
 };
 
 interface ExportMenuProps {
@@ -53,7 +55,7 @@ function FormatLinks({ mappingId, state, label, hideTitle = false }: { mappingId
     <div>
       {!hideTitle && <p className="font-semibold text-ink-700">{label}</p>}
       <ul className="mt-1 flex flex-wrap gap-x-3 gap-y-1" aria-label={`Export ${label}`}>
-        {EXPORT_FORMATS.map((f) => (
+        {[...EXPORT_FORMATS, ...ENGINE_FORMATS].map((f) => (
           <li key={f}>
             <a className="text-ink-700 underline hover:text-ink-900" href={exportUrl(mappingId, f, state)} download>
               {LABELS[f]}

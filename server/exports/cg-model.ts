@@ -1,0 +1,123 @@
+import type { BondedParams, TermKind } from '../../src/shared/bonded-terms';
+import { missingValues, termKey, topologyTermIds } from '../../src/shared/bonded-terms';
+import type { Vec3 } from '../../src/shared/chem';
+import { unprocessable } from '../http/errors';
+import type { ExportSource } from './export-source';
+
+// The CG model an engine export is written from, engine-neutral: molecule types (the molecule, and
+// each free ion of a salt as its own type), their beads (type, mass, charge, position in nm) and the
+// bonded terms of the version exported, in GROMACS units (bonded-terms.ts). Everything an engine
+// cannot run without is checked here first, and an export that lacks any of it is refused with each
+// problem named (422 model_incomplete): error-level checks of the evaluation, beads without a type,
+// bonded terms without values, no exclusion count, no 3D coordinates. Nothing is filled in silently.
+
+export interface CgBead {
+  name: string;
+  type: string;
+  mass: number;
+  charge: number;
+  /** Centre in nm. */
+  xyz: Vec3;
+}
+
+export interface CgTerm {
+  kind: TermKind;
+  /** 0-based bead indices within the molecule type. */
+  beads: number[];
+  params: BondedParams;
+}
+
+export interface CgMoleculeType {
+  name: string;
+  beads: CgBead[];
+  terms: CgTerm[];
+  /** Pairs excluded beyond nrexcl: every pair of a ring whose bonds are all constraints (a rigid ring). */
+  exclusions: [number, number][];
+  nrexcl: number;
+}
+
+export interface CgModel {
+  types: CgMoleculeType[];
+}
+
+export interface Problem {
+  check: string;
+  message: string;
+}
+
+const NM_PER_ANGSTROM = 0.1;
+
+/** Up to five characters of letters and digits: a GROMACS molecule or residue name. */
+export const shortName = (name: string, fallback: string) => name.replace(/[^A-Za-z0-9]/g, '').slice(0, 5) || fallback;
+
+export function buildCgModel(s: ExportSource): CgModel {
+  const problems: Problem[] = [];
+  const evaluation = s.evaluation;
+  if (!evaluation) throw unprocessable('model_incomplete', 'This state has no evaluation, so no masses, charges or topology to export.', { problems: [{ check: 'not_evaluated', message: 'No evaluation.' }] });
+  for (const c of evaluation.checks) if (c.severity === 'error') problems.push({ check: c.code, message: c.message });
+  const byId = new Map(evaluation.beads.map((b) => [b.id, b]));
+  const stored = s.draft.bonded ?? {};
+  const reported = new Set(problems.filter((p) => p.check === 'bonded_value_missing').map((p) => p.message));
+  for (const { kind, ids } of topologyTermIds(evaluation.topology)) {
+    const p = stored[termKey(kind, ids)];
+    const missing = p ? missingValues({ kind, ...p }) : ['value', 'force constant'];
+    const label = ids.map((id) => byId.get(id)?.name ?? id).join('–');
+    const message = p ? `${kind} ${label}: no ${missing.join(', no ')}.` : `${kind} ${label}: not set.`;
+    if (missing.length > 0 && !reported.has(message)) problems.push({ check: 'bonded_value_missing', message });
+  }
+  if (s.draft.exclusions === undefined && !problems.some((p) => p.check === 'exclusions_missing')) problems.push({ check: 'exclusions_missing', message: 'No exclusion count set.' });
+  for (const b of s.draft.beads) {
+    if (!b.type) problems.push({ check: 'bead_type_missing', message: `Bead ${b.name} has no bead type.` });
+    if (!byId.get(b.id)?.centre) problems.push({ check: 'no_3d_coordinates', message: `Bead ${b.name} has no 3D centre (the molecule has no 3D coordinates yet).` });
+  }
+  if (problems.length > 0) {
+    throw unprocessable('model_incomplete', `This state cannot be exported to an engine yet: ${problems.map((p) => p.message).join(' ')}`, { problems });
+  }
+
+  // A bead made only of a free ion's atom is a molecule type of its own.
+  const ionAtoms = new Set((s.model.components ?? []).filter((c) => c.freeIon).flatMap((c) => c.atoms));
+  const isIon = (id: string) => {
+    const bead = s.draft.beads.find((b) => b.id === id)!;
+    return bead.atoms.length > 0 && bead.atoms.every((a) => ionAtoms.has(a.index));
+  };
+  const cg = (id: string): CgBead => {
+    const e = byId.get(id)!;
+    const bead = s.draft.beads.find((b) => b.id === id)!;
+    const [x, y, z] = e.centre!;
+    return { name: bead.name, type: bead.type!, mass: e.mass, charge: e.charge, xyz: [x * NM_PER_ANGSTROM, y * NM_PER_ANGSTROM, z * NM_PER_ANGSTROM] };
+  };
+  const mainIds = s.draft.beads.map((b) => b.id).filter((id) => !isIon(id));
+  const index = new Map(mainIds.map((id, i) => [id, i]));
+  const terms: CgTerm[] = [];
+  for (const { kind, ids } of topologyTermIds(evaluation.topology)) {
+    if (!ids.every((id) => index.has(id))) continue;
+    const params = stored[termKey(kind, ids)]!;
+    if (params.omit) continue;
+    terms.push({ kind, beads: ids.map((id) => index.get(id)!), params });
+  }
+  for (const [key, params] of Object.entries(stored)) {
+    if (!key.startsWith('improper:')) continue;
+    const ids = key.slice('improper:'.length).split(',');
+    if (ids.every((id) => index.has(id))) terms.push({ kind: 'improper', beads: ids.map((id) => index.get(id)!), params });
+  }
+  const constrained = new Set(terms.filter((t) => t.kind === 'bond' && t.params.constraint).map((t) => [...t.beads].sort((a, b) => a - b).join(',')));
+  const exclusions: [number, number][] = [];
+  for (const ring of evaluation.topology.rings) {
+    const r = ring.map((id) => index.get(id)).filter((i): i is number => i !== undefined);
+    if (r.length !== ring.length) continue;
+    const rigid = r.every((a, i) => constrained.has([a, r[(i + 1) % r.length]].sort((x, y) => x - y).join(',')));
+    if (!rigid) continue;
+    for (let i = 0; i < r.length; i++) for (let j = i + 1; j < r.length; j++) exclusions.push([Math.min(r[i], r[j]), Math.max(r[i], r[j])]);
+  }
+  const types: CgMoleculeType[] = [];
+  if (mainIds.length > 0) types.push({ name: shortName(s.moleculeName, 'MOL'), beads: mainIds.map(cg), terms, exclusions, nrexcl: s.draft.exclusions! });
+  for (const b of s.draft.beads.filter((x) => isIon(x.id))) types.push({ name: shortName(b.name, 'ION'), beads: [cg(b.id)], terms: [], exclusions: [], nrexcl: 1 });
+  // Molecule type names must differ.
+  const seen = new Map<string, number>();
+  for (const t of types) {
+    const n = seen.get(t.name) ?? 0;
+    seen.set(t.name, n + 1);
+    if (n > 0) t.name = `${t.name.slice(0, 4)}${n}`;
+  }
+  return { types };
+}
