@@ -20,6 +20,7 @@ import { clearFragmentCache } from '../server/chem/fragments';
 import { writeTypingMolfile } from '../server/chem/molfile';
 import { evaluateMapping, generateConformer, loadRdkit, parseMolecule, type Mapping, type Molecule } from '../server/chem/index';
 import { parseInThread, stopParseThread } from '../server/workers/parse-thread';
+import { proposalSection } from './chem-proposals';
 
 const rd = await loadRdkit();
 
@@ -107,8 +108,13 @@ const fmt = (ms: number): string => (ms >= 100 ? ms.toFixed(0) : ms >= 1 ? ms.to
 const rows: string[] = [];
 await parseMolecule({ smiles: 'c1ccccc1CCO' }); // one-off start-up of both libraries, not counted
 await parseInThread({ smiles: 'C'.repeat(1_000) }); // the parse thread and its canonical-SMILES thread start, not counted
-// BENCH_CHEM=conformers runs only the conformer part (and rewrites only its section).
+// BENCH_CHEM=conformers runs only the conformer part (and rewrites only its section); =proposals only
+// the mapping-proposal part (bench/chem-proposals.ts).
 const conformersOnly = process.env.BENCH_CHEM === 'conformers';
+if (process.env.BENCH_CHEM === 'proposals') {
+  writeSection('Mapping proposals', await proposalSection());
+  process.exit(0);
+}
 for (const c of conformersOnly ? [] : CASES) {
   const big = c.smiles.length > 1000;
   const loadBefore = os.loadavg()[0];
@@ -217,4 +223,5 @@ if (!conformersOnly) {
   writeSection('Chemistry core', table);
 }
 writeSection('Conformers', conformerTable);
+if (!conformersOnly) writeSection('Mapping proposals', await proposalSection());
 await stopParseThread();
