@@ -2,7 +2,8 @@
 // relay measured in the same run, and the server's memory with many connections. Not a test: it
 // prints numbers (see docs/benchmarks.md). Starts its own MariaDB in a temp dir, the Beadloom server
 // as a child process (its RSS is read from /proc), and the bare relay as another child process.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
+import { child } from './child';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -26,18 +27,6 @@ const ROUNDS = 4;
 const SETTLE_MS = 500;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-function child(args: string[], env: NodeJS.ProcessEnv): Promise<{ proc: ChildProcess; line: string }> {
-  const proc = spawn(process.execPath, ['--import', 'tsx', ...args], { env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'] });
-  return new Promise((resolve, reject) => {
-    let out = '';
-    proc.stdout!.on('data', (c) => {
-      out += c;
-      const m = /READY (\S+)/.exec(out);
-      if (m) resolve({ proc, line: m[1] });
-    });
-    proc.once('exit', (code) => reject(new Error(`${args[0]} exited with ${code}`)));
-  });
-}
 
 const rssMb = (pid: number) => Number(/VmRSS:\s+(\d+)/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))![1]) / 1024;
 
@@ -99,11 +88,11 @@ try {
   const mappingId = (await db('mappings').orderBy('id').first('id')).id;
   const moleculeId = (await db('molecules').orderBy('id').first('id')).id;
 
-  const app = await child(['tests/helpers/server-child.ts'], { DATABASE_URL: mariadb.url, SESSION_SECRET: randomSecret(24), PORT: '0', LOG_LEVEL: 'silent', CLIENT_DIR: '' });
+  const app = await child(['--import', 'tsx', 'tests/helpers/server-child.ts'], { DATABASE_URL: mariadb.url, SESSION_SECRET: randomSecret(24), PORT: '0', LOG_LEVEL: 'silent', CLIENT_DIR: '' });
   procs.push(app.proc);
   const url = app.line.replace('localhost', '127.0.0.1');
   const cookies = [await sessionCookie(url, 'modeller@example.org'), await sessionCookie(url, 'supervisor@example.org')];
-  const relay = await child(['bench/bare-relay.ts'], {});
+  const relay = await child(['--import', 'tsx', 'bench/bare-relay.ts'], {});
   procs.push(relay.proc);
 
   // The server starts conformer jobs for the demo molecules: measure once they are done (CPU), and
