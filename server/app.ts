@@ -13,6 +13,7 @@ import { setChemJobTimeout } from './workers/chem-limits';
 import { createSessionMiddleware } from './auth/session';
 import { configurePassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';
+import { AccessCache } from './auth/access-cache';
 import { authRoutes } from './auth/auth.routes';
 import { userRoutes } from './users/users.routes';
 import { projectRoutes } from './projects/projects.routes';
@@ -90,9 +91,15 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   app.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) ? next() : json(req, res, next)));
   app.use(requireJson((path) => UPLOAD_PATHS.test(path)));
 
-  const { middleware: session, store } = createSessionMiddleware(ctx.config);
-  const passport = configurePassport(ctx.db, ctx.config);
+  const { middleware: session, store, cached: sessions } = createSessionMiddleware(ctx.config);
+  // Accounts, memberships and sessions kept between requests, dropped by the access changes (auth/access-cache.ts).
+  const accessCache = new AccessCache(ctx.accessChanges, undefined, (sessionId) => sessions.forget(sessionId));
+  const passport = configurePassport(ctx.db, ctx.config, accessCache);
   const csrf = createCsrf(ctx.config);
+  app.use((req, _res, next) => {
+    req.accessCache = accessCache;
+    next();
+  });
   app.use(cookieParser(), session, passport.initialize(), passport.session());
   app.use(csrf.protect);
   // Jobs a request enqueues start after its response (jobs/in-process-queue.ts).
@@ -116,7 +123,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   chemRoutes(routes, ctx);
   // Threads and notifications share one live hub (server-sent events).
   const live = new LiveHub();
-  threadRoutes(routes, ctx, live, jobs);
+  threadRoutes(routes, ctx, live, jobs, collab);
   notificationRoutes(routes, ctx, live);
   versionRoutes(routes, ctx, collab);
   lockRoutes(routes, ctx, collab.rooms);
@@ -147,6 +154,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
       await tasks.idle();
       await conformers.close();
       await collab.close();
+      accessCache.close();
       await store.close();
     },
   };

@@ -31,7 +31,9 @@ export async function roleInProject(db: Db, projectId: number, userId: number): 
 /** Resolves the caller's role in a project or throws: 401 anonymous, 404 invisible, 403 not allowed. */
 export async function authorizeProject(db: Db, req: Request, projectId: number, action: ProjectAction): Promise<ProjectRole | null> {
   const user = requireUser(req);
-  const { exists, role } = await roleInProject(db, projectId, user.id);
+  const load = () => roleInProject(db, projectId, user.id);
+  // The app's access cache (app.ts puts it on the request), dropped by membership changes.
+  const { exists, role } = req.accessCache ? await req.accessCache.role(projectId, user.id, load) : await load();
   const standing = { isAdmin: user.isAdmin, role };
   if (!exists || !canSee(standing)) throw notFound('That project');
   if (!can(standing, action)) throw forbidden();

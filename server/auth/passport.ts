@@ -5,6 +5,7 @@ import type { Db } from '../db/knex';
 import { AppError } from '../http/errors';
 import { verifyPassword } from './passwords';
 import { findUserByEmail, findUserById, toSessionUser } from './accounts.service';
+import type { AccessCache, CachedAccount } from './access-cache';
 
 // The session stores { id, v }: the account id and its session version. A
 // disabled account, or one whose version moved on (disable, password change),
@@ -19,13 +20,19 @@ export interface SessionRef {
  * The account a session stands for, or null once the account is disabled or gone or its sessions were
  * ended. Asked on every request, and by open collaboration sockets when access changes.
  */
-export async function sessionUser(db: Db, ref: SessionRef): Promise<Express.User | null> {
-  const row = await findUserById(db, ref.id);
-  if (!row || row.disabled_at || row.session_version !== ref.v) return null;
-  return toSessionUser(row);
+export async function sessionUser(db: Db, ref: SessionRef, cache?: AccessCache): Promise<Express.User | null> {
+  const load = async (): Promise<CachedAccount | null> => {
+    const row = await findUserById(db, ref.id);
+    return row ? { user: toSessionUser(row), disabled: !!row.disabled_at } : null;
+  };
+  const account = cache ? await cache.account(ref.id, load) : await load();
+  if (!account || account.disabled || account.user.sessionVersion !== ref.v) return null;
+  // A copy: a request may change its req.user (a rename answers with the new name).
+  return { ...account.user };
 }
 
-export function configurePassport(db: Db, config: Config): passport.PassportStatic {
+/** `cache`: the accounts behind sessions, kept between requests (access-cache.ts); without it every request reads MariaDB. */
+export function configurePassport(db: Db, config: Config, cache?: AccessCache): passport.PassportStatic {
   const pp = new passport.Passport();
   pp.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, async (email, password, done) => {
@@ -43,7 +50,7 @@ export function configurePassport(db: Db, config: Config): passport.PassportStat
   pp.serializeUser((user, done) => done(null, { id: user.id, v: user.sessionVersion } satisfies SessionRef));
   pp.deserializeUser(async (ref: SessionRef, done) => {
     try {
-      return done(null, (await sessionUser(db, ref)) ?? false);
+      return done(null, (await sessionUser(db, ref, cache)) ?? false);
     } catch (err) {
       return done(err);
     }

@@ -1,9 +1,12 @@
 import session from 'express-session';
 import createMySQLStore from 'express-mysql-session';
 import type { Config } from '../config';
+import { CachedSessionStore } from './session-cache';
 
 // Sessions live in MariaDB (table `sessions`, created by a migration) so app
-// servers stay stateless. Cookies are httpOnly and SameSite=Lax.
+// servers stay stateless. Cookies are httpOnly and SameSite=Lax. Each instance keeps the rows it
+// read or wrote in memory (session-cache.ts): a request reads no session row and writes the rolling
+// expiry at most once a minute.
 
 export const SESSION_COOKIE = 'beadloom.sid';
 
@@ -21,10 +24,11 @@ export function createSessionMiddleware(config: Config) {
     checkExpirationInterval: 15 * 60_000,
     expiration: 7 * 24 * 60 * 60_000,
   });
+  const cached = new CachedSessionStore(store, { ttlMs: 60_000, touchEveryMs: 60_000, max: 10_000 });
   const middleware = session({
     name: SESSION_COOKIE,
     secret: config.sessionSecret,
-    store,
+    store: cached,
     resave: false,
     saveUninitialized: false,
     rolling: true,
@@ -37,5 +41,5 @@ export function createSessionMiddleware(config: Config) {
       maxAge: 7 * 24 * 60 * 60_000,
     },
   });
-  return { middleware, store };
+  return { middleware, store, cached };
 }

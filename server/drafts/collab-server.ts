@@ -16,19 +16,22 @@ import type { RequestHandler } from 'express';
 import { WebSocketServer } from 'ws';
 import type { AppContext } from '../context';
 import type { DraftAccess } from '../mappings/draft-access';
-import { loadEvaluationInputs, readStoredDraft } from './drafts.service';
+import { loadEvaluationInputs } from './drafts.service';
+import { StoredDrafts } from './stored-drafts';
 import { notFound } from '../http/errors';
 import { serveConnection } from './connection';
 import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room-options';
 import { createMariaDbDraftStorage } from './mariadb-draft-storage';
 import { createInProcessRelay } from './in-process-relay';
-import { threadEvaluation } from './evaluation-thread';
+import { evaluateOnceInThread, threadEvaluation } from './evaluation-thread';
 import { Rooms } from './rooms';
 import { decide, followAccessChanges, redecide, type OpenConnection } from './collab-access';
 
 export interface Collab extends DraftAccess {
   handleUpgrade(req: IncomingMessage, socket: Duplex, head: Buffer): void;
   rooms: Rooms;
+  /** Drafts no room holds, as REST reads them (stored-drafts.ts). */
+  stored: StoredDrafts;
   close(): Promise<void>;
 }
 
@@ -56,6 +59,8 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
     instance: randomUUID(),
     options: opts,
   });
+  // Drafts no room holds, as page loads and thread lists read them: kept while MariaDB's stamp is unchanged.
+  const stored = new StoredDrafts(ctx.db, evaluateOnceInThread);
   const wss = new WebSocketServer({ noServer: true, maxPayload: opts.maxFrameBytes });
   // Every open connection from its upgrade on, for access changes to reach; and a count of the
   // changes, so an upgrade decided just before one re-decides at once.
@@ -112,6 +117,7 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
   return {
     handleUpgrade,
     rooms,
+    stored,
     async read(mappingId) {
       const room = await rooms.live(mappingId);
       if (room) {
@@ -119,10 +125,11 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
         const { draft, result } = await room.serial(() => room.snapshot());
         return { draft, result: await result };
       }
-      const stored = await readStoredDraft(ctx.db, mappingId);
-      if (!stored) throw notFound('That mapping');
-      return stored;
+      const kept = await stored.read(mappingId);
+      if (!kept) throw notFound('That mapping');
+      return kept;
     },
+    storedDerived: (mappingId, name, make) => stored.derived(mappingId, name, make),
     refresh(filter) {
       void rooms.all().then((all) => {
         for (const room of all) {

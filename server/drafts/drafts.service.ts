@@ -112,6 +112,27 @@ export async function loadEvaluationInputs(db: Db, mappingId: number): Promise<E
   };
 }
 
+/**
+ * One short string that changes whenever anything a stored draft's evaluation depends on changes:
+ * the draft (the newest stored update — update ids only grow — and the snapshot's length and CRC-32,
+ * which change when compaction folds updates in or anything writes the draft anew), the mapping's resolution and lock, the molecule's coordinates (length and CRC-32: they
+ * are replaced whole when a conformer arrives or is uploaded), and the project's library (only ever
+ * replaced whole, with new row ids: its row count and highest id). The molecule's model is not in it:
+ * it is fixed when the molecule is created (a model backfill only fills missing ones, at start-up).
+ * One indexed round trip, against loading and evaluating the draft. Null when there is no such mapping.
+ */
+export async function draftStamp(db: Db, mappingId: number): Promise<string | null> {
+  const [rows] = await db.raw(
+    `SELECT CONCAT_WS('|', p.resolution, p.locked, p.molecule_id, m.project_id, COALESCE(LENGTH(m.xyz), -1), COALESCE(CRC32(m.xyz), 0),
+       COALESCE((SELECT MAX(u.id) FROM mapping_updates u WHERE u.mapping_id = p.id), 0),
+       COALESCE((SELECT CONCAT_WS(':', s.last_update_id, LENGTH(s.state), CRC32(s.state)) FROM mapping_snapshots s WHERE s.mapping_id = p.id), 0),
+       (SELECT CONCAT(COUNT(*), ':', COALESCE(MAX(b.id), 0)) FROM bead_types b WHERE b.project_id = m.project_id)) AS stamp
+     FROM mappings p JOIN molecules m ON m.id = p.molecule_id WHERE p.id = ?`,
+    [mappingId],
+  );
+  return (rows as { stamp: string }[])[0]?.stamp ?? null;
+}
+
 /** A stored draft and its evaluation, read while no room holds the mapping; null when there is no such mapping. */
 export async function readStoredDraft(db: Db, mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult } | null> {
   const inputs = await loadEvaluationInputs(db, mappingId);

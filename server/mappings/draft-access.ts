@@ -1,3 +1,4 @@
+import type * as Y from 'yjs';
 import type { Evaluation, Mapping } from '../../src/shared/chem';
 
 /** One evaluation of a draft: the numbers, or the error that stopped them, and when. */
@@ -14,6 +15,11 @@ export interface EvaluationResult {
  */
 export interface DraftAccess {
   read(mappingId: number): Promise<{ draft: Mapping; result: EvaluationResult }>;
+  /**
+   * `make(doc)` of the draft as MariaDB stores it, computed once per stored state and kept (null: no
+   * such mapping). `name` tells derivations apart; `doc` is shared, so `make` only reads it.
+   */
+  storedDerived<T>(mappingId: number, name: string, make: (doc: Y.Doc) => T): Promise<T | null>;
   /** The mapping's settings changed (resolution, lock): re-read them and re-evaluate if live. */
   refresh(filter: { mappingId?: number; moleculeId?: number; projectId?: number }): void;
 }

@@ -43,6 +43,8 @@ export async function addMember(ctx: AppContext, projectId: number, input: AddMe
     const already = await ctx.db('project_members').where({ project_id: projectId, user_id: existing.id }).first();
     if (already) throw conflict('already_member', `${existing.email} is already a member of this project.`);
     await ctx.db('project_members').insert({ project_id: projectId, user_id: existing.id, role: input.role });
+    // Committed: what this instance (or another) remembered of them in this project is dropped.
+    ctx.accessChanges.publish({ kind: 'membership', projectId, userId: existing.id });
     await ctx.mailer.send(addedToProjectMail({ email: existing.email, displayName: existing.display_name }, project.name, ctx.config.appUrl));
     return getMember(ctx, projectId, existing.id);
   }

@@ -1,7 +1,6 @@
 import * as Y from 'yjs';
-import type { Db } from '../db/knex';
 import { BEADS, beadsOf, readBead } from '../../src/shared/mapping-doc';
-import { loadDraft } from '../drafts/drafts.service';
+import type { DraftAccess } from '../mappings/draft-access';
 
 /**
  * Which bead ids a mapping has, now and ever. The rule for "a bead the mapping had":
@@ -38,11 +37,7 @@ export function beadsOfDoc(doc: Y.Doc): DraftBeads {
   return { current, ever };
 }
 
-export async function draftBeads(db: Db, mappingId: number): Promise<DraftBeads> {
-  const { doc } = await loadDraft(db, mappingId);
-  try {
-    return beadsOfDoc(doc);
-  } finally {
-    doc.destroy();
-  }
+/** The stored draft's beads, computed once per stored state of the draft (drafts/stored-drafts.ts). */
+export async function draftBeads(drafts: DraftAccess, mappingId: number): Promise<DraftBeads> {
+  return (await drafts.storedDerived(mappingId, 'thread-beads', beadsOfDoc)) ?? { current: new Map(), ever: new Set() };
 }

@@ -12,6 +12,7 @@ import { COMMENT_MAX, createCommentBody, createThreadBody, listThreadsQuery, upd
 import { normaliseMentions } from '../../src/shared/threads-mentions';
 import { notifyComment, type NewComment } from '../notifications/notify';
 import { draftBeads } from './draft-beads';
+import type { DraftAccess } from '../mappings/draft-access';
 import { mappingChannel, wantsEventStream, type LiveHub } from '../http/live-hub';
 import type { JobQueue } from '../jobs/job-queue';
 import { authorizeComment, authorizeThread } from './thread-access';
@@ -26,7 +27,7 @@ const bodyLimit: RequestHandler = (req, _res, next) => {
   next();
 };
 
-export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs: JobQueue): void {
+export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs: JobQueue, drafts: DraftAccess): void {
   const db = ctx.db;
 
   /** Mentions rewritten against the project's members (threads-mentions.ts); still within the limit. */
@@ -45,7 +46,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs
 
   /** Tells everyone viewing the mapping; returns the thread as it is now. */
   const publish = async (threadId: number, mappingId: number) => {
-    const thread = await threads.getThread(db, threadId, await draftBeads(db, mappingId));
+    const thread = await threads.getThread(db, threadId, await draftBeads(drafts, mappingId));
     const event: ThreadEvent = { type: 'thread', thread };
     live.publish(mappingChannel(mappingId), event.type, event);
     return thread;
@@ -54,7 +55,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs
   r.get('/api/mappings/:id/threads', typed({ params, query: listThreadsQuery }, async ({ params, query }, req, res) => {
     const id = params.id;
     await authorizeMapping(db, req, id, 'thread:read');
-    const list = await threads.listThreads(db, id, await draftBeads(db, id), query.status);
+    const list = await threads.listThreads(db, id, await draftBeads(drafts, id), query.status);
     if (query.version === undefined) return void res.json(list);
     // Viewing a version: the threads of the beads it contains.
     const inVersion = new Set((await getVersion(db, id, query.version)).draft.beads.map((b) => b.id));
@@ -65,7 +66,7 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs
     const mappingId = params.id;
     const user = requireUser(req);
     const { projectId } = await authorizeMapping(db, req, mappingId, 'comment:create');
-    const beads = await draftBeads(db, mappingId);
+    const beads = await draftBeads(drafts, mappingId);
     if (!beads.ever.has(beadId) && !(await threads.beadInVersions(db, mappingId, beadId)) && !(await threads.beadRecorded(db, mappingId, beadId))) {
       throw unprocessable('unknown_bead', 'This mapping has never had a bead with that id.', { beadId });
     }

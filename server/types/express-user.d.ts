@@ -1,4 +1,5 @@
 import 'express-session';
+import type { AccessCache } from '../auth/access-cache';
 
 declare global {
   namespace Express {
@@ -9,6 +10,11 @@ declare global {
       displayName: string;
       isAdmin: boolean;
       sessionVersion: number;
+    }
+
+    interface Request {
+      /** Accounts and memberships kept between requests (server/auth/access-cache.ts); set by app.ts. */
+      accessCache?: AccessCache;
     }
   }
 }

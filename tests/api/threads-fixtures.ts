@@ -1,12 +1,13 @@
 import type { Db } from '../../server/db/knex';
-import { draftBeads } from '../../server/threads/draft-beads';
+import { beadsOfDoc } from '../../server/threads/draft-beads';
+import { loadDraft } from '../../server/drafts/drafts.service';
 import { demoMappingId, userId } from '../helpers/fixtures';
 
 // Fixtures for thread tests and the route × role table: threads and comments written straight into
 // MariaDB, on a bead the demo mapping really has.
 
 export async function firstBeadId(db: Db, mappingId: number): Promise<string> {
-  const [id] = (await draftBeads(db, mappingId)).current.keys();
+  const [id] = beadsOfDoc((await loadDraft(db, mappingId)).doc).current.keys();
   if (!id) throw new Error(`mapping ${mappingId} has no beads`);
   return id;
 }

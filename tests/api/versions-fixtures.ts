@@ -47,6 +47,9 @@ export async function storedDrafts(db: Db) {
       return stored;
     },
     refresh() {},
+    async storedDerived() {
+      throw new Error('not used by the fixtures');
+    },
   };
 }
 
