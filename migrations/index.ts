@@ -19,6 +19,7 @@ import * as m051 from './20261205_051_bead_type_heavy_atoms';
 import * as m052 from './20261205_052_bead_type_library_note';
 import * as m061 from './20261206_061_references';
 import * as m062 from './20261206_062_analyses';
+import * as m071 from './20261206_071_bead_type_nonbonded';
 
 // Knex migrations, in order. A new migration is a new file here plus one line below;
 // listing them (instead of a folder scan) lets tsx, vitest and the bundler load them alike.
@@ -43,6 +44,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261205_052_bead_type_library_note': m052,
   '20261206_061_references': m061,
   '20261206_062_analyses': m062,
+  '20261206_071_bead_type_nonbonded': m071,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

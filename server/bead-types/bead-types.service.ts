@@ -5,7 +5,17 @@ import type { BeadTypeRow } from '../../src/shared/bead-types';
 
 export async function libraryFor(db: Db, projectId: number): Promise<BeadTypeRow[]> {
   const rows = await db('bead_types').where({ project_id: projectId }).orderBy('position');
-  return rows.map((r) => ({ name: r.name, heavyAtomsPerBead: Number(r.heavy_atoms_per_bead) as BeadTypeRow['heavyAtomsPerBead'], charge: r.charge, deltaGMin: r.delta_g_min, deltaGMax: r.delta_g_max, description: r.description }));
+  return rows.map((r) => ({
+    name: r.name,
+    heavyAtomsPerBead: Number(r.heavy_atoms_per_bead) as BeadTypeRow['heavyAtomsPerBead'],
+    charge: r.charge,
+    deltaGMin: r.delta_g_min,
+    deltaGMax: r.delta_g_max,
+    description: r.description,
+    // Non-bonded parameters only when set, so libraries without them read as before.
+    ...(r.sigma_nm !== null ? { sigma: r.sigma_nm } : {}),
+    ...(r.epsilon_kj_per_mol !== null ? { epsilon: r.epsilon_kj_per_mol } : {}),
+  }));
 }
 
 export async function lastChange(db: Db, projectId: number): Promise<{ updatedAt: string | null; note: string }> {
@@ -30,6 +40,8 @@ export async function replaceLibrary(db: Db, projectId: number, types: BeadTypeR
           delta_g_min: t.deltaGMin,
           delta_g_max: t.deltaGMax,
           description: t.description,
+          sigma_nm: t.sigma ?? null,
+          epsilon_kj_per_mol: t.epsilon ?? null,
         })),
       );
     }

@@ -17,7 +17,7 @@ import { exportSource } from './export-source';
 import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
 import { importMapping, planImport, previewOf } from './import.service';
-import { analysisForExport, projectName } from './exports.service';
+import { analysisForExport, libraryNonbonded, projectName } from './exports.service';
 import { slug } from './render';
 
 const params = z.object({ id: idParam });
@@ -34,7 +34,7 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     if (isEngineFormat(q.format)) {
       if (q.analysis !== undefined) await analysisForExport(ctx.db, id, q.analysis);
       assertUnits(source, q.units);
-      const zip = await engineZip(source, q.format, new Map());
+      const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id));
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader('Content-Disposition', `attachment; filename="${zip.name}"`);
       res.setHeader('X-Content-SHA256', source.sha256);

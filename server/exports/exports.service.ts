@@ -2,6 +2,7 @@ import type { Db } from '../db/knex';
 import { mappingsWithMolecule } from '../mappings/mappings.service';
 import type { Resolution } from '../../src/shared/chem';
 import { notFound, unprocessable } from '../http/errors';
+import { libraryFor } from '../bead-types/bead-types.service';
 
 // Knex for exports: the rows an export file and the project download are written from.
 
@@ -36,4 +37,11 @@ export async function analysisForExport(db: Db, mappingId: number, analysisId: n
   if (!row) throw notFound('That analysis');
   if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
   throw unprocessable('analysis_structure_unavailable', 'Coordinates from an analysis\'s mean structure are not available yet in this build; export without analysis to use the 3D coordinates.', { analysisId });
+}
+
+/** The non-bonded parameters of the mapping's project library, by bead type name (nulls: not set). */
+export async function libraryNonbonded(db: Db, mappingId: number): Promise<Map<string, { sigma: number | null; epsilon: number | null }>> {
+  const row = await mappingsWithMolecule(db).where('p.id', mappingId).first('m.project_id');
+  const types = row ? await libraryFor(db, row.project_id) : [];
+  return new Map(types.map((t) => [t.name, { sigma: t.sigma ?? null, epsilon: t.epsilon ?? null }]));
 }

@@ -23,6 +23,9 @@ export const beadTypeRow = z
     deltaGMin: deltaG,
     deltaGMax: deltaG,
     description: z.string().trim().max(500).default(''),
+    /** Optional Lennard-Jones sigma (nm) and epsilon (kJ/mol) for the engine exports; absent or null: not set. */
+    sigma: z.number('sigma is a number (nm).').finite().min(0, 'sigma must not be negative.').max(5, 'sigma is at most 5 nm.').nullable().optional(),
+    epsilon: z.number('epsilon is a number (kJ/mol).').finite().min(0, 'epsilon must not be negative.').max(1000, 'epsilon is at most 1000 kJ/mol.').nullable().optional(),
   })
   .refine((r) => r.deltaGMin <= r.deltaGMax, { message: 'deltaGMin must not exceed deltaGMax.', path: ['deltaGMin'] });
 export type BeadTypeRow = z.infer<typeof beadTypeRow>;
@@ -51,11 +54,14 @@ export interface BeadTypeLibrary {
 }
 
 export const BEAD_TYPE_CSV_COLUMNS = ['name', 'heavy_atoms_per_bead', 'charge', 'delta_g_min', 'delta_g_max', 'description'] as const;
+/** Optional columns: non-bonded parameters, written only when some type has them; empty cell = not set. */
+export const NONBONDED_CSV_COLUMNS = ['sigma_nm', 'epsilon_kj_per_mol'] as const;
 
 /** The library as CSV (LF line ends); numbers are written as numbers, text cells a spreadsheet would run are escaped. */
 export function beadTypesToCsv(types: readonly BeadTypeRow[]): string {
-  const rows = types.map((t) => [t.name, t.heavyAtomsPerBead, t.charge, t.deltaGMin, t.deltaGMax, t.description]);
-  return writeCsv([BEAD_TYPE_CSV_COLUMNS, ...rows], { newline: '\n' });
+  const nonbonded = types.some((t) => t.sigma != null || t.epsilon != null);
+  const rows = types.map((t) => [t.name, t.heavyAtomsPerBead, t.charge, t.deltaGMin, t.deltaGMax, t.description, ...(nonbonded ? [t.sigma ?? '', t.epsilon ?? ''] : [])]);
+  return writeCsv([nonbonded ? [...BEAD_TYPE_CSV_COLUMNS, ...NONBONDED_CSV_COLUMNS] : BEAD_TYPE_CSV_COLUMNS, ...rows], { newline: '\n' });
 }
 
 export type CsvResult = { ok: true; types: BeadTypeRow[] } | { ok: false; line: number; message: string };
@@ -85,6 +91,8 @@ export function beadTypesFromCsv(text: string): CsvResult {
       deltaGMin: num(at(c, 'delta_g_min')),
       deltaGMax: num(at(c, 'delta_g_max')),
       description: at(c, 'description'),
+      ...(header.includes('sigma_nm') && at(c, 'sigma_nm') !== '' ? { sigma: num(at(c, 'sigma_nm')) } : {}),
+      ...(header.includes('epsilon_kj_per_mol') && at(c, 'epsilon_kj_per_mol') !== '' ? { epsilon: num(at(c, 'epsilon_kj_per_mol')) } : {}),
     });
     if (!parsed.success) return { ok: false, line: i + 1, message: `${parsed.error.issues[0].path.join('.')}: ${parsed.error.issues[0].message}` };
     types.push(parsed.data);

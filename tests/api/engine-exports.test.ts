@@ -150,7 +150,15 @@ describe('engine exports run in the engines', () => {
         { name: 'E2', type: 'ether-OH', atoms: chain.slice(11) },
       ];
     });
+    // The library gives the tail type test values of sigma and epsilon (invented); the others stay placeholders.
+    const projectId = (await t.ctx.db('molecules').where({ id: f.moleculeId }).first('project_id')).project_id;
+    const types = (await modeller.get(`/api/projects/${projectId}/bead-types`).expect(200)).body.types;
+    await modeller.put(`/api/projects/${projectId}/bead-types`, { types: [...types, { name: 'tail', heavyAtomsPerBead: 4, charge: 0, deltaGMin: 10, deltaGMax: 30, description: 'test', sigma: 0.45, epsilon: 3 }] }).expect(200);
     const dirs = await exportBoth(f, 'surfactant');
+    const top = readFileSync(join(dirs.gromacs, 'topol.top'), 'utf8');
+    expect(top).toMatch(/^tail {2}0\.0 {2}0\.0 {2}A {2}0\.45 {2}3\.0$/m);
+    expect(top).toMatch(/^ether {2}0\.0 {2}0\.0 {2}A {2}0\.5 {2}2\.0 {2}; PLACEHOLDER/m);
+    expect(top).toContain('PLACEHOLDER non-bonded parameters for ether, ether-OH');
     grompp(dirs.gromacs, 'surfactant');
     bondsWithin5Percent(lammps(dirs.lammps, 'surfactant'), 'surfactant');
   }, 600_000);
