@@ -41,6 +41,7 @@ import { bondedTermRoutes } from './bonded/bonded-terms.routes';
 import { exportRoutes, LARGE_JSON_PATHS } from './exports/exports.routes';
 import { createInProcessTasks, type BackgroundTasks } from './jobs/background-task';
 import { referenceRoutes } from './references/references.routes';
+import { analysisRoutes } from './analyses/analyses.routes';
 
 export interface BuiltApp {
   app: Express;
@@ -132,6 +133,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   bondedTermRoutes(routes, ctx, collab);
   const tasks = createInProcessTasks(ctx.log);
   referenceRoutes(routes, ctx, tasks);
+  analysisRoutes(routes, ctx, collab, tasks);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);

@@ -1,5 +1,6 @@
 import { mkdir, rename, rm } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
+import type { StructureFormat, TrajectoryFormat } from './formats';
 
 // Where a reference's and an analysis's files live under the data folder (config.dataDir):
 //   references/<id>/structure.<ext>, trajectory.<ext>, copies.bin, frames.json
@@ -20,4 +21,11 @@ export async function adoptUpload(tmpPath: string, dir: string, name: string): P
 
 export async function removeDir(dir: string): Promise<void> {
   await rm(dir, { recursive: true, force: true });
+}
+
+/** The file an analysis reads frames from: the trajectory, or the structure (a molfile's XYZ copy). */
+export function sourceOf(dir: string, ref: { trajectory_format: TrajectoryFormat | null; structure_format: StructureFormat; source_format: TrajectoryFormat | null }): { path: string; format: TrajectoryFormat } {
+  if (ref.trajectory_format) return { path: join(dir, `trajectory.${ref.trajectory_format}`), format: ref.trajectory_format };
+  if (ref.structure_format === 'mol') return { path: join(dir, 'frames.xyz'), format: 'xyz' };
+  return { path: join(dir, `structure.${ref.structure_format}`), format: ref.structure_format };
 }

@@ -12,7 +12,7 @@ import { referenceSelection } from '../../src/shared/references-selection';
 import type { ProjectAction } from '../../src/shared/permissions';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { structureFormatOf, trajectoryFormatOf } from './formats';
-import { adoptUpload, referenceDir, removeDir } from './reference-files';
+import { adoptUpload, analysisDir, referenceDir, removeDir } from './reference-files';
 import { discardUploads, quotaExceeded, referenceUpload, uploadedFiles } from './reference-upload';
 import { deleteReference, findReference, insertReference, projectBytes, referencesOf, setReferenceProgress, toReferenceView } from './references.service';
 import { matchJobRunner } from './match-job';
@@ -106,8 +106,9 @@ export function referenceRoutes(r: RouteTable, ctx: AppContext, tasks: Backgroun
 
   r.delete('/api/references/:id', typed({ params }, async ({ params }, req, res) => {
     await authorizeReference(ctx, req, params.id, 'reference:delete');
-    await deleteReference(ctx.db, params.id);
+    const analyses = await deleteReference(ctx.db, params.id);
     await removeDir(referenceDir(dataDir, params.id));
+    for (const a of analyses) await removeDir(analysisDir(dataDir, a));
     res.status(204).end();
   }));
 }

@@ -92,8 +92,11 @@ export async function referencesOf(db: Db, moleculeId: number): Promise<Referenc
   return db('simulation_references').where({ molecule_id: moleculeId }).orderBy('id', 'desc');
 }
 
-export async function deleteReference(db: Db, id: number): Promise<void> {
+/** Deletes the row (its analyses go with it, by the foreign key) and returns those analyses' ids, whose files the caller removes. */
+export async function deleteReference(db: Db, id: number): Promise<number[]> {
+  const analyses = (await db('analyses').where({ reference_id: id }).select('id')).map((r: { id: number }) => r.id);
   await db('simulation_references').where({ id }).delete();
+  return analyses;
 }
 
 export async function setReferenceState(db: Db, id: number, status: ReferenceStatus, progress?: Progress): Promise<void> {

@@ -3,7 +3,8 @@
  *   U(φ) ≈ c + Σₙ (aₙ cos nφ + bₙ sin nφ) = c + Σₙ kₙ cos(nφ − φₙ),  kₙ = √(aₙ² + bₙ²), φₙ = atan2(bₙ, aₙ)
  * written for the engines as Σₙ kₙ [1 + cos(nφ − φₙ)] (GROMACS proper dihedral type 9 / LAMMPS
  * "charmm" form; the constant differs only). Solved from the normal equations (9 unknowns) over the
- * bins where U is defined, by Gaussian elimination with partial pivoting.
+ * bins where U is defined, by Gaussian elimination with partial pivoting; fewer terms when fewer
+ * than nine bins are filled.
  */
 export interface CosineTerm {
   n: number;
@@ -13,7 +14,11 @@ export interface CosineTerm {
   phase: number;
 }
 
-export function fitCosines(xDeg: number[], u: (number | null)[], maxN = 4): CosineTerm[] {
+export function fitCosines(xDeg: number[], u: (number | null)[], upTo = 4): CosineTerm[] {
+  // A narrow distribution fills few bins: fit only as many terms as the filled bins determine.
+  const filled = u.filter((y) => y !== null && Number.isFinite(y)).length;
+  const maxN = Math.min(upTo, Math.floor((filled - 1) / 2));
+  if (maxN < 1) return [];
   const cols = 1 + 2 * maxN;
   const ata = Array.from({ length: cols }, () => new Array<number>(cols).fill(0));
   const atb = new Array<number>(cols).fill(0);

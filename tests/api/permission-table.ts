@@ -289,7 +289,47 @@ export const ROUTE_CASES: RouteCase[] = [
   { method: 'get', path: '/api/molecules/:id/references', request: async (env) => ({ url: `/api/molecules/${(await shared(env)).moleculeId}/references` }), expect: byRule(200, 'reference:read') },
   { method: 'get', path: '/api/references/:id', request: async (env) => ({ url: `/api/references/${await referenceFixture(env, 'shared')}` }), expect: byRule(200, 'reference:read') },
   { method: 'delete', path: '/api/references/:id', request: async (env, c) => ({ url: `/api/references/${await referenceFixture(env, unique(c))}` }), expect: byRule(204, 'reference:delete') },
+  // Analyses: the fixture reference is not ready, so a permitted start gets 409 (nothing runs).
+  { method: 'post', path: '/api/mappings/:id/analyses', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/analyses`, body: { referenceId: await referenceFixture(env, 'shared'), version: 1 } }), expect: byRule(409, 'analysis:start') },
+  { method: 'get', path: '/api/mappings/:id/analyses', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/analyses` }), expect: byRule(200, 'reference:read') },
+  { method: 'get', path: '/api/analyses/:id', request: async (env) => ({ url: `/api/analyses/${await analysisFixture(env, 'shared', 'done')}` }), expect: byRule(200, 'reference:read') },
+  // Each caller removes a finished analysis of its own making (an admin may remove anyone's).
+  { method: 'delete', path: '/api/analyses/:id', request: async (env, c) => ({ url: `/api/analyses/${await analysisFixture(env, unique(c), 'done', c)}` }), expect: byRule(204, 'analysis:start') },
+  { method: 'get', path: '/api/analyses/:id/terms.csv', request: async (env) => ({ url: `/api/analyses/${await analysisFixture(env, 'shared', 'done')}/terms.csv` }), expect: byRule(200, 'mapping:export') },
+  // No centres file in the fixture: a permitted caller is answered 200 with the header, then the stream fails; 409 when unfinished.
+  { method: 'get', path: '/api/analyses/:id/cg-trajectory', request: async (env) => ({ url: `/api/analyses/${await analysisFixture(env, 'running', 'running')}/cg-trajectory?format=gro` }), expect: byRule(409, 'mapping:export') },
 ];
+
+/** An analysis row of the shared mapping and reference with an empty result (no files). */
+const analyses = new Map<string, Promise<number>>();
+function analysisFixture(env: CaseEnv, key: string, status: 'done' | 'running', caller?: Caller): Promise<number> {
+  if (!analyses.has(key)) {
+    analyses.set(
+      key,
+      (async () => {
+        const { mappingId } = await shared(env);
+        const referenceId = await referenceFixture(env, 'shared');
+        const email = caller && caller !== 'anonymous' && caller !== 'nonMember' ? `${caller}@example.org` : null;
+        const createdBy = email ? ((await env.db('users').where({ email }).first('id'))?.id ?? null) : null;
+        const [id] = await env.db('analyses').insert({
+          mapping_id: mappingId,
+          reference_id: referenceId,
+          version_ref: '1',
+          version_number: 1,
+          content_sha256: '0'.repeat(64),
+          temperature: 298.15,
+          bins: 10,
+          status,
+          mapping_state: JSON.stringify({ beads: [], terms: [], order: [], via: [] }),
+          result: status === 'done' ? JSON.stringify({ frames: 0, copies: 0, beads: [], bonds: [], angles: [], dihedrals: [] }) : null,
+          created_by: createdBy,
+        });
+        return id as number;
+      })(),
+    );
+  }
+  return analyses.get(key)!;
+}
 
 /** A reference row of the shared molecule (no files; enough for reading and deleting). */
 const references = new Map<string, Promise<number>>();

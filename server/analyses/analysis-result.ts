@@ -1,0 +1,27 @@
+// From the collected term values to the stored result: each term's distribution and Boltzmann
+// inversion (trajectory/distributions.ts) and, for dihedrals, the cosine fit (cosine-fit.ts).
+import type { AnalysisResult, Term } from '../../src/shared/references';
+import { fitCosines } from '../trajectory/cosine-fit';
+import { distribution } from '../trajectory/distributions';
+import type { AnalysisPlan } from './analysis-plan';
+
+const round = (v: number, digits = 6) => (Number.isFinite(v) ? Number(v.toPrecision(digits)) : v);
+
+export function buildResult(plan: AnalysisPlan, values: Float32Array[], frames: number, copies: number, temperature: number, bins: number): AnalysisResult {
+  const out: AnalysisResult = { frames, copies, beads: plan.beads.map((b) => ({ id: b.id, name: b.name })), bonds: [], angles: [], dihedrals: [] };
+  plan.terms.forEach((t, i) => {
+    const d = distribution(t.kind, values[i], temperature, bins);
+    const term: Term = {
+      beads: t.beads.map((b) => plan.beads[b].name),
+      beadIds: t.beads.map((b) => plan.beads[b].id),
+      mean: round(d.mean),
+      sd: round(d.sd),
+      k: d.k === null ? null : round(d.k),
+      histogram: { edges: d.histogram.edges.map((e) => round(e)), counts: d.histogram.counts },
+      potential: { x: d.potential.x.map((x) => round(x)), u: d.potential.u.map((u) => (u === null ? null : round(u))) },
+    };
+    if (t.kind === 'dihedral') term.fourier = fitCosines(d.potential.x, d.potential.u).map((f) => ({ n: f.n, k: round(f.k), phase: round(f.phase) }));
+    (t.kind === 'bond' ? out.bonds : t.kind === 'angle' ? out.angles : out.dihedrals).push(term);
+  });
+  return out;
+}
