@@ -66,7 +66,7 @@ function install(wanted) {
 }
 
 const [command, ...rest] = process.argv.slice(2);
-const scripts = { start: 'scripts/start.ts', test: 'scripts/test.ts', dev: 'scripts/dev.ts', bench: 'scripts/bench.ts' };
+const scripts = { start: 'scripts/start.ts', test: 'scripts/test.ts', dev: 'scripts/dev.ts', bench: 'scripts/bench.ts', worker: 'scripts/worker.ts', 'start-cluster': 'scripts/start-cluster.ts' };
 if (!command || !(command in scripts)) {
   console.error(`usage: bootstrap.mjs ${Object.keys(scripts).join('|')} [args…]`);
   process.exit(2);

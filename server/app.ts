@@ -21,7 +21,9 @@ import { moleculeRoutes } from './molecules/molecules.routes';
 import { healthRoutes } from './health/health.routes';
 import { devMailMounted, devMailRoutes } from './mail/dev-mail.routes';
 import { uploadRoutes } from './molecules/uploads.routes';
-import { ConformerQueue } from './molecules/conformer-queue';
+import { ConformerQueue, type Conformers } from './molecules/conformer-queue';
+import { BullConformerQueue } from './molecules/bull-conformer-queue';
+import { createBullJobQueue } from './jobs/bull-queues';
 import { mappingRoutes } from './mappings/mappings.routes';
 import { mappingStarts } from './proposals/proposals.service';
 import { proposalRoutes } from './proposals/proposals.routes';
@@ -53,7 +55,7 @@ export interface BuiltApp {
   /** The live-collaboration socket: attach `collab.handleUpgrade` to the HTTP server's 'upgrade'. */
   collab: Collab;
   /** Background 3D conformer jobs. */
-  conformers: ConformerQueue;
+  conformers: Conformers;
   /** Work started by a request and run after its answer (notification e-mail). */
   jobs: JobQueue;
   /** Long jobs everyone watches: reference matching and analyses (jobs/background-task.ts). */
@@ -103,11 +105,20 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   });
   app.use(cookieParser(), session, passport.initialize(), passport.session());
   app.use(csrf.protect);
-  // Jobs a request enqueues start after its response (jobs/in-process-queue.ts).
-  const jobs = createInProcessQueue(async (job) => ctx.mailer.send(job.mail), ctx.log);
-  app.use(jobs.afterResponse);
+  // Jobs a request enqueues start after its response (jobs/in-process-queue.ts), or go to BullMQ for
+  // the workers when several servers share a Redis (jobs/bull-queues.ts).
+  let jobs: JobQueue & { close?(): Promise<void> };
+  let conformers: Conformers;
+  if (ctx.config.redisUrl) {
+    jobs = createBullJobQueue(ctx.config.redisUrl, ctx.log);
+    conformers = new BullConformerQueue(ctx.db, ctx.config.redisUrl, ctx.log);
+  } else {
+    const inProcess = createInProcessQueue(async (job) => ctx.mailer.send(job.mail), ctx.log);
+    app.use(inProcess.afterResponse);
+    jobs = inProcess;
+    conformers = new ConformerQueue(ctx.db, ctx.log);
+  }
 
-  const conformers = new ConformerQueue(ctx.db, ctx.log);
   const collab = createCollab(ctx, [cookieParser(), session, passport.initialize(), passport.session()], collabOptions);
   conformers.on('settled', (moleculeId: number) => collab.refresh({ moleculeId }));
 
@@ -123,7 +134,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   beadTypeRoutes(routes, ctx, (projectId) => collab.refresh({ projectId }));
   chemRoutes(routes, ctx);
   // Threads and notifications share one live hub (server-sent events).
-  const live = new LiveHub();
+  const live = new LiveHub(ctx.redis);
   threadRoutes(routes, ctx, live, jobs, collab);
   notificationRoutes(routes, ctx, live);
   versionRoutes(routes, ctx, collab);
@@ -152,8 +163,11 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
     jobs,
     tasks,
     async close() {
-      await jobs.idle();
+      // Jobs in process run to their end; jobs on BullMQ stay queued for the workers.
+      if (jobs.close) await jobs.close();
+      else await jobs.idle();
       await tasks.idle();
+      live.close();
       await conformers.close();
       await collab.close();
       accessCache.close();

@@ -5,7 +5,7 @@ import type { createCsrf } from './csrf';
 import type passport from 'passport';
 import { typed, validate } from '../http/validate';
 import { changePasswordBody, forgotBody, loginBody, resetBody, updateMeBody, type LoginResponse } from '../../src/shared/auth';
-import { createLoginLimiter } from './rate-limit';
+import { createLoginLimiter, createRedisLoginLimiter } from './rate-limit';
 import { AppError } from '../http/errors';
 import { requireUser } from './access';
 import { buildMe } from './me.service';
@@ -18,7 +18,7 @@ interface AuthDeps {
 }
 
 export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: AuthDeps): void {
-  const limiter = createLoginLimiter(ctx.config);
+  const limiter = ctx.redis ? createRedisLoginLimiter(ctx.config, ctx.redis.commands, (err) => ctx.log.warn({ err }, 'sign-in limits: redis failed')) : createLoginLimiter(ctx.config);
   r.get('/api/auth/csrf', (req, res) => {
     res.json({ token: csrf.issue(req, res) });
   });
@@ -37,12 +37,16 @@ export function authRoutes(r: RouteTable, ctx: AppContext, { csrf, passport }: A
 
   // passport reads the (checked) body itself, so this one validates as a middleware.
   r.post('/api/auth/login', limiter.check, validate({ body: loginBody }), (req: Request, res: Response, next: NextFunction) => {
-    passport.authenticate('local', (err: unknown, user: Express.User | false) => {
-      // Only a wrong password (or unknown e-mail) counts against the limits; see rate-limit.ts.
-      if (err instanceof AppError && err.code === 'invalid_credentials') limiter.failed(req);
-      if (err || !user) return next(err);
-      limiter.succeeded(req);
-      signIn(req, res, next, user);
+    passport.authenticate('local', async (err: unknown, user: Express.User | false) => {
+      try {
+        // Only a wrong password (or unknown e-mail) counts against the limits; see rate-limit.ts.
+        if (err instanceof AppError && err.code === 'invalid_credentials') await limiter.failed(req);
+        if (err || !user) return next(err);
+        await limiter.succeeded(req);
+        signIn(req, res, next, user);
+      } catch (e) {
+        next(e);
+      }
     })(req, res, next);
   });
 

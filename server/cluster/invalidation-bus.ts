@@ -9,6 +9,9 @@
  * missed messages (its Redis subscription was interrupted). Keys and topics are short strings
  * (e.g. topic 'membership', key '12:7').
  */
+/** Live drafts re-read their evaluation inputs; key: JSON of { mappingId?, moleculeId?, projectId? }. */
+export const DRAFT_INPUTS_TOPIC = 'draft-inputs';
+
 export type InvalidationListener = (key: string | null) => void;
 
 export interface InvalidationBus {

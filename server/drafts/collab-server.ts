@@ -23,6 +23,9 @@ import { serveConnection } from './connection';
 import { DEFAULT_COLLAB_OPTIONS, type CollabOptions } from './room-options';
 import { createMariaDbDraftStorage } from './mariadb-draft-storage';
 import { createInProcessRelay } from './in-process-relay';
+import { createRedisRelay } from './redis-relay';
+import { DRAFT_INPUTS_TOPIC } from '../cluster/invalidation-bus';
+import { createRedisEvaluationLease } from './evaluation-lease';
 import { evaluateOnceInThread, threadEvaluation } from './evaluation-thread';
 import { Rooms } from './rooms';
 import { decide, followAccessChanges, redecide, type OpenConnection } from './collab-access';
@@ -34,6 +37,9 @@ export interface Collab extends DraftAccess {
   stored: StoredDrafts;
   close(): Promise<void>;
 }
+
+const REFRESH_TOPIC = DRAFT_INPUTS_TOPIC;
+type RefreshFilter = Parameters<DraftAccess['refresh']>[0];
 
 const PATH = /^\/collab\/([1-9][0-9]{0,9})\/?(?:\?.*)?$/;
 
@@ -50,14 +56,19 @@ function sameOrigin(req: IncomingMessage): boolean {
 
 export function createCollab(ctx: AppContext, middleware: RequestHandler[], options: Partial<CollabOptions> = {}): Collab {
   const opts = { ...DEFAULT_COLLAB_OPTIONS, maxFrameBytes: ctx.config.collabMaxFrameBytes, ...options };
+  const onRelayError = (err: unknown) => ctx.log.error({ err }, 'collab relay listener failed');
+  // Several servers (REDIS_URL): updates, presence and evaluations cross through Redis; one server
+  // evaluates a mapping's edits at a time.
+  const redis = ctx.redis;
   const rooms = new Rooms({
-    storage: createMariaDbDraftStorage(ctx.db, ctx.config.databaseUrl),
-    relay: createInProcessRelay((err) => ctx.log.error({ err }, 'collab relay listener failed')),
+    storage: createMariaDbDraftStorage(ctx.db, ctx.config.databaseUrl, !!redis),
+    relay: redis ? createRedisRelay(redis, onRelayError) : createInProcessRelay(onRelayError),
     evaluation: threadEvaluation,
     loadInputs: (mappingId) => loadEvaluationInputs(ctx.db, mappingId),
     log: ctx.log,
-    instance: randomUUID(),
+    instance: redis?.instance ?? randomUUID(),
     options: opts,
+    ...(redis ? { lease: createRedisEvaluationLease(redis) } : {}),
   });
   // Drafts no room holds, as page loads and thread lists read them: kept while MariaDB's stamp is unchanged.
   const stored = new StoredDrafts(ctx.db, evaluateOnceInThread);
@@ -114,6 +125,20 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
     );
   }
 
+  const refreshHere = (filter: RefreshFilter) => {
+    void rooms.all().then((all) => {
+      for (const room of all) {
+        const hit =
+          (filter.mappingId === undefined || room.id === filter.mappingId) &&
+          (filter.moleculeId === undefined || room.moleculeId === filter.moleculeId) &&
+          (filter.projectId === undefined || room.projectId === filter.projectId);
+        if (hit) void room.refresh().catch((err) => ctx.log.warn({ err }, 'collab refresh failed'));
+      }
+    });
+  };
+  // A null key: this server may have missed refreshes (Redis reconnected): every room re-reads.
+  const unRefresh = ctx.invalidation.subscribe(REFRESH_TOPIC, (key) => refreshHere(key === null ? {} : (JSON.parse(key) as RefreshFilter)));
+
   return {
     handleUpgrade,
     rooms,
@@ -131,19 +156,13 @@ export function createCollab(ctx: AppContext, middleware: RequestHandler[], opti
     },
     storedDerived: (mappingId, name, make) => stored.derived(mappingId, name, make),
     refresh(filter) {
-      void rooms.all().then((all) => {
-        for (const room of all) {
-          const hit =
-            (filter.mappingId === undefined || room.id === filter.mappingId) &&
-            (filter.moleculeId === undefined || room.moleculeId === filter.moleculeId) &&
-            (filter.projectId === undefined || room.projectId === filter.projectId);
-          if (hit) void room.refresh().catch((err) => ctx.log.warn({ err }, 'collab refresh failed'));
-        }
-      });
+      // Every server's rooms of the mapping re-read their inputs (the bus calls this server's at once).
+      ctx.invalidation.publish(REFRESH_TOPIC, JSON.stringify(filter));
     },
     async close() {
       unfollow();
       unCount();
+      unRefresh();
       await rooms.closeAll();
       for (const ws of wss.clients) ws.terminate();
       wss.close();

@@ -33,6 +33,8 @@ export class DraftEvaluator {
   private readonly window: DebounceWindow;
   private stamp = 0;
   private closed = false;
+  /** Set while another server holds the lease: evaluate here if its result has not come by then. */
+  private fallback: NodeJS.Timeout | null = null;
 
   constructor(
     private inputs: EvaluationInputs,
@@ -42,6 +44,8 @@ export class DraftEvaluator {
     private readonly service: EvaluationService,
     delayMs: number,
     maxWaitMs: number,
+    /** Several servers (evaluation-lease.ts): evaluate edits only while holding the mapping's lease. */
+    private readonly lease?: { ttlMs: number; acquire(): Promise<boolean> },
   ) {
     this.window = new DebounceWindow(delayMs, maxWaitMs);
   }
@@ -76,9 +80,21 @@ export class DraftEvaluator {
     return result;
   }
 
+  /**
+   * A result another server (the lease holder) computed and relayed: the newest for peers (latest()),
+   * not taken as current() for this server's revision, which may hold updates the holder has not had yet.
+   */
+  adopt(result: EvaluationResult): void {
+    if (this.closed) return;
+    this.result = result;
+    if (this.fallback) clearTimeout(this.fallback);
+    this.fallback = null;
+  }
+
   close(): void {
     this.closed = true;
     if (this.timer) clearTimeout(this.timer);
+    if (this.fallback) clearTimeout(this.fallback);
     this.timer = null;
     this.service.forget(this.inputs.mappingId);
   }
@@ -110,6 +126,18 @@ export class DraftEvaluator {
     }
   }
 
+  /** Another server evaluates; if no result of its arrives within its lease, ask again (it may be gone). */
+  private awaitHolder(): void {
+    if (this.fallback || !this.lease) return;
+    this.fallback = setTimeout(() => {
+      this.fallback = null;
+      if (this.closed) return;
+      this.revision++;
+      this.noteChange();
+    }, this.lease.ttlMs * 1.5);
+    this.fallback.unref();
+  }
+
   private async run(): Promise<void> {
     this.timer = null;
     this.running = true;
@@ -120,6 +148,13 @@ export class DraftEvaluator {
         if (this.closed) return;
         this.window.take();
         const revision = this.revision;
+        // The room's first evaluation is its own (its peers need numbers at once); edits are
+        // evaluated by the lease holder only.
+        if (this.lease && revision > 0 && !(await this.lease.acquire())) {
+          this.publishedRevision = revision;
+          this.awaitHolder();
+          continue;
+        }
         this.keep(await this.evaluate(this.draft()), revision);
         if (this.closed) return;
         if (this.publishedRevision < this.resultRevision) {

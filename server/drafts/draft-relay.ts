@@ -9,7 +9,15 @@
  * before it in this mapping (`prevSeq`), so a subscriber whose last seen number differs knows it
  * missed something and must read the draft again from storage. The in-process relay
  * (in-process-relay.ts) delivers synchronously, in publish order, and never loses a message.
+ *
+ * The Redis relay (redis-relay.ts) delivers a message to this server's rooms synchronously too, then
+ * to the other servers through the mapping's Redis channel; where it knows messages may have been
+ * lost (a subscription just made, or made again after Redis came back) it says so with a `gap`
+ * message, and the room catches up from storage. With a lease (RoomDeps.lease) one server evaluates a
+ * mapping at a time and relays its results as `evaluation` messages.
  */
+import type { EvaluationResult } from '../mappings/draft-access';
+
 export interface RelayedUpdate {
   kind: 'update';
   mappingId: number;
@@ -33,7 +41,21 @@ export interface RelayedAwareness {
   instance: string;
 }
 
-export type RelayedMessage = RelayedUpdate | RelayedAwareness;
+/** Messages of this mapping may have been lost here: read the stored draft and take what is missing. */
+export interface RelayedGap {
+  kind: 'gap';
+  mappingId: number;
+}
+
+/** The result of the server holding the mapping's evaluation lease, for every server's connections. */
+export interface RelayedEvaluation {
+  kind: 'evaluation';
+  mappingId: number;
+  result: EvaluationResult;
+  instance: string;
+}
+
+export type RelayedMessage = RelayedUpdate | RelayedAwareness | RelayedGap | RelayedEvaluation;
 
 export interface DraftRelay {
   publish(message: RelayedMessage): void;

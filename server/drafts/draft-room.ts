@@ -33,6 +33,8 @@ import { evaluationFrame, restoreFrame, syncUpdateFrame } from './frames';
 import { RoomPresence } from './room-presence';
 import type { CollabOptions } from './room-options';
 import type { Peer } from './peer';
+import type { EvaluationLease } from './evaluation-lease';
+import { SeenSequence } from './seen-sequence';
 
 export interface RoomDeps {
   storage: DraftStorage;
@@ -44,6 +46,8 @@ export interface RoomDeps {
   /** This server's name on the relay. */
   instance: string;
   options: CollabOptions;
+  /** Several servers: the lease that lets one of them evaluate a mapping's edits (evaluation-lease.ts). */
+  lease?: EvaluationLease;
 }
 
 /** The origin of updates that came through the relay from another server. */
@@ -54,8 +58,10 @@ export class DraftRoom {
   closed = false;
   /** Called once the last peer left and the draft was compacted (the registry then drops the room). */
   onEmptied: (() => void) | null = null;
-  /** Relayed updates that did not follow the last one seen (a lost message: this room's draft is behind). */
+  /** Relayed updates whose predecessor this room never had (a lost message: its draft was behind). */
   gaps = 0;
+  /** Catch-ups from storage that found something missing (a gap, or updates stored before the relay's subscription). */
+  caughtUp = 0;
   private readonly shadow: CheckedShadow;
   private readonly presence: RoomPresence;
   private incoming: { peer: Peer; update: Uint8Array }[] = [];
@@ -66,8 +72,9 @@ export class DraftRoom {
   private readonly evaluator: DraftEvaluator;
   private readonly rowTouch: RowTouch;
   private readonly unsubscribe: () => void;
-  /** Sequence number of the last update seen through the relay. */
-  private relayedSeq: number;
+  /** The stored updates this room has. */
+  private readonly seen: SeenSequence;
+  private catchUpQueued = false;
 
   private constructor(
     private readonly deps: RoomDeps,
@@ -79,7 +86,7 @@ export class DraftRoom {
     const { options, log, storage } = deps;
     const mappingId = inputs.mappingId;
     this.shadow = new CheckedShadow(doc, options.maxFrameBytes);
-    this.relayedSeq = lastUpdateId;
+    this.seen = new SeenSequence(lastUpdateId);
     this.compactor = new Compactor(mappingId, doc, storage, lastUpdateId, uncompacted, (err) => log.error({ err, mappingId }, 'compaction failed'));
     this.rowTouch = new RowTouch((beads) => storage.touch(mappingId, beads), (err) => log.warn({ err, mappingId }, 'could not update the mapping row'));
     this.presence = new RoomPresence(doc, this.peers, (update) => deps.relay.publish({ kind: 'awareness', mappingId, update, instance: deps.instance }));
@@ -87,7 +94,9 @@ export class DraftRoom {
     this.compactTimer = setInterval(() => void this.compactor.compact(), options.compactIntervalMs);
     this.compactTimer.unref();
     const onFailure = (err: unknown) => log.error({ err, mappingId }, 'evaluation thread failed');
-    this.evaluator = new DraftEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), onFailure, deps.evaluation, options.evaluationDelayMs, options.evaluationMaxWaitMs);
+    const lease = deps.lease;
+    const evaluationLease = lease && { ttlMs: lease.ttlMs, acquire: () => lease.acquire(mappingId) };
+    this.evaluator = new DraftEvaluator(inputs, () => this.draft(), (r, revision) => this.publishEvaluation(r, revision), onFailure, deps.evaluation, options.evaluationDelayMs, options.evaluationMaxWaitMs, evaluationLease);
     this.evaluator.start();
   }
 
@@ -239,6 +248,7 @@ export class DraftRoom {
     this.closed = true;
     clearInterval(this.compactTimer);
     this.unsubscribe();
+    this.deps.lease?.release(this.id);
     this.rowTouch.close();
     this.evaluator.close();
     this.presence.destroy();
@@ -299,6 +309,12 @@ export class DraftRoom {
   private onRelayed = (message: RelayedMessage): void => {
     if (this.closed) return;
     if (message.kind === 'awareness') return this.presence.relayed(message.update, message.instance === this.deps.instance);
+    if (message.kind === 'gap') return this.queueCatchUp();
+    if (message.kind === 'evaluation') {
+      if (message.instance === this.deps.instance) return;
+      this.evaluator.adopt(message.result);
+      return this.sendAll(this.evaluationFrame(message.result));
+    }
     this.followSequence(message);
     if (message.instance !== this.deps.instance) {
       // Stored and checked by another server's room.
@@ -316,12 +332,53 @@ export class DraftRoom {
   };
 
   private followSequence(message: RelayedUpdate): void {
-    if (message.prevSeq !== this.relayedSeq) {
+    if (!this.seen.has(message.prevSeq)) {
       this.gaps++;
+      // Folding a document that lacks stored updates would drop them: no compaction until caught up.
       this.compactor.blocked = true;
-      this.deps.log.error({ mappingId: this.id, expected: this.relayedSeq, prevSeq: message.prevSeq, seq: message.seq }, 'relayed draft updates are missing');
+      this.deps.log.warn({ mappingId: this.id, prevSeq: message.prevSeq, seq: message.seq }, 'relayed draft updates are missing: catching up from storage');
+      this.queueCatchUp();
     }
-    this.relayedSeq = message.seq;
+    this.seen.note(message.seq);
+  }
+
+  /** One catch-up at a time, on the room's queue (after the updates queued before it). */
+  private queueCatchUp(): void {
+    if (this.catchUpQueued || this.closed) return;
+    this.catchUpQueued = true;
+    void this.serial(async () => {
+      this.catchUpQueued = false;
+      await this.catchUp();
+    });
+  }
+
+  /**
+   * Reads the stored draft and takes what this room's document lacks: applied, sent to every peer,
+   * evaluated. Stored updates are checked ones (every server checks before storing), and applying
+   * what the document already has changes nothing, so this is safe to run at any time.
+   */
+  private async catchUp(): Promise<void> {
+    if (this.closed) return;
+    const stored = await this.deps.storage.load(this.id, this.atomCount);
+    const missing = Y.encodeStateAsUpdate(stored.doc, Y.encodeStateVector(this.doc));
+    stored.doc.destroy();
+    const changes: Uint8Array[] = [];
+    const capture = (update: Uint8Array) => void changes.push(update);
+    this.doc.on('update', capture);
+    try {
+      Y.applyUpdate(this.doc, missing, RELAYED);
+    } finally {
+      this.doc.off('update', capture);
+    }
+    this.seen.raise(stored.lastUpdateId);
+    this.compactor.stored(Math.max(this.compactor.lastUpdateId, stored.lastUpdateId), 0);
+    this.compactor.blocked = false;
+    if (changes.length === 0 || this.closed) return;
+    const update = changes.length === 1 ? changes[0] : Y.mergeUpdates(changes);
+    this.caughtUp++;
+    this.shadow.apply(update);
+    this.evaluator.changed();
+    this.sendAll(syncUpdateFrame(update));
   }
 
   private sendAll(frame: Uint8Array): void {
@@ -330,6 +387,8 @@ export class DraftRoom {
 
   private publishEvaluation(result: EvaluationResult, revision: number): void {
     this.sendAll(this.evaluationFrame(result));
+    // With a lease, this server is the one evaluating edits: the other servers' connections get it too.
+    if (this.deps.lease && revision > 0) this.deps.relay.publish({ kind: 'evaluation', mappingId: this.id, result, instance: this.deps.instance });
     if (revision === 0) return; // the room's first evaluation: nothing was edited
     this.rowTouch.edited(result.evaluation?.beads.length ?? this.draft().beads.length);
   }

@@ -11,7 +11,7 @@ import { evaluateOnceInThread } from './evaluation-thread';
 
 // The snapshot writer lives with the mappings (a new mapping's first snapshot is written there, and
 // this module builds on mappings, not the other way round); re-exported for the storage seam.
-export { writeSnapshot } from '../mappings/draft-snapshots.service';
+export { foldSnapshot, writeSnapshot } from '../mappings/draft-snapshots.service';
 
 // The drafts' queries. Storage of mapping drafts in MariaDB: an append-only table of accepted Yjs updates
 // (mapping_updates, written by update-log.ts) and one compacted snapshot per mapping (mapping_snapshots).

@@ -13,7 +13,19 @@ import { setXyz } from './molecules.service';
 /** Fixed so the same molecule always gets the same conformer (see generateConformer). */
 export const CONFORMER_SEED = 1;
 
-export class ConformerQueue extends EventEmitter {
+/** What the routes and the app ask of the conformer jobs, in process (below) or on BullMQ (bull-conformer-queue.ts). */
+export interface Conformers {
+  enqueue(moleculeId: number): void;
+  /** Jobs ahead of this molecule's; null when not waiting here or not known (BullMQ: the row's status says "queued"). */
+  position(moleculeId: number): number | null;
+  resume(): Promise<void>;
+  idle(): Promise<void>;
+  close(): Promise<void>;
+  /** 'settled' (moleculeId) when a job finished here. */
+  on(event: 'settled', listener: (moleculeId: number) => void): unknown;
+}
+
+export class ConformerQueue extends EventEmitter implements Conformers {
   private waiting: number[] = [];
   private current: Promise<void> | null = null;
   private closed = false;
@@ -75,22 +87,31 @@ export class ConformerQueue extends EventEmitter {
   }
 
   private async run(id: number): Promise<void> {
-    try {
-      const claimed = await this.db('molecules').where({ id }).whereIn('conformer_status', ['queued', 'running']).whereNull('xyz_source').update({ conformer_status: 'running' });
-      if (!claimed) return;
-      const row = await this.db('molecules').where({ id }).first('id', 'model');
-      const xyz = await conformerInThread(parseModel(row), CONFORMER_SEED);
-      if (this.closed) return;
-      // Only if no 3D upload arrived while we worked.
-      const still = await this.db('molecules').where({ id, conformer_status: 'running' }).whereNull('xyz_source').first('id');
-      if (still) await setXyz(this.db, id, xyz, 'conformer');
-    } catch (err) {
-      if (this.closed) return;
-      this.log.warn({ err, moleculeId: id }, 'conformer generation failed');
-      await this.db('molecules')
-        .where({ id })
-        .update({ conformer_status: 'failed', conformer_error: (err as Error).message?.slice(0, 1000) ?? 'unknown error' })
-        .catch(() => undefined);
-    }
+    await computeConformer(this.db, this.log, id, () => this.closed);
+  }
+}
+
+/**
+ * One conformer job: claims the molecule (queued/running, no 3D upload), computes its conformer in the
+ * conformer thread and stores it unless a 3D upload arrived meanwhile; a failure is kept in the row.
+ * The in-process queue and the BullMQ worker (server/worker.ts) both run this.
+ */
+export async function computeConformer(db: Db, log: Pick<Logger, 'warn'>, id: number, stopped: () => boolean = () => false): Promise<void> {
+  try {
+    const claimed = await db('molecules').where({ id }).whereIn('conformer_status', ['queued', 'running']).whereNull('xyz_source').update({ conformer_status: 'running' });
+    if (!claimed) return;
+    const row = await db('molecules').where({ id }).first('id', 'model');
+    const xyz = await conformerInThread(parseModel(row), CONFORMER_SEED);
+    if (stopped()) return;
+    // Only if no 3D upload arrived while we worked.
+    const still = await db('molecules').where({ id, conformer_status: 'running' }).whereNull('xyz_source').first('id');
+    if (still) await setXyz(db, id, xyz, 'conformer');
+  } catch (err) {
+    if (stopped()) return;
+    log.warn({ err, moleculeId: id }, 'conformer generation failed');
+    await db('molecules')
+      .where({ id })
+      .update({ conformer_status: 'failed', conformer_error: (err as Error).message?.slice(0, 1000) ?? 'unknown error' })
+      .catch(() => undefined);
   }
 }

@@ -9,11 +9,11 @@ import { parseInThread } from '../workers/parse-thread';
 import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
 import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, refuseDuplicate, updateMolecule } from './molecules.service';
-import type { ConformerQueue } from './conformer-queue';
+import type { Conformers } from './conformer-queue';
 
 const params = z.object({ id: idParam });
 
-export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: ConformerQueue): void {
+export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Conformers): void {
   const detail = async (id: number) => toDetail(await findMolecule(ctx.db, id, true), conformers.position(id));
 
   r.get('/api/projects/:id/molecules', typed({ params, query: listMoleculesQuery }, async ({ params, query }, req, res) => {

@@ -11,7 +11,7 @@ import { UPLOAD_FIELD, UPLOAD_MAX_BYTES, uploadFields, type UploadResponse } fro
 import { toDetail } from './molecule-view';
 import { findMolecule, isMoleculeOf } from './molecules.service';
 import { attachCoordinates, importRecords, readStructureFile } from './uploads.service';
-import type { ConformerQueue } from './conformer-queue';
+import type { Conformers } from './conformer-queue';
 
 const params = z.object({ id: idParam });
 
@@ -28,7 +28,7 @@ const receiveFile: RequestHandler = (req, res, next) =>
     next(err);
   });
 
-export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: ConformerQueue): void {
+export function uploadRoutes(r: RouteTable, ctx: AppContext, conformers: Conformers): void {
   // Checked before the file is read, so a refused caller never uploads it.
   const authorize = typed({ params }, async ({ params }, req, _res, next) => {
     await authorizeProject(ctx.db, req, params.id, 'molecule:create');
