@@ -7,7 +7,6 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { ensureNginx } from './system-packages';
-import { bin } from './run';
 
 export interface ClusterOptions {
   databaseUrl: string;
@@ -31,6 +30,8 @@ export interface RunningCluster {
   kill(i: number): Promise<void>;
   /** Starts instance i again (after kill). */
   restart(i: number): Promise<void>;
+  /** Process ids of the app instances (null for a killed one), for memory readings. */
+  instancePids(): (number | null)[];
   stop(): Promise<void>;
 }
 
@@ -70,12 +71,14 @@ export async function startCluster(options: ClusterOptions): Promise<RunningClus
       children[i] = c;
       await healthy(`http://127.0.0.1:${instancePorts[i]}`, c);
     },
+    instancePids: () => children.map((c) => c?.pid ?? null),
     stop,
   };
 }
 
 function spawnNode(script: string, env: NodeJS.ProcessEnv, output: 'inherit' | 'ignore'): ChildProcess {
-  return spawn(join(root, bin('tsx')), [script], { cwd: root, env, stdio: ['ignore', output, output], detached: true });
+  // node itself (with tsx's loader), not the tsx wrapper: the pid is the server's (memory, SIGKILL).
+  return spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env, stdio: ['ignore', output, output], detached: true });
 }
 
 /** The nginx of the template, in the foreground (daemon off) so it is our child. */
