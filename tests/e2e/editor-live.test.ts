@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { APIRequestContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import type { Molecule } from '../../src/shared/chem';
 import { browserSession } from '../helpers/browser-session';
+import { addModeller } from '../helpers/second-modeller';
 
 // Issue 4's browser test, through the real client, server, collab socket and MariaDB: two
 // modellers (the demo's, and a second one the supervisor adds) edit one live mapping and each sees
@@ -16,40 +17,12 @@ const session = browserSession();
 const pageErrors = session.errors;
 const signedIn = (email: string, password: string): Promise<Page> => session.signedIn(email, password);
 
-async function api(request: APIRequestContext) {
-  const { token } = await (await request.get('/api/auth/csrf')).json();
-  return {
-    async post(path: string, data: unknown) {
-      const res = await request.post(path, { data, headers: { 'x-csrf-token': token } });
-      expect(res.ok(), `${path}: ${await res.text()}`).toBe(true);
-      return res.json();
-    },
-  };
-}
-
-/** The supervisor adds a second modeller; the invitation's token sets their password. */
-async function addSecondModeller(): Promise<void> {
-  const request = (await session.context()).request;
-  const anon = await api(request);
-  const login = await anon.post('/api/auth/login', { email: 'supervisor@example.org', password: PASSWORD });
-  const projects = await (await request.get('/api/projects')).json();
-  const res = await request.post(`/api/projects/${projects[0].id}/members`, {
-    data: { email: SECOND.email, role: 'modeller', displayName: SECOND.name },
-    headers: { 'x-csrf-token': login.csrfToken },
-  });
-  expect(res.ok(), await res.text()).toBe(true);
-  const invitation = (await session.mail()).find((m) => m.to.includes(SECOND.email))!;
-  const token = /token=([^\s&]+)/.exec(invitation.text)![1];
-  const reset = await request.post('/api/auth/reset', { data: { token, password: SECOND.password }, headers: { 'x-csrf-token': login.csrfToken } });
-  expect(reset.ok(), await reset.text()).toBe(true);
-}
-
 const tag = (page: Page, name: string) => page.locator(`[data-bead-tag="${name}"]`);
 const massOf = (page: Page, bead: string) => page.getByRole('row', { name: `Bead ${bead}` }).locator('[data-column="mass"]');
 
 beforeAll(async () => {
   await session.open();
-  await addSecondModeller();
+  await addModeller(session, SECOND);
 });
 afterAll(() => session.close());
 

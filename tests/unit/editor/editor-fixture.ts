@@ -24,7 +24,7 @@ export function editorFixture(atomCount: number, bonds: Bond[]) {
     activeBead: state.activeBead,
     setActiveBead: (id) => (state.activeBead = id),
     suggestions,
-    ui: { toggleHydrogens() {}, toggleAtomNumbers() {}, toggleAtomColours() {}, fit() {}, zoom() {}, openHelp() {}, startRename: (id) => (state.renamed = id) },
+    ui: { toggleHydrogens() {}, toggleAtomNumbers() {}, toggleAtomColours() {}, fit() {}, zoom() {}, openHelp() {}, startRename: (id) => (state.renamed = id), propose() {} },
   });
   const select = (...atoms: number[]) => (state.selection = new Set(atoms));
   const command = (name: string) => editorCommands.find((c) => c.name === name)!;

@@ -1,10 +1,11 @@
 import { beadCommands } from './bead-commands';
 import { ionCommands } from './ion-commands';
+import { proposalCommands } from './proposal-commands';
 import { historyCommands, selectionCommands, viewCommands } from './other-commands';
 import type { EditorCommand } from './registry';
 
 /** Every editor command, in the order the help overlay lists them. */
-export const editorCommands: readonly EditorCommand[] = [...beadCommands, ...ionCommands, ...selectionCommands, ...historyCommands, ...viewCommands];
+export const editorCommands: readonly EditorCommand[] = [...beadCommands, ...ionCommands, ...proposalCommands, ...selectionCommands, ...historyCommands, ...viewCommands];
 
 export const commandNamed = (name: string): EditorCommand => {
   const found = editorCommands.find((c) => c.name === name);

@@ -33,6 +33,8 @@ export interface EditorUi {
   zoom(factor: number): void;
   openHelp(): void;
   startRename(beadId: string): void;
+  /** Asks for a proposal (the proposal panel's scope). */
+  propose(): void;
 }
 
 export interface KeyLike {

@@ -1,10 +1,11 @@
-import { lazy, Suspense, type KeyboardEvent } from 'react';
+import { lazy, Suspense, type KeyboardEvent, type ReactNode } from 'react';
 import type { BeadTypeRow } from '../../../shared/bead-types';
 import type { Check, Evaluation, Molecule } from '../../../shared/chem';
 import type { SessionSnapshot } from '../collab/mapping-session';
 import type { useEditorState } from '../hooks/use-editor-state';
 import type { MappingView } from '../model/bead-view';
 import type { Peer } from '../model/presence';
+import type { PeerGhosts } from '../model/proposal-ghosts';
 import { BeadInspector } from './bead-inspector';
 import { BeadTable } from './bead-table';
 import { ChecksPanel } from './checks-panel';
@@ -23,6 +24,9 @@ interface EditorLayoutProps {
   state: ReturnType<typeof useEditorState>;
   snapshot: SessionSnapshot;
   peers: readonly Peer[];
+  ghosts: readonly PeerGhosts[];
+  /** The proposal panel (propose, accept, dismiss). */
+  proposals: ReactNode;
   molecule: Molecule;
   view: MappingView;
   evaluation: Evaluation | null;
@@ -65,6 +69,7 @@ export function EditorLayout(p: EditorLayoutProps) {
             selection={state.selection}
             highlight={state.highlight}
             peers={p.peers}
+            ghosts={p.ghosts}
             activeBead={state.activeBead}
             cursor={state.cursor}
             setCursor={state.setCursor}
@@ -80,6 +85,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         </div>
         <div className="flex flex-col gap-3">
           {p.threads?.panel(active ? { id: active.id, name: active.name } : null)}
+          <Panel title="Proposal">{p.proposals}</Panel>
           <Panel title={active ? 'Active bead' : 'Selection'}>
             {active ? (
               <BeadInspector

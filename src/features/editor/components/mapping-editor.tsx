@@ -9,6 +9,8 @@ import { useEditorState } from '../hooks/use-editor-state';
 import { useSessionSnapshot } from '../hooks/use-mapping-session';
 import { useMappingView } from '../hooks/use-mapping-view';
 import { usePeers } from '../hooks/use-peers';
+import { useGhosts } from '../hooks/use-ghosts';
+import { ProposalPanel } from './proposal-panel';
 import { unassignedAtoms } from '../model/bead-view';
 import { markEditorReady, measureCommand } from '../model/perf-marks';
 import { EditorLayout } from './editor-layout';
@@ -29,6 +31,7 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
   const snapshot = useSessionSnapshot(session);
   const view = useMappingView(session.doc, molecule.bonds);
   const peers = usePeers(session, molecule.atoms.length);
+  const ghosts = useGhosts(session, molecule.atoms.length);
   const evaluation = snapshot.evaluation ? snapshot.evaluation.evaluation : mapping.evaluation;
   const readOnly = !mapping.canEdit || snapshot.session === null || snapshot.session.readOnly || !snapshot.synced;
   const suggestions = useMemo(() => new Map(evaluation?.beads.map((b) => [b.id, b.suggestedType]) ?? []), [evaluation]);
@@ -65,6 +68,8 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
       state={state}
       snapshot={snapshot}
       peers={peers}
+      ghosts={ghosts}
+      proposals={<ProposalPanel session={session} mappingId={mapping.id} readOnly={readOnly} ghosts={ghosts} proposeRef={state.proposeRef} />}
       molecule={molecule}
       view={view}
       evaluation={evaluation}

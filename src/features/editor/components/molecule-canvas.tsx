@@ -4,6 +4,8 @@ import { nextAtom, type Direction } from '../model/atom-cursor';
 import type { MappingView } from '../model/bead-view';
 import type { Drawing } from '../../../shared/drawing/layout';
 import type { Peer } from '../model/presence';
+import type { PeerGhosts } from '../model/proposal-ghosts';
+import { GhostLayer } from './ghost-layer';
 import type { Viewport } from '../model/viewport';
 import { AtomColours, AtomNumbers } from './atom-marks-layer';
 import { HighlightLayer } from './highlight-layer';
@@ -19,6 +21,7 @@ interface MoleculeCanvasProps {
   selection: ReadonlySet<number>;
   highlight: readonly number[];
   peers: readonly Peer[];
+  ghosts: readonly PeerGhosts[];
   activeBead: string | null;
   cursor: number | null;
   setCursor(atom: number): void;
@@ -102,6 +105,7 @@ export function MoleculeCanvas(props: MoleculeCanvasProps) {
         {...bind}
       >
         <g transform={transform}>
+          <GhostLayer ghosts={props.ghosts} points={points} />
           <HullTargets view={view} points={points} />
           <AtomTargets drawing={drawing} />
           <BeadTags view={view} points={points} labelled={labelled} />

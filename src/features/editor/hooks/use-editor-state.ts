@@ -26,6 +26,8 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   const [highlight, setHighlight] = useState<number[]>([]);
   const [viewport, setViewport] = useState<Viewport>({ x: 0, y: 0, k: 1 });
   const size = useRef<{ width: number; height: number } | null>(null);
+  // The proposal panel puts its propose action here, so the P shortcut and the toolbar button run it.
+  const proposeRef = useRef<() => void>(() => {});
 
   const drawing = useMemo(() => layoutMolecule(molecule, showHydrogens), [molecule, showHydrogens]);
   const neighbours = useMemo(() => {
@@ -73,6 +75,7 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
       setActiveBead(id);
       setRenaming(id);
     },
+    propose: () => proposeRef.current(),
   }), [fit]);
   // What the toolbar's toggle buttons show as pressed (one stable object per state, for its memo).
   const toggles = useMemo(() => ({ 'toggle-hydrogens': showHydrogens, 'toggle-atom-numbers': showNumbers, 'toggle-atom-colours': colourAtoms }), [showHydrogens, showNumbers, colourAtoms]);
@@ -128,7 +131,7 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   };
 
   return {
-    ctx, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, showNumbers, colourAtoms, toggles, viewport, setViewport, onSize, gestures,
+    ctx, proposeRef, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, showNumbers, colourAtoms, toggles, viewport, setViewport, onSize, gestures,
     selectBead, selectOnly, highlight, setHighlight, helpOpen, setHelpOpen, renaming, endRename,
   };
 }

@@ -1,0 +1,106 @@
+import { useEffect, useId, useState, type RefObject } from 'react';
+import { Button } from '../../../components/ui/button';
+import type { ProposalScope } from '../../../shared/proposals';
+import { useProposeMapping } from '../api/propose-mapping';
+import type { MappingSession } from '../collab/mapping-session';
+import { acceptGhosts, ghostsFrom, withoutGhosts, type GhostBead, type PeerGhosts } from '../model/proposal-ghosts';
+
+interface ProposalPanelProps {
+  session: MappingSession;
+  mappingId: number;
+  readOnly: boolean;
+  ghosts: readonly PeerGhosts[];
+  /** Set to this panel's propose action, so the P shortcut and the toolbar's Propose run it. */
+  proposeRef: RefObject<() => void>;
+}
+
+const SCOPES: { value: ProposalScope; label: string }[] = [
+  { value: 'unassigned', label: 'Unassigned atoms only' },
+  { value: 'all', label: 'Whole molecule' },
+];
+
+/** Propose, then accept or dismiss the proposed beads one by one or all at once. */
+export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef }: ProposalPanelProps) {
+  const [scope, setScope] = useState<ProposalScope>('unassigned');
+  const [note, setNote] = useState<string | null>(null);
+  const propose = useProposeMapping(mappingId);
+  const legend = useId();
+  const own = ghosts.find((g) => g.isLocal)?.proposal ?? null;
+  const others = ghosts.filter((g) => !g.isLocal);
+
+  const run = () => {
+    if (readOnly || propose.isPending) return;
+    setNote(null);
+    propose.mutate(
+      { scope },
+      {
+        onSuccess: ({ proposals }) => {
+          const best = proposals[0];
+          if (!best || best.beads.length === 0) {
+            setNote(scope === 'unassigned' ? 'Every atom already has a bead: nothing to propose.' : 'Nothing to propose.');
+            session.setPresence({ proposal: null });
+          } else session.setPresence({ proposal: ghostsFrom(best, scope) });
+        },
+      },
+    );
+  };
+  useEffect(() => {
+    proposeRef.current = run;
+  });
+
+  const settle = (beads: readonly GhostBead[], accept: boolean) => {
+    if (!own) return;
+    if (accept) acceptGhosts(session.doc, beads, session.origin);
+    session.setPresence({ proposal: withoutGhosts(own, new Set(beads.map((b) => b.key))) });
+  };
+
+  return (
+    <div className="flex flex-col gap-2 text-sm">
+      {!readOnly && (
+        <div className="flex flex-wrap items-end gap-3">
+          <fieldset aria-labelledby={legend} className="flex flex-col gap-1">
+            <span id={legend} className="font-semibold text-ink-800">Propose for</span>
+            {SCOPES.map((s) => (
+              <label key={s.value} className="flex items-center gap-2">
+                <input type="radio" name={`proposal-scope-${legend}`} value={s.value} checked={scope === s.value} onChange={() => setScope(s.value)} />
+                {s.label}
+              </label>
+            ))}
+          </fieldset>
+          <Button size="sm" onClick={run} pending={propose.isPending} pendingText="Proposing…" aria-keyshortcuts="P">
+            Propose
+          </Button>
+        </div>
+      )}
+      {propose.isError && <p role="alert" className="text-alert-700">{propose.error.message}</p>}
+      {note && <p role="status">{note}</p>}
+      {own && (
+        <>
+          <ul aria-label="Proposed beads" className="flex max-h-60 flex-col gap-1 overflow-auto">
+            {own.beads.map((b) => (
+              <li key={b.key} aria-label={`Proposed bead ${b.name}`} className="flex items-center gap-2 rounded border border-dashed border-ink-300 px-2 py-1">
+                <span className="min-w-0 flex-1">
+                  <span className="font-semibold">{b.name}</span> · {b.atoms.length} atom{b.atoms.length === 1 ? '' : 's'}
+                  {b.type ? ` · ${b.type}` : ''}
+                  <span className="block truncate text-xs text-ink-600" title={b.reason}>{b.reason}</span>
+                </span>
+                <Button size="sm" variant="secondary" aria-label={`Accept ${b.name}`} disabled={readOnly} onClick={() => settle([b], true)}>Accept</Button>
+                <Button size="sm" variant="ghost" aria-label={`Dismiss ${b.name}`} onClick={() => settle([b], false)}>Dismiss</Button>
+              </li>
+            ))}
+          </ul>
+          <div className="flex gap-2">
+            <Button size="sm" variant="secondary" disabled={readOnly} onClick={() => settle(own.beads, true)}>Accept all</Button>
+            <Button size="sm" variant="ghost" onClick={() => settle(own.beads, false)}>Dismiss all</Button>
+          </div>
+        </>
+      )}
+      {others.map((g) => (
+        <p key={g.clientId} role="status">
+          {g.user.name} proposes {g.proposal.beads.length} bead{g.proposal.beads.length === 1 ? '' : 's'} (dashed outlines).
+        </p>
+      ))}
+      {!own && others.length === 0 && !note && <p className="text-ink-700">Proposed beads show as dashed outlines for everyone here until accepted or dismissed.</p>}
+    </div>
+  );
+}

@@ -1,0 +1,89 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { browserSession } from '../helpers/browser-session';
+import { addModeller } from '../helpers/second-modeller';
+
+// Issue 17's browser test, through the real client, server, collab socket and MariaDB: one modeller
+// asks for a proposal (the P shortcut), accepts two of its beads and dismisses one, while a second
+// modeller sees the ghosts, then the accepted beads, live; the first modeller's undo takes back the
+// last accept (one transaction, one undo step) for everyone.
+
+const PASSWORD = 'beadloom-demo';
+const SECOND = { email: 'ines.varga@example.org', name: 'Ines Varga', password: 'second-modeller-pass-47' };
+
+const session = browserSession();
+const pageErrors = session.errors;
+
+const tag = (page: Page, name: string) => page.locator(`[data-bead-tag="${name}"]`);
+const ghost = (page: Page, name: string) => page.locator(`[data-ghost="${name}"]`);
+
+beforeAll(async () => {
+  await session.open();
+  await addModeller(session, SECOND);
+});
+afterAll(() => session.close());
+
+describe('proposals in the editor', () => {
+  it('shows one modeller’s proposal to the other live; accepted beads arrive, dismissed ones go', async () => {
+    const first = await session.signedIn('modeller@example.org', PASSWORD);
+    const second = await session.signedIn(SECOND.email, SECOND.password);
+
+    // A fresh, empty mapping of the demo's ibuprofen.
+    const mappingId = await first.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      const ibuprofen = molecules.find((m: { name: string }) => m.name === 'Ibuprofen');
+      const { token } = await (await fetch('/api/auth/csrf')).json();
+      const res = await fetch(`/api/molecules/${ibuprofen.id}/mappings`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'x-csrf-token': token },
+        body: JSON.stringify({ name: 'Proposed live', resolution: '4:1' }),
+      });
+      return (await res.json()).id as number;
+    });
+
+    for (const page of [first, second]) await page.goto(`/mappings/${mappingId}`);
+    await first.locator('[data-connection="live"]').waitFor();
+    await second.locator('[data-connection="live"]').waitFor();
+
+    // The first modeller proposes with the keyboard shortcut (scope: the whole molecule).
+    await first.getByRole('radio', { name: 'Whole molecule' }).check();
+    await first.locator('svg[role="application"]').focus();
+    await first.keyboard.press('p');
+    const proposed = first.getByRole('list', { name: 'Proposed beads' });
+    await proposed.getByRole('listitem').first().waitFor();
+    const count = await proposed.getByRole('listitem').count();
+    expect(count).toBeGreaterThanOrEqual(4);
+
+    // The second modeller sees every ghost, labelled as the first modeller's.
+    await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count(), { timeout: 10_000 }).toBe(count);
+    await second.getByText(`Tomas Brenn proposes ${count} beads`).waitFor();
+
+    // Accept B1 and B2, dismiss B3.
+    await first.getByRole('button', { name: 'Accept B1' }).click();
+    await first.getByRole('button', { name: 'Accept B2' }).click();
+    await first.getByRole('button', { name: 'Dismiss B3' }).click();
+
+    for (const page of [first, second]) {
+      await tag(page, 'B1').waitFor();
+      await tag(page, 'B2').waitFor();
+      await ghost(page, 'B3').waitFor({ state: 'detached' });
+      await ghost(page, 'B1').waitFor({ state: 'detached' });
+    }
+    await expect(tag(second, 'B3').count()).resolves.toBe(0);
+    await expect(ghost(second, 'B4').count()).resolves.toBe(1);
+    await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count()).toBe(count - 3);
+
+    // Undo is the accepting person's: one step takes back the last accept (B2) for everyone.
+    await first.locator('svg[role="application"]').focus();
+    await first.keyboard.press('Control+z');
+    await tag(second, 'B2').waitFor({ state: 'detached' });
+    await expect(tag(second, 'B1').count()).resolves.toBe(1);
+
+    // Dismiss all clears the ghosts for the second modeller too.
+    await first.getByRole('button', { name: 'Dismiss all' }).click();
+    await expect.poll(() => second.locator('[data-ghost-owner]').count()).toBe(0);
+
+    expect(pageErrors).toEqual([]);
+  });
+});
