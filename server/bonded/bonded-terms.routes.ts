@@ -14,7 +14,7 @@ const params = z.object({ id: idParam });
 export function bondedTermRoutes(r: RouteTable, ctx: AppContext, collab: Collab): void {
   r.get('/api/mappings/:id/bonded-terms', typed({ params }, async ({ params }, req, res) => {
     await authorizeMapping(ctx.db, req, params.id, 'mapping:read');
-    res.json(await readBondedTerms(collab, params.id));
+    res.json(await readBondedTerms(ctx.db, collab, params.id));
   }));
 
   r.put('/api/mappings/:id/bonded-terms', typed({ params, body: bondedTermsPutBody }, async ({ params, body }, req, res) => {

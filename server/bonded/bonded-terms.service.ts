@@ -1,11 +1,14 @@
 import type { Db } from '../db/knex';
 import type { DraftAccess } from '../mappings/draft-access';
 import type { Rooms } from '../drafts/rooms';
-import type { BondedParams, BondedTerm, BondedTermsPutBody, BondedTermsView } from '../../src/shared/bonded-terms';
+import type { BondedParams, BondedTerm, BondedTermsPutBody, BondedTermsView, TermKind } from '../../src/shared/bonded-terms';
 import { BEADS_PER_TERM, bondedRows, termKey, topologyTermIds } from '../../src/shared/bonded-terms';
-import type { Mapping, Topology } from '../../src/shared/chem';
+import type { Mapping, Molecule, Topology } from '../../src/shared/chem';
 import { readBonded, setBonded } from '../../src/shared/mapping-doc';
 import { conflict, notFound, unprocessable } from '../http/errors';
+import { junctionOf, junctionTerms, parseUnitRef, unitRef } from '../../src/shared/repeat-chain';
+import { mappingForExport } from '../exports/exports.service';
+import { parseModel } from '../molecules/molecule-view';
 import { assertUnlocked } from '../mappings/mappings.service';
 
 // The bonded-terms table of a mapping's draft. The terms live in the draft document (mapping-doc.ts),
@@ -18,30 +21,49 @@ function topologyOf(result: { evaluation: { topology: Topology } | null; error: 
   return result.evaluation.topology;
 }
 
-export function bondedView(draft: Mapping, topology: Topology): BondedTermsView {
-  const names = new Map(draft.beads.map((b) => [b.id, b.name]));
-  return { terms: bondedRows(topology, draft.bonded ?? {}, (id) => names.get(id) ?? id), exclusions: draft.exclusions ?? null };
+/** The terms across the junction of a repeat unit's chain (none for other molecules). */
+export function junctionTermIds(model: Molecule, draft: Mapping, topology: Topology): { kind: TermKind; ids: string[] }[] {
+  const junction = model.repeatUnit ? junctionOf(model, draft.beads) : null;
+  return junction ? junctionTerms(topology, draft.beads.map((b) => b.id), junction) : [];
 }
 
-export async function readBondedTerms(drafts: DraftAccess, mappingId: number): Promise<BondedTermsView> {
+export function bondedView(draft: Mapping, topology: Topology, junction: { kind: TermKind; ids: string[] }[] = []): BondedTermsView {
+  const names = new Map(draft.beads.map((b) => [b.id, b.name]));
+  const name = (ref: string) => {
+    const { id, unit } = parseUnitRef(ref);
+    return unitRef(names.get(id) ?? id, unit);
+  };
+  return { terms: bondedRows(topology, draft.bonded ?? {}, name, junction), exclusions: draft.exclusions ?? null };
+}
+
+async function moleculeOf(db: Db, mappingId: number): Promise<Molecule> {
+  const row = await mappingForExport(db, mappingId);
+  if (!row) throw notFound('That mapping');
+  return parseModel({ id: row.molecule_id, model: row.model });
+}
+
+export async function readBondedTerms(db: Db, drafts: DraftAccess, mappingId: number): Promise<BondedTermsView> {
   const { draft, result } = await drafts.read(mappingId);
-  return bondedView(draft, topologyOf(result));
+  const topology = topologyOf(result);
+  return bondedView(draft, topology, junctionTermIds(await moleculeOf(db, mappingId), draft, topology));
 }
 
 /** Turns rows named by bead names into stored entries; every problem is named (422 with details). */
-export function entriesOf(draft: Mapping, topology: Topology, terms: readonly BondedTerm[]): Record<string, BondedParams> {
+export function entriesOf(draft: Mapping, topology: Topology, terms: readonly BondedTerm[], junction: { kind: TermKind; ids: string[] }[] = []): Record<string, BondedParams> {
   const byName = new Map<string, string[]>();
   for (const b of draft.beads) byName.set(b.name, [...(byName.get(b.name) ?? []), b.id]);
-  const known = new Set(topologyTermIds(topology).map(({ kind, ids }) => termKey(kind, ids)));
+  const known = new Set([...topologyTermIds(topology), ...junction].map(({ kind, ids }) => termKey(kind, ids)));
   const problems: { term: number; message: string }[] = [];
   const entries: Record<string, BondedParams> = {};
   terms.forEach((t, i) => {
     const ids: string[] = [];
-    for (const name of t.beads) {
+    for (const ref of t.beads) {
+      // "A+" names bead A of the next repeat unit (junction terms); a bead's own name wins if it ends in '+'.
+      const { id: name, unit } = byName.has(ref) ? { id: ref, unit: 0 } : parseUnitRef(ref);
       const found = byName.get(name) ?? [];
       if (found.length === 0) problems.push({ term: i, message: `No bead is named "${name}".` });
       else if (found.length > 1) problems.push({ term: i, message: `${found.length} beads are named "${name}"; rename them apart first.` });
-      else ids.push(found[0]);
+      else ids.push(unitRef(found[0], unit));
     }
     if (ids.length !== BEADS_PER_TERM[t.kind]) return;
     const key = termKey(t.kind, ids);
@@ -65,15 +87,16 @@ export async function writeBondedTerms(db: Db, rooms: Rooms, drafts: DraftAccess
   try {
     const { result } = await drafts.read(mappingId);
     const topology = topologyOf(result);
+    const model = await moleculeOf(db, mappingId);
     await room.editDraft((next, current) => {
-      const entries: Record<string, BondedParams | null> = entriesOf(current, topology, body.terms);
+      const entries: Record<string, BondedParams | null> = entriesOf(current, topology, body.terms, junctionTermIds(model, current, topology));
       for (const key of Object.keys(readBonded(next))) if (!(key in entries)) entries[key] = null;
       setBonded(next, entries, body.exclusions);
     }, userId);
   } finally {
     await room.releaseIfIdle();
   }
-  return readBondedTerms(drafts, mappingId);
+  return readBondedTerms(db, drafts, mappingId);
 }
 
 /**

@@ -107,7 +107,7 @@ export function evaluateMapping(molecule: Molecule, mapping: Mapping, options: E
     heavyAtoms: beads.map((b) => b.heavyAtoms),
     resolution,
   });
-  checks.push(...bondedChecks(mapping, topology));
+  checks.push(...bondedChecks(mapping, topology, molecule));
   return { temperature, resolution, partitionBasis, beads, topology, checks, warnings };
 }
 

@@ -16,8 +16,8 @@ export const ENGINE_TITLES = {
 } as const;
 export type EngineFormat = keyof typeof ENGINE_TITLES;
 
-export function engineFiles(s: ExportSource, format: EngineFormat, library: LibraryNonbonded): TextFile[] {
-  const model = buildCgModel(s);
+export function engineFiles(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1): TextFile[] {
+  const model = buildCgModel(s, units);
   const types = nonbondedTypes(model, library);
   const header = headerLines(s, ENGINE_TITLES[format]);
   const base = slug(s.mappingName);
@@ -44,8 +44,8 @@ export function engineFiles(s: ExportSource, format: EngineFormat, library: Libr
 }
 
 /** The zip of an engine export, as a buffer (the files are small). */
-export async function engineZip(s: ExportSource, format: EngineFormat, library: LibraryNonbonded): Promise<{ name: string; body: Buffer }> {
-  const files = engineFiles(s, format, library);
+export async function engineZip(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1): Promise<{ name: string; body: Buffer }> {
+  const files = engineFiles(s, format, library, units);
   const { ZipArchive } = await import('archiver');
   const zip = new ZipArchive({ zlib: { level: 6 } });
   const chunks: Buffer[] = [];
@@ -54,7 +54,7 @@ export async function engineZip(s: ExportSource, format: EngineFormat, library: 
     zip.on('end', resolve);
     zip.on('error', reject);
   });
-  const folder = `${slug(s.mappingName)}-${stateLabel(s)}-${format}`;
+  const folder = `${slug(s.mappingName)}-${stateLabel(s)}${units > 1 ? `-${units}-units` : ''}-${format}`;
   for (const f of files) zip.append(f.text, { name: `${folder}/${f.name}` });
   await zip.finalize();
   await done;

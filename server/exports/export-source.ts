@@ -24,6 +24,8 @@ export interface ExportSource {
   draft: Mapping;
   evaluation: Evaluation | null;
   model: Molecule;
+  /** The molecule's 3D coordinates (Å, atom-index contract order), null when it has none yet. */
+  xyz: number[][] | null;
   sha256: string;
 }
 
@@ -33,7 +35,7 @@ export const stateLabel = (s: Pick<ExportSource, 'version'>) => (s.version === n
 export async function exportSource(db: Db, drafts: DraftAccess, mappingId: number, ref: VersionRef): Promise<ExportSource> {
   const row = await mappingForExport(db, mappingId);
   if (!row) throw notFound('That mapping');
-  const base = { mappingId, mappingName: row.name as string, moleculeName: row.molecule_name as string, model: parseModel({ id: row.molecule_id, model: row.model }) };
+  const base = { mappingId, mappingName: row.name as string, moleculeName: row.molecule_name as string, model: parseModel({ id: row.molecule_id, model: row.model }), xyz: row.xyz ? (JSON.parse(row.xyz) as number[][]) : null };
   const lock = await lockState(db, mappingId);
   let number: number;
   if (ref === 'draft') {

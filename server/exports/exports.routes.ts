@@ -34,7 +34,7 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     if (isEngineFormat(q.format)) {
       if (q.analysis !== undefined) await analysisForExport(ctx.db, id, q.analysis);
       assertUnits(source, q.units);
-      const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id));
+      const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id), q.units ?? 1);
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader('Content-Disposition', `attachment; filename="${zip.name}"`);
       res.setHeader('X-Content-SHA256', source.sha256);

@@ -8,8 +8,8 @@ import { libraryFor } from '../bead-types/bead-types.service';
 
 /** A mapping with the molecule an export file needs; undefined when the mapping does not exist. */
 export async function mappingForExport(db: Db, mappingId: number) {
-  const row = await mappingsWithMolecule(db).where('p.id', mappingId).first('p.name', 'p.resolution', 'm.id as molecule_id', 'm.name as molecule_name', 'm.model', 'm.canonical_smiles');
-  return row as { name: string; resolution: Resolution; molecule_id: number; molecule_name: string; model: string | null; canonical_smiles: string } | undefined;
+  const row = await mappingsWithMolecule(db).where('p.id', mappingId).first('p.name', 'p.resolution', 'm.id as molecule_id', 'm.name as molecule_name', 'm.model', 'm.xyz', 'm.canonical_smiles');
+  return row as { name: string; resolution: Resolution; molecule_id: number; molecule_name: string; model: string | null; xyz: string | null; canonical_smiles: string } | undefined;
 }
 
 /** Every mapping of a project in download order, with whether it has a locked production version. */

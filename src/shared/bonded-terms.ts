@@ -126,9 +126,9 @@ export function topologyTermIds(topology: { bonds: string[][]; angles: string[][
  * nothing is stored), then the stored impropers. Stored entries for terms the topology no longer has
  * (a bead was split or merged) are not listed; they stay in the draft and come back with the bonds.
  */
-export function bondedRows(topology: { bonds: string[][]; angles: string[][]; dihedrals: string[][] }, stored: Readonly<Record<string, BondedParams>>, beadName: (id: string) => string): BondedTerm[] {
+export function bondedRows(topology: { bonds: string[][]; angles: string[][]; dihedrals: string[][] }, stored: Readonly<Record<string, BondedParams>>, beadName: (id: string) => string, junction: readonly { kind: TermKind; ids: string[] }[] = []): BondedTerm[] {
   const rows: BondedTerm[] = [];
-  for (const { kind, ids } of topologyTermIds(topology)) {
+  for (const { kind, ids } of [...topologyTermIds(topology), ...junction]) {
     const p = stored[termKey(kind, ids)];
     const canonical = parseTermKey(termKey(kind, ids))!.ids;
     rows.push({ kind, beads: canonical.map(beadName), ...(p ?? { function: defaultFunction(kind), value: null, k: null }) });

@@ -48,15 +48,21 @@ async function evaluated(mappingId: number) {
 }
 
 /** Fills the table at the starting geometry, saves a version and downloads both engine zips into folders. */
-async function exportBoth(f: Fixture, label: string, options: Parameters<typeof termsAtGeometry>[2] = {}, exclusions = 1): Promise<{ gromacs: string; lammps: string; version: number }> {
+async function exportBoth(f: Fixture, label: string, options: Parameters<typeof termsAtGeometry>[2] = {}, exclusions = 1, chain?: { units: number; shift: Vec3 }): Promise<{ gromacs: string; lammps: string; version: number }> {
   const evaluation = await evaluated(f.mappingId);
-  const centre = (name: string): Vec3 => evaluation.beads.find((b) => b.name === name)!.centre!;
+  // "A++" is bead A two units on: its centre moved twice by the chain's shift.
+  const centre = (ref: string): Vec3 => {
+    const u = /\+*$/.exec(ref)![0].length;
+    const c = evaluation.beads.find((b) => b.name === ref.slice(0, ref.length - u))!.centre!;
+    const d = chain?.shift ?? [0, 0, 0];
+    return [c[0] + u * d[0], c[1] + u * d[1], c[2] + u * d[2]];
+  };
   const rows: BondedTerm[] = (await modeller.get(`/api/mappings/${f.mappingId}/bonded-terms`).expect(200)).body.terms;
   await modeller.put(`/api/mappings/${f.mappingId}/bonded-terms`, { terms: termsAtGeometry(rows, centre, options), exclusions }).expect(200);
   const version = (await modeller.post(`/api/mappings/${f.mappingId}/versions`, { message: 'for the engines' }).expect(201)).body.number as number;
   const out = { version, gromacs: '', lammps: '' };
   for (const format of ['gromacs', 'lammps'] as const) {
-    const res = await binary(modeller.get(`/api/mappings/${f.mappingId}/export?format=${format}&version=${version}`)).expect(200);
+    const res = await binary(modeller.get(`/api/mappings/${f.mappingId}/export?format=${format}&version=${version}${chain ? `&units=${chain.units}` : ''}`)).expect(200);
     expect(res.headers['content-type']).toBe('application/zip');
     const zip = await JSZip.loadAsync(res.body);
     const dir = join(work, `${label}-${format}`);
@@ -208,5 +214,45 @@ describe('engine exports run in the engines', () => {
     expect(readFileSync(join(dirs.gromacs, 'sodiu.itp'), 'utf8')).toMatch(/COO\s+2\s+-1\.0\s/);
     grompp(dirs.gromacs, 'salt');
     bondsWithin5Percent(lammps(dirs.lammps, 'salt'), 'salt');
+  }, 600_000);
+
+  it('a 10-unit chain from a mapped repeat unit (*OCCOCC*, two beads a unit, terms across each junction)', async () => {
+    const f = await mappedMolecule(t.ctx.db, 'EO2 unit', '*OCCOCC*', (m) => {
+      const points = new Set(m.attachmentPoints);
+      const head = neighbours(m, m.attachmentPoints![0])[0];
+      const order = [head];
+      for (;;) {
+        const next = neighbours(m, order[order.length - 1]).filter((n) => !points.has(n) && !order.includes(n));
+        if (next.length === 0) break;
+        order.push(next[0]);
+      }
+      return [
+        { name: 'A', type: 'eo', atoms: order.slice(0, 3) },
+        { name: 'B', type: 'eo', atoms: order.slice(3) },
+      ];
+    });
+    // The junction terms are listed with the next units' beads marked '+'.
+    const rows: BondedTerm[] = (await modeller.get(`/api/mappings/${f.mappingId}/bonded-terms`).expect(200)).body.terms;
+    await evaluated(f.mappingId);
+    const listed = (await modeller.get(`/api/mappings/${f.mappingId}/bonded-terms`).expect(200)).body.terms.map((x: BondedTerm) => `${x.kind} ${x.beads.join('-')}`);
+    expect(listed).toEqual(['bond A-B', 'bond A+-B', 'angle A-B-A+', 'angle B-A+-B+', 'dihedral A++-B+-A+-B', 'dihedral A-B-A+-B+']);
+    expect(rows.length).toBeGreaterThan(0);
+    // The chain lies along the vector from the head atom to the second attachment point.
+    const xyz = JSON.parse((await t.ctx.db('molecules').where({ id: f.moleculeId }).first('xyz')).xyz) as number[][];
+    const head = neighbours(f.model, f.model.attachmentPoints![0])[0];
+    const a2 = f.model.attachmentPoints![1];
+    const shift: Vec3 = [0, 1, 2].map((d) => xyz[a2][d] - xyz[head][d]) as Vec3;
+    for (const units of [0, 201]) expect((await modeller.get(`/api/mappings/${f.mappingId}/export?format=gromacs&units=${units}`).expect(422)).body.error.code).toBe('units_out_of_range');
+    // Dihedrals of a straight chain are ill-defined (angles near 180°): left out, as a modeller would.
+    const dirs = await exportBoth(f, 'chain', { omit: (x) => x.kind === 'dihedral' }, 1, { units: 10, shift });
+    const gro = readFileSync(join(dirs.gromacs, 'conf.gro'), 'utf8').split('\n');
+    expect(Number(gro[1])).toBe(20);
+    expect(gro[21].slice(0, 10)).toBe('   10EO2un');
+    const itp = readFileSync(join(dirs.gromacs, 'eo2un.itp'), 'utf8');
+    const section = (name: string) => itp.split(`[ ${name} ]`)[1]?.split('\n\n')[0].split('\n').filter((l) => /^\d/.test(l)) ?? [];
+    expect(section('bonds')).toHaveLength(19); // 10 within units + 9 junctions
+    expect(section('angles')).toHaveLength(18); // 9 A-B-A+ and 9 B-A+-B+
+    grompp(dirs.gromacs, 'chain');
+    bondsWithin5Percent(lammps(dirs.lammps, 'chain'), 'chain');
   }, 600_000);
 });

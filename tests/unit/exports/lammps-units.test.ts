@@ -36,8 +36,8 @@ describe('kJ mol⁻¹ nm⁻² → kcal mol⁻¹ Å⁻²', () => {
           nrexcl: 1,
           exclusions: [],
           beads: [
-            { name: 'A', type: 'T', mass: 72, charge: 0, xyz: [1, 1, 1] },
-            { name: 'B', type: 'T', mass: 72, charge: 0, xyz: [1 + r0 + stretch, 1, 1] },
+            { name: 'A', residue: 1, type: 'T', mass: 72, charge: 0, xyz: [1, 1, 1] },
+            { name: 'B', residue: 1, type: 'T', mass: 72, charge: 0, xyz: [1 + r0 + stretch, 1, 1] },
           ],
           terms: [{ kind: 'bond', beads: [0, 1], params: { function: 'harmonic', value: r0, k } }],
         },
