@@ -115,7 +115,7 @@ try {
   const [clusterDb, singleDb] = dbs;
   const firstMapping = async (db: typeof clusterDb) => (await db('mappings').orderBy('id').first('id')).id as number;
   // The demo molecules' conformer jobs run first (a worker, and the single instance's own queue): measure after.
-  const cluster = await startCluster({ databaseUrl: mariadb.url, redisUrl: redis.url, port: await freePort(), instances: 2, workers: 1, dir: join(dir, 'nginx'), env: { SESSION_SECRET: secret, LOG_LEVEL: 'silent', CLIENT_DIR: join(dir, 'none') } });
+  const cluster = await startCluster({ databaseUrl: mariadb.url, redisUrl: redis.url, port: await freePort(), instances: 2, workers: 1, dir: join(dir, 'nginx'), env: { SESSION_SECRET: secret, LOG_LEVEL: 'silent', CLIENT_DIR: join(dir, 'none'), BEADLOOM_DATA_DIR: join(dir, 'files') } });
   stops.push(() => cluster.stop());
   const single = await child(['tests/helpers/server-child.ts'], { DATABASE_URL: singleUrl, SESSION_SECRET: secret, PORT: '0', LOG_LEVEL: 'silent', CLIENT_DIR: '' });
   stops.push(async () => single.proc.kill('SIGTERM'));

@@ -23,7 +23,7 @@ import { devMailMounted, devMailRoutes } from './mail/dev-mail.routes';
 import { uploadRoutes } from './molecules/uploads.routes';
 import { ConformerQueue, type Conformers } from './molecules/conformer-queue';
 import { BullConformerQueue } from './molecules/bull-conformer-queue';
-import { createBullJobQueue } from './jobs/bull-queues';
+import { createBullJobQueue, createBullTasks } from './jobs/bull-queues';
 import { mappingRoutes } from './mappings/mappings.routes';
 import { mappingStarts } from './proposals/proposals.service';
 import { proposalRoutes } from './proposals/proposals.routes';
@@ -142,7 +142,8 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   auditRoutes(routes, ctx);
   exportRoutes(routes, ctx, collab);
   bondedTermRoutes(routes, ctx, collab);
-  const tasks = createInProcessTasks(ctx.log);
+  // Reference matching and analyses: in process, or on BullMQ for the workers (REDIS_URL).
+  const tasks: BackgroundTasks & { close?(): Promise<void> } = ctx.config.redisUrl ? createBullTasks(ctx.config.redisUrl, ctx.log) : createInProcessTasks(ctx.log);
   referenceRoutes(routes, ctx, tasks);
   analysisRoutes(routes, ctx, collab, tasks);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
@@ -166,7 +167,8 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
       // Jobs in process run to their end; jobs on BullMQ stay queued for the workers.
       if (jobs.close) await jobs.close();
       else await jobs.idle();
-      await tasks.idle();
+      if (tasks.close) await tasks.close();
+      else await tasks.idle();
       live.close();
       await conformers.close();
       await collab.close();

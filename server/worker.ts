@@ -1,6 +1,7 @@
 // `npm run worker`: a job worker for several app servers (REDIS_URL set; docs/scaling.md). It takes
-// outgoing mail and conformer jobs from the BullMQ queues (jobs/bull-queues.ts) and runs them with the
-// same code the single server runs in process; chemistry runs in worker threads as there. Settings
+// outgoing mail, conformer, reference-matching and analysis jobs from the BullMQ queues
+// (jobs/bull-queues.ts) and runs them with the same code the single server runs in process; the heavy
+// work runs in worker threads as there, and progress and cancellation go through MariaDB rows. Settings
 // come from the environment, as for the app servers (DATABASE_URL, REDIS_URL, SMTP_URL, …).
 // Run as many as the jobs need; SIGTERM lets running jobs finish (BullMQ hands unfinished ones to
 // another worker when this one dies).
@@ -17,6 +18,8 @@ import { bullConnection, QUEUES } from './jobs/bull-queues';
 import type { Job } from './jobs/job-queue';
 import { computeConformer } from './molecules/conformer-queue';
 import { stopConformerThread } from './molecules/conformer-thread';
+import { matchJobHooks, matchJobRunner, type MatchJobData } from './references/match-job';
+import { analysisJobHooks, analysisJobRunner } from './analyses/analysis-job';
 
 export interface RunningWorker {
   stop(): Promise<void>;
@@ -32,7 +35,7 @@ export async function startWorker(config: Config): Promise<RunningWorker> {
   const mailer = createMailer(config.smtpUrl ?? (sink as MailSink).url, config.mailFrom);
   const cluster = await connectCluster(config.redisUrl, log);
   const connection = bullConnection(config.redisUrl);
-  const workers = [
+  const workers: Worker[] = [
     new Worker<Job>(QUEUES.mail, async (job) => mailer.send(job.data.mail), { connection, concurrency: 4 }),
     new Worker<{ moleculeId: number }>(
       QUEUES.conformers,
@@ -44,6 +47,24 @@ export async function startWorker(config: Config): Promise<RunningWorker> {
       { connection, concurrency: 1 },
     ),
   ];
+  // Long jobs by kind: the runner and its hooks, built here from the job's data (background-task.ts).
+  const runMatch = matchJobRunner(db, config.dataDir);
+  const runAnalysis = analysisJobRunner(db, config.dataDir);
+  const tasks: Record<string, (data: never) => Promise<void>> = {
+    'reference-match': (data: MatchJobData) => runMatch(data, matchJobHooks(db, data.referenceId)),
+    analysis: (data: Parameters<typeof runAnalysis>[0]) => runAnalysis(data, analysisJobHooks(db, data.analysisId)),
+  };
+  workers.push(
+    new Worker(
+      QUEUES.tasks,
+      async (job) => {
+        const run = tasks[job.name];
+        if (!run) throw new Error(`no runner for the job kind ${job.name}`);
+        await run(job.data as never);
+      },
+      { connection, concurrency: 1 },
+    ),
+  );
   for (const w of workers) w.on('failed', (job, err) => log.error({ err, queue: w.name, job: job?.id }, 'job failed'));
   await Promise.all(workers.map((w) => w.waitUntilReady()));
   log.info({ queues: workers.map((w) => w.name) }, 'worker ready');

@@ -18,8 +18,8 @@ import { slug } from '../exports/render';
 import { findReference } from '../references/references.service';
 import { analysisDir, removeDir } from '../references/reference-files';
 import { planAnalysis } from './analysis-plan';
-import { analysisJobRunner } from './analysis-job';
-import { analysesOf, cancelRequested, deleteAnalysis, findAnalysis, insertAnalysis, projectOfAnalysis, requestCancel, setAnalysisProgress, toAnalysisView } from './analyses.service';
+import { analysisJobHooks, analysisJobRunner } from './analysis-job';
+import { analysesOf, deleteAnalysis, findAnalysis, insertAnalysis, projectOfAnalysis, requestCancel, toAnalysisView } from './analyses.service';
 import { termsCsv } from './terms-csv';
 import { writeCgGro, writeCgPdb, writeCgTrr } from './cg-trajectory';
 
@@ -39,10 +39,7 @@ async function authorizeAnalysis(ctx: AppContext, req: Request, id: number, acti
 export function analysisRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess, tasks: BackgroundTasks): void {
   const run = analysisJobRunner(ctx.db, ctx.config.dataDir);
   const start = (id: number) =>
-    tasks.start('analysis', run, { analysisId: id }, {
-      reportProgress: (done, total) => setAnalysisProgress(ctx.db, id, { done, total }),
-      isCancelled: () => cancelRequested(ctx.db, id),
-    });
+    tasks.start('analysis', run, { analysisId: id }, analysisJobHooks(ctx.db, id));
 
   r.post('/api/mappings/:id/analyses', typed({ params, body: analysisBody }, async ({ params, body }, req, res) => {
     const user = requireUser(req);

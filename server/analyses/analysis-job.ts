@@ -9,7 +9,7 @@ import { findReference } from '../references/references.service';
 import type { AnalysisPart, AnalysisTask } from './analysis-task';
 import type { AnalysisPlan } from './analysis-plan';
 import { buildResult } from './analysis-result';
-import { analysisFinished, analysisStarted, analysisStopped, findAnalysis } from './analyses.service';
+import { analysisFinished, analysisStarted, analysisStopped, cancelRequested, findAnalysis, setAnalysisProgress } from './analyses.service';
 
 // The analysis job: plain data (which analysis) and a runner. Two threads (the machine's two cores;
 // frames are independent) each take half of the trajectory in chunks; their bead centres go to
@@ -90,5 +90,13 @@ export function analysisJobRunner(db: Db, dataDir: string): TaskRunner<AnalysisJ
       else if (err instanceof TaskFailed) await analysisStopped(db, analysisId, 'failed', err.code ?? 'analysis_failed', err.message);
       else await analysisStopped(db, analysisId, 'failed', 'analysis_failed', `The analysis stopped: ${(err as Error).message}`);
     }
+  };
+}
+
+/** The job's progress and cancel flag, in MariaDB: the same from the app server that started it or a worker process. */
+export function analysisJobHooks(db: Db, analysisId: number): TaskHooks {
+  return {
+    reportProgress: (done, total) => setAnalysisProgress(db, analysisId, { done, total }),
+    isCancelled: () => cancelRequested(db, analysisId),
   };
 }

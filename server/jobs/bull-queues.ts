@@ -1,17 +1,21 @@
 import { Queue, QueueEvents, type JobsOptions } from 'bullmq';
 import type { Logger } from 'pino';
 import type { Job, JobQueue } from './job-queue';
+import type { BackgroundTasks } from './background-task';
 
 /**
  * The BullMQ side of the job seam (REDIS_URL set): jobs go to Redis queues and run in `npm run worker`
  * processes (server/worker.ts), any number of them, on any machine that sees the same Redis, MariaDB
  * and data folder. Names of the queues and what their jobs carry (plain JSON):
  *   beadloom-mail        a Job of job-queue.ts ({ kind: 'mail', mail, about })
- *   beadloom-conformers  { moleculeId } (the job id is the molecule's, so it is queued once)
+ *   beadloom-conformers  { moleculeId }
+ *   beadloom-tasks       the long jobs of background-task.ts, the job's name being its kind
+ *                        ('reference-match' { referenceId }, 'analysis' { analysisId }); tried once,
+ *                        since the runner records its own failure (and progress, cancellation) in MariaDB
  * A job that fails is tried again with a back-off (`attempts`); what it did is kept in MariaDB rows, not
  * in Redis, so a lost Redis loses queued work, never results (docs/scaling.md).
  */
-export const QUEUES = { mail: 'beadloom-mail', conformers: 'beadloom-conformers' } as const;
+export const QUEUES = { mail: 'beadloom-mail', conformers: 'beadloom-conformers', tasks: 'beadloom-tasks' } as const;
 
 export const bullConnection = (redisUrl: string) => ({ url: redisUrl, maxRetriesPerRequest: null });
 
@@ -35,9 +39,10 @@ export class BullProducer<T> {
     this.events = new QueueEvents(name, { connection: bullConnection(redisUrl) });
   }
 
-  add(data: T, jobId?: string): void {
+  add(data: T, options: JobsOptions & { name?: string } = {}): void {
+    const { name, ...jobOptions } = options;
     const done = this.queue
-      .add(this.queue.name, data, jobId ? { jobId } : {})
+      .add(name ?? this.queue.name, data, jobOptions)
       .then((job) => job.waitUntilFinished(this.events).catch(() => undefined))
       .catch((err: unknown) => this.log.error({ err, queue: this.queue.name }, 'could not queue a job'))
       .finally(() => this.pending.delete(done));
@@ -61,5 +66,19 @@ export function createBullJobQueue(redisUrl: string, log: Pick<Logger, 'error'>)
     enqueue: (job) => mail.add(job),
     idle: () => mail.idle(),
     close: () => mail.close(),
+  };
+}
+
+/**
+ * Long jobs on BullMQ: `start` queues the kind and its data; the worker process builds the runner and
+ * its hooks (progress, cancellation: MariaDB rows) from the kind (server/worker.ts), so the runner and
+ * hooks passed here are not sent. `idle()` waits for the jobs this process started.
+ */
+export function createBullTasks(redisUrl: string, log: Pick<Logger, 'error'>): BackgroundTasks & { close(): Promise<void> } {
+  const tasks = new BullProducer<unknown>(QUEUES.tasks, redisUrl, log);
+  return {
+    start: (kind, _runner, data) => tasks.add(data, { name: kind, attempts: 1 }),
+    idle: () => tasks.idle(),
+    close: () => tasks.close(),
   };
 }

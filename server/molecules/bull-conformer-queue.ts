@@ -23,7 +23,7 @@ export class BullConformerQueue extends EventEmitter implements Conformers {
   }
 
   enqueue(moleculeId: number): void {
-    this.producer.add({ moleculeId }, `conformer-${moleculeId}-${Date.now()}`);
+    this.producer.add({ moleculeId });
   }
 
   position(): number | null {

@@ -6,7 +6,7 @@ import type { TaskHooks, TaskRunner } from '../jobs/background-task';
 import { runTaskThread, TaskFailed } from '../workers/task-thread';
 import type { MatchResult, MatchTask } from './match-reference';
 import { referenceDir, removeDir } from './reference-files';
-import { findReference, moleculeForReference, referenceFailed, referenceMatched, setReferenceState } from './references.service';
+import { findReference, moleculeForReference, referenceFailed, referenceMatched, setReferenceProgress, setReferenceState } from './references.service';
 
 // The reference matching job: plain data (which reference) and a runner that does the work in a
 // thread (match-worker.ts) and records state, progress (per mille) and the outcome in MariaDB.
@@ -50,5 +50,13 @@ export function matchJobRunner(db: Db, dataDir: string): TaskRunner<MatchJobData
       // A refused reference keeps its row (so everyone sees why) but none of its files.
       await removeDir(dir);
     }
+  };
+}
+
+/** The job's progress, and "cancelled" when the reference was deleted meanwhile, in MariaDB (any process). */
+export function matchJobHooks(db: Db, referenceId: number): TaskHooks {
+  return {
+    reportProgress: (done, total) => setReferenceProgress(db, referenceId, { done, total }),
+    isCancelled: async () => !(await findReference(db, referenceId)),
   };
 }

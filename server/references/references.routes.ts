@@ -14,8 +14,8 @@ import { authorizeMolecule } from '../molecules/molecule-access';
 import { structureFormatOf, trajectoryFormatOf } from './formats';
 import { adoptUpload, analysisDir, referenceDir, removeDir } from './reference-files';
 import { discardUploads, quotaExceeded, referenceUpload, uploadedFiles } from './reference-upload';
-import { deleteReference, findReference, insertReference, projectBytes, referencesOf, setReferenceProgress, toReferenceView } from './references.service';
-import { matchJobRunner } from './match-job';
+import { deleteReference, findReference, insertReference, projectBytes, referencesOf, toReferenceView } from './references.service';
+import { matchJobHooks, matchJobRunner } from './match-job';
 
 const params = z.object({ id: idParam });
 
@@ -85,10 +85,7 @@ export function referenceRoutes(r: RouteTable, ctx: AppContext, tasks: Backgroun
       const dir = referenceDir(dataDir, id);
       await adoptUpload(structure.path, dir, `structure.${structureFormat}`);
       if (trajectory) await adoptUpload(trajectory.path, dir, `trajectory.${trajectoryFormat}`);
-      tasks.start('reference-match', runMatch, { referenceId: id }, {
-        reportProgress: (done, total) => setReferenceProgress(ctx.db, id, { done, total }),
-        isCancelled: async () => !(await findReference(ctx.db, id)),
-      });
+      tasks.start('reference-match', runMatch, { referenceId: id }, matchJobHooks(ctx.db, id));
       res.status(202).json({ id, status: 'queued' });
     } finally {
       await discardUploads(req);

@@ -9,9 +9,14 @@ import { freePort } from '../../scripts/lib/free-port';
 import { createTestDatabase, type TestDatabase } from '../helpers/db';
 import { seedDemo } from '../../seeds/demo';
 import { connectClient, signInOverHttp, synced, until, type CollabClient } from '../helpers/collab-client';
-import { createAccount, demoMappingId, demoProjectId } from '../helpers/fixtures';
+import { createAccount, createMolecule, demoMappingId, demoProjectId } from '../helpers/fixtures';
+import type { AnalysisView } from '../../src/shared/references';
 import { beadsOf, createBead } from '../../src/shared/mapping-doc';
 import { QUEUES, bullConnection } from '../../server/jobs/bull-queues';
+import { groText, makeSystem } from '../helpers/reference-systems';
+import { generateConformer } from '../../server/chem/index';
+import { createMapping } from '../../server/mappings/mappings.service';
+import type { Molecule } from '../../src/shared/chem';
 
 // Issue 18: two app instances (A, B) and one job worker on one MariaDB and one Redis, behind nginx
 // (scripts/cluster/nginx.conf.template), each a real process started once for this file by
@@ -58,7 +63,7 @@ beforeAll(async () => {
     workers: 1,
     dir: join(dir, 'nginx'),
     output: process.env.CLUSTER_OUTPUT === 'inherit' ? 'inherit' : 'ignore',
-    env: { SESSION_SECRET: 'cluster-test-secret-that-is-long-enough-0123', LOG_LEVEL: 'warn', CLIENT_DIR: join(dir, 'no-client'), LOGIN_LIMIT_IP: '1000' },
+    env: { SESSION_SECRET: 'cluster-test-secret-that-is-long-enough-0123', LOG_LEVEL: 'warn', CLIENT_DIR: join(dir, 'no-client'), LOGIN_LIMIT_IP: '1000', BEADLOOM_DATA_DIR: join(dir, 'files') },
   });
   [A, B] = cluster.instanceUrls;
 }, 120_000);
@@ -138,6 +143,49 @@ describe('two app servers behind nginx', () => {
     await queue.close();
     expect(completed.some((j) => j.data.moleculeId === id && j.finishedOn !== undefined)).toBe(true);
   }, 90_000);
+
+  it('reference matching and an analysis started through A run on the worker; B shows their progress', async () => {
+    const sup = await signInOverHttp(A, 'modeller@example.org');
+    const post = (path: string, body: BodyInit, json = true) =>
+      fetch(`${A}${path}`, { method: 'POST', headers: { cookie: sup.cookie, 'x-csrf-token': sup.csrfToken, ...(json ? { 'content-type': 'application/json' } : {}) }, body });
+    const onB = async <T>(path: string) => (await (await fetch(`${B}${path}`, { headers: { cookie: sup.cookie } })).json()) as T;
+    // An invented surfactant and a synthetic trajectory of 8 copies (tests/helpers/reference-systems.ts).
+    const moleculeId = await createMolecule(database.db, projectId, 'Invented surfactant', 'CCCCCCOCCOCCO');
+    const mol = JSON.parse((await database.db('molecules').where({ id: moleculeId }).first('model')).model) as Molecule;
+    const sys = makeSystem(mol, await generateConformer(mol, { seed: 3 }), { copies: 8, frames: 200, boxA: 40, noiseA: 0.06, seed: 5, residue: 'SUR', solvent: 10 });
+    const beads = [[0, 1, 2], [3, 4, 5], [6, 7, 8], [9, 10, 11, 12]].map((atoms, i) => ({ id: `b${i}`, name: `B${i}`, centre: 'mass' as const, atoms: atoms.map((index) => ({ index, weight: 1 })) }));
+    const mapping = await createMapping(database.db, moleculeId, { name: 'Surfactant 3:1', resolution: '3:1' }, null as unknown as number, { beads });
+    expect((await post(`/api/mappings/${mapping}/versions`, JSON.stringify({ message: 'For the reference' }))).status).toBe(201);
+
+    const form = new FormData();
+    form.append('structure', new Blob([groText(sys, sys.frames.slice(0, 1))]), 'box.gro');
+    form.append('trajectory', new Blob([groText(sys)]), 'traj.gro');
+    const upload = await post(`/api/molecules/${moleculeId}/references`, form, false);
+    expect(upload.status).toBe(202);
+    const referenceId = ((await upload.json()) as { id: number }).id;
+    await until('the reference matched (on the worker), seen through B', async () => (await onB<{ status: string }>(`/api/references/${referenceId}`)).status === 'ready', 60_000);
+
+    const started = await post(`/api/mappings/${mapping}/analyses`, JSON.stringify({ referenceId, version: 1 }));
+    expect(started.status).toBe(202);
+    const analysisId = ((await started.json()) as { id: number }).id;
+    const seen: string[] = [];
+    await until(
+      'the analysis done, seen through B',
+      async () => {
+        const view = await onB<AnalysisView>(`/api/analyses/${analysisId}`);
+        seen.push(`${view.status} ${view.progress.done}/${view.progress.total}`);
+        return view.status === 'done';
+      },
+      60_000,
+    );
+    expect(seen.at(-1)).toBe('done 200/200');
+    expect(seen.length).toBeGreaterThan(1); // B saw it before it was done (queued or running)
+    // Both jobs went through BullMQ's task queue and finished there (only workers take jobs from it).
+    const queue = new Queue(QUEUES.tasks, { connection: bullConnection(redis.url) });
+    const finished = (await queue.getCompleted()).map((j) => `${j.name} ${JSON.stringify(j.data)}`);
+    await queue.close();
+    expect(finished).toEqual(expect.arrayContaining([`reference-match {"referenceId":${referenceId}}`, `analysis {"analysisId":${analysisId}}`]));
+  }, 120_000);
 
   it('sign-in limits are shared: failures on A block the next attempt on B', async () => {
     const attempt = async (url: string) => {
