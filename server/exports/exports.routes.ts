@@ -7,7 +7,7 @@ import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
 import { exportQuery, importBody, isEngineFormat, IMPORT_MAX_BYTES, type ExportFormat, type ImportOutcome } from '../../src/shared/exports';
-import { unprocessable } from '../http/errors';
+import { conflict, notFound, unprocessable } from '../http/errors';
 import { engineZip } from './engine-export';
 import { assertUnits } from './repeat-units';
 import { authorizeMapping } from '../mappings/mapping-access';
@@ -18,7 +18,12 @@ import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
 import { importMapping, planImport, previewOf } from './import.service';
 import { analysisForExport, libraryNonbonded, projectName } from './exports.service';
-import { slug } from './render';
+import { ndxComments, slug } from './render';
+import { writeNdx } from './ndx';
+import { referenceIndexGroups } from './reference-ndx';
+import { stateLabel } from './export-source';
+import { findReference } from '../references/references.service';
+import { readCopyAtoms } from '../references/copy-atoms';
 
 const params = z.object({ id: idParam });
 
@@ -42,6 +47,21 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
       return void res.send(zip.body);
     }
     if (q.analysis !== undefined || q.units !== undefined) throw unprocessable('engine_only', 'analysis and units apply to the gromacs and lammps formats only.');
+    if (q.reference !== undefined) {
+      if (q.format !== 'ndx') throw unprocessable('ndx_only', 'reference applies to the ndx format only.');
+      const ref = await findReference(ctx.db, q.reference);
+      const mapping = await findMapping(ctx.db, id);
+      if (!ref || ref.project_id !== mapping.projectId) throw notFound('That reference');
+      if (ref.molecule_id !== mapping.moleculeId) throw unprocessable('reference_of_other_molecule', 'That reference is a simulation of another molecule.', { referenceId: ref.id });
+      if (ref.status !== 'ready' || !ref.atoms_per_copy) throw conflict('reference_not_ready', `That reference is ${ref.status}; its atoms are numbered once its copies have been found.`, { status: ref.status });
+      const groups = referenceIndexGroups(source, await readCopyAtoms(ctx.config.dataDir, ref.id), ref.atoms_per_copy);
+      const text = writeNdx(groups, ndxComments(source, `atoms numbered as in reference "${ref.name}" (${ref.copies} copies)`));
+      res.setHeader('Content-Type', 'text/plain; charset=utf-8');
+      res.setHeader('Content-Disposition', `attachment; filename="${slug(source.mappingName)}-${stateLabel(source)}-reference-${ref.id}.ndx"`);
+      res.setHeader('X-Content-SHA256', source.sha256);
+      res.setHeader('Cache-Control', 'no-store');
+      return void res.send(text);
+    }
     const highlight = q.highlight?.split(',').map((n) => Number(n) - 1);
     const file = renderExport(source, q.format as ExportFormat, { highlight });
     res.setHeader('Content-Type', file.mime);

@@ -25,6 +25,8 @@ export interface FrameIndex {
   headerBytes: number;
   /** DCD: whether frames carry a unit cell record; little-endian. */
   dcdCell?: boolean;
+  /** PDB: the box of a CRYST1 record written once before the models (Å, box.ts layout). */
+  box?: number[];
 }
 
 export class FrameError extends Error {
@@ -159,9 +161,14 @@ async function indexText(fh: FileHandle, size: number, format: TrajectoryFormat,
   let pdbFrameStart = -1;
   const chunk = Buffer.alloc(1 << 22);
   let pos = 0;
+  let box: number[] | undefined;
   const line = (text: string, start: number, end: number): void => {
     if (format === 'pdb') {
       const rec = text.slice(0, 6).trim();
+      if (rec === 'CRYST1' && offsets.length === 0 && pdbFrameStart < 0) {
+        const [a, b, c] = [text.slice(6, 15), text.slice(15, 24), text.slice(24, 33)].map(Number);
+        if (a > 0 && b > 0 && c > 0) box = [a, 0, 0, 0, b, 0, 0, 0, c];
+      }
       if (rec === 'MODEL' || (pdbFrameStart < 0 && (rec === 'ATOM' || rec === 'HETATM'))) {
         if (pdbFrameStart < 0) pdbFrameStart = start;
         if (rec === 'ATOM' || rec === 'HETATM') pdbAtoms++;
@@ -230,5 +237,5 @@ async function indexText(fh: FileHandle, size: number, format: TrajectoryFormat,
   }
   if (offsets.length === 0) throw new FrameError(`The ${format.toUpperCase()} file holds no frame.`, 1);
   offsets.push(offsetsEnd);
-  return { format, atoms, offsets, headerBytes: 0 };
+  return { format, atoms, offsets, headerBytes: 0, ...(box ? { box } : {}) };
 }

@@ -89,7 +89,9 @@ export async function readFrames(path: string, index: FrameIndex, from: number, 
     }
     case 'pdb': {
       const text = Buffer.from(await readBytes(path, start, length)).toString('latin1');
-      return pdbFrames(text);
+      // A CRYST1 written once before the models holds for every model without its own.
+      const box = index.box ? Float64Array.from(index.box) : null;
+      return (await pdbFrames(text)).map((f) => ({ xyz: f.xyz, box: f.box ?? box }));
     }
   }
 }

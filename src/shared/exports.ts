@@ -9,7 +9,7 @@ import { versionRef, type VersionRef } from './versions';
 // POST /api/molecules/:id/mappings/import reads back. The JSON Schema of the JSON export is
 // published at /schemas/beadloom-mapping-v1.json (public/schemas/).
 
-export const EXPORT_FORMATS = ['csv', 'json', 'pdb', 'groups', 'svg', 'png'] as const;
+export const EXPORT_FORMATS = ['csv', 'json', 'pdb', 'groups', 'ndx', 'svg', 'png'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
 /** Engine downloads: a zip of GROMACS or LAMMPS files (docs/exports.md); not part of the project zip. */
@@ -28,6 +28,8 @@ export const exportQuery = z.strictObject({
   /** Engine formats, repeat units only: how many units the chain has. */
   units: z.string().regex(/^[0-9]{1,6}$/, 'units is a whole number.').transform(Number).optional(),
   version: versionRef.default('draft'),
+  /** ndx only: a ready reference of the molecule; the groups then number its atoms, over all copies. */
+  reference: z.string().regex(/^[1-9][0-9]{0,9}$/, 'reference is a reference id.').transform(Number).optional(),
   /** SVG only: 1-based atom numbers to ring, comma-separated (the compare screen's moved atoms). */
   highlight: z.string().regex(/^[1-9][0-9]{0,5}(,[1-9][0-9]{0,5}){0,999}$/, 'highlight lists 1-based atom numbers separated by commas.').optional(),
 });
@@ -38,6 +40,7 @@ export const EXPORT_FILE: Record<ExportFormat, { extension: string; mime: string
   json: { extension: 'json', mime: 'application/json; charset=utf-8' },
   pdb: { extension: 'pdb', mime: 'chemical/x-pdb' },
   groups: { extension: 'groups.txt', mime: 'text/plain; charset=utf-8' },
+  ndx: { extension: 'ndx', mime: 'text/plain; charset=utf-8' },
   svg: { extension: 'svg', mime: 'image/svg+xml' },
   png: { extension: 'png', mime: 'image/png' },
 };

@@ -153,7 +153,7 @@ describe('exports', () => {
     const manifest = JSON.parse(await zip.file('manifest.json')!.async('string'));
     const entry = manifest.mappings.find((m: { mappingId: number }) => m.mappingId === mappingId);
     expect(entry.version).toBe(2);
-    expect(entry.files).toHaveLength(6);
+    expect(entry.files).toHaveLength(7); // csv, json, pdb, groups, ndx, svg, png
     const csv = await zip.file(entry.files.find((f: string) => f.endsWith('.csv')))!.async('string');
     expect(csv).toBe((await get('csv').expect(200)).body.toString('utf8'));
     expect(manifest.mappings.filter((m: { skipped?: string }) => m.skipped).length).toBeGreaterThan(0);

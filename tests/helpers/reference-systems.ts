@@ -60,7 +60,7 @@ export function fileOrder(m: Molecule): number[] {
   return order;
 }
 
-export function makeSystem(m: Molecule, xyz: number[][], opts: { copies: number; frames: number; boxA: number; noiseA: number; seed: number; residue?: string; solvent?: number }): RefSystem {
+export function makeSystem(m: Molecule, xyz: number[][], opts: { copies: number; frames: number; boxA: number; noiseA: number; seed: number; residue?: string; solvent?: number; /** false: every copy in the middle of its own cell, none cut by the box. */ cut?: boolean }): RefSystem {
   const r = rng(opts.seed);
   const order = fileOrder(m);
   const fileIndex: number[] = [];
@@ -94,7 +94,7 @@ export function makeSystem(m: Molecule, xyz: number[][], opts: { copies: number;
   // Copies sit on a grid (no two overlap) shifted by a random offset, so those near the faces are cut.
   const k = Math.ceil(Math.cbrt(opts.copies));
   const cell = opts.boxA / k;
-  const shift = [r() * cell, r() * cell, r() * cell];
+  const shift = opts.cut === false ? [cell / 2, cell / 2, cell / 2] : [r() * cell, r() * cell, r() * cell];
   const poses = Array.from({ length: opts.copies }, (_, c) => ({
     rot: rotation(r),
     at: [c % k, Math.floor(c / k) % k, Math.floor(c / (k * k))].map((g, d) => g * cell + shift[d]),

@@ -7,6 +7,7 @@ const LABELS: Record<ExportFormat | EngineFormat, string> = {
   json: 'Mapping (JSON)',
   pdb: 'CG structure (PDB)',
   groups: 'Atom groups (text)',
+  ndx: 'GROMACS index (.ndx)',
   svg: 'Picture (SVG)',
   png: 'Picture (PNG)',
   gromacs: 'GROMACS model (zip)',
