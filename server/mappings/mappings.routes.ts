@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { AppContext } from '../context';
 import type { RouteTable } from '../http/route-table';
 import { typed } from '../http/validate';
-import { requireUser } from '../auth/access';
+import { authorizeProject, requireUser } from '../auth/access';
 import { can } from '../../src/shared/permissions';
 import { unprocessable } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
@@ -10,7 +10,7 @@ import { createMappingBody, updateMappingBody, type MappingDetail } from '../../
 import type { Mapping } from '../../src/shared/chem';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
-import { assertUnlocked, createMapping, findMapping, isMappingOf, listMappings, updateMapping } from './mappings.service';
+import { assertUnlocked, createMapping, findMapping, isMappingOf, listMappings, listProjectMappings, updateMapping } from './mappings.service';
 import type { DraftAccess } from './draft-access';
 import type { MappingStarts } from './mapping-starts';
 import type { TransferReport } from '../../src/shared/proposals';
@@ -47,6 +47,12 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
     }
     const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);
     res.status(201).json({ ...(await detail(id, true)), ...(transfer ? { transfer } : {}) });
+  }));
+
+  // Every mapping of the project (the sources a new mapping can be transferred from).
+  r.get('/api/projects/:id/mappings', typed({ params }, async ({ params }, req, res) => {
+    await authorizeProject(ctx.db, req, params.id, 'mapping:read');
+    res.json(await listProjectMappings(ctx.db, params.id));
   }));
 
   r.get('/api/mappings/:id', typed({ params }, async ({ params }, req, res) => {

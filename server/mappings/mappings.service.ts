@@ -1,7 +1,7 @@
 import * as Y from 'yjs';
 import type { Db } from '../db/knex';
 import type { Mapping } from '../../src/shared/chem';
-import type { CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
+import type { ProjectMappingSummary, CreateMappingBody, MappingSummary, UpdateMappingBody } from '../../src/shared/mappings';
 import { mappingToDoc } from '../../src/shared/mapping-doc';
 import { conflict, notFound } from '../http/errors';
 import { writeSnapshot } from './draft-snapshots.service';
@@ -48,6 +48,12 @@ const base = mappingsWithMolecule;
 export async function listMappings(db: Db, moleculeId: number): Promise<MappingSummary[]> {
   const rows = await base(db).where('p.molecule_id', moleculeId).orderBy('p.name').orderBy('p.id').select(COLUMNS);
   return rows.map(toMappingSummary);
+}
+
+/** Every mapping of the project's live molecules, with its molecule's name (transfer sources). */
+export async function listProjectMappings(db: Db, projectId: number): Promise<ProjectMappingSummary[]> {
+  const rows = await base(db).where('m.project_id', projectId).where('m.archived', false).orderBy('m.name').orderBy('p.name').orderBy('p.id').select([...COLUMNS, 'm.name as molecule_name']);
+  return rows.map((r) => ({ ...toMappingSummary(r), moleculeName: r.molecule_name as string }));
 }
 
 export async function findMapping(db: Db, id: number): Promise<MappingSummary> {

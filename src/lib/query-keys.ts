@@ -41,6 +41,7 @@ export const mappingKeys = {
   /** The mapping and, as a prefix, its whole history and threads. */
   detail: (mappingId: number) => ['mappings', mappingId] as const,
   ofMolecule: (moleculeId: number) => [...moleculeKeys.detail(moleculeId), 'mappings'] as const,
+  ofProject: (projectId: number) => [...projectKeys.detail(projectId), 'mappings'] as const,
 };
 
 export type StateRef = number | 'draft';

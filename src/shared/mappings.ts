@@ -61,6 +61,11 @@ export interface MappingSummary {
   updatedAt: string;
 }
 
+/** A mapping in the project-wide list (GET /api/projects/:id/mappings), with its molecule's name. */
+export interface ProjectMappingSummary extends MappingSummary {
+  moleculeName: string;
+}
+
 export interface MappingDetail extends MappingSummary {
   /** The draft as the chemistry core reads it (from the live document). */
   draft: Mapping;

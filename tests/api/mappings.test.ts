@@ -48,6 +48,15 @@ describe('mappings', () => {
     expect(copy.body.beadCount).toBe(5);
   });
 
+  it('lists every mapping of the project with its molecule’s name (transfer sources)', async () => {
+    const res = await student.get(`/api/projects/${projectId}/mappings`).expect(200);
+    const mine = (res.body as { id: number; moleculeId: number; moleculeName: string }[]).find((m) => m.id === mappingId);
+    expect(mine).toMatchObject({ id: mappingId, moleculeId, name: 'C12E4 at 4:1', moleculeName: expect.any(String) });
+    const counted = await t.ctx.db('mappings as p').join('molecules as m', 'm.id', 'p.molecule_id').where({ 'm.project_id': projectId, 'm.archived': false }).count({ n: '*' }).first();
+    expect(res.body).toHaveLength(Number(counted?.n));
+    await student.get('/api/projects/999999/mappings').expect(404);
+  });
+
   it('changes name, description and resolution; the evaluation follows the resolution', async () => {
     const created = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'To edit', resolution: '4:1', copyOf: mappingId }).expect(201);
     const res = await modeller.patch(`/api/mappings/${created.body.id}`, { name: 'Edited', description: 'Now 2:1.', resolution: '2:1' }).expect(200);

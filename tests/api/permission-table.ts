@@ -141,6 +141,7 @@ export const ROUTE_CASES: RouteCase[] = [
     expect: byRule(204, 'members:manage'),
   },
   { method: 'get', path: '/api/projects/:id/molecules', request: project('/molecules'), expect: byRule(200, 'molecule:read') },
+  { method: 'get', path: '/api/projects/:id/mappings', request: project('/mappings'), expect: byRule(200, 'mapping:read') },
   {
     method: 'post',
     path: '/api/chem/molecule',

@@ -86,4 +86,22 @@ describe('proposals in the editor', () => {
 
     expect(pageErrors).toEqual([]);
   });
+
+  it('creates a mapping that starts from the automatic proposal from the molecule page', async () => {
+    const page = await session.signedIn('modeller@example.org', PASSWORD);
+    const moleculeId = await page.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      return molecules.find((m: { name: string }) => m.name === 'Ibuprofen').id as number;
+    });
+    await page.goto(`/molecules/${moleculeId}`);
+    const form = page.getByRole('form', { name: 'New mapping' });
+    await form.getByLabel('Mapping name').fill('From the proposal');
+    await form.getByLabel('Start from').selectOption({ label: 'Automatic proposal (edit it together afterwards)' });
+    await form.getByRole('button', { name: 'Create and open' }).click();
+    await page.locator('[data-connection="live"]').waitFor();
+    await tag(page, 'B1').waitFor();
+    await expect.poll(() => page.locator('[data-bead-tag]').count()).toBeGreaterThanOrEqual(4);
+    expect(pageErrors).toEqual([]);
+  });
 });

@@ -58,7 +58,7 @@ export function MoleculeRoute() {
           </Section>
           {canMap && (
             <Section title="New mapping">
-              <NewMappingForm moleculeId={m.id} />
+              <NewMappingForm moleculeId={m.id} projectId={m.projectId} />
             </Section>
           )}
         </div>

@@ -7,25 +7,44 @@ import { FormField } from '../../../components/ui/form-field';
 import { useZodForm } from '../../../hooks/use-zod-form';
 import { paths } from '../../../lib/paths';
 import { serverFieldErrors } from '../../../lib/server-field-errors';
-import { createMappingBody, RESOLUTIONS } from '../../../shared/mappings';
+import { createMappingBody, mappingStart, RESOLUTIONS } from '../../../shared/mappings';
 import { useCreateMapping } from '../api/create-mapping';
 import { useMappings } from '../api/get-mappings';
+import { useProjectMappings } from '../api/get-project-mappings';
 
 const resolutionOptions = RESOLUTIONS.map((r) => ({ value: r, label: `${r} (about ${r[0]} heavy atoms a bead)` }));
 
-// "Start from" holds '' (empty) or the id of the mapping to copy.
+// "Start from" holds '' (empty), 'proposal', 'copy:<id>' (a mapping of this molecule) or 'transfer:<id>'
+// (a mapping of another molecule of the project, carried over through their common substructure).
+function startOf(value: string): z.input<typeof mappingStart> {
+  const [kind, id] = value.split(':');
+  if (kind === 'proposal') return 'proposal';
+  if (kind === 'copy') return { copyOf: Number(id) };
+  if (kind === 'transfer') return { transferFrom: Number(id) };
+  return 'empty';
+}
+
 const schema = z
-  .object({ name: z.string(), resolution: createMappingBody.shape.resolution, start: z.string() })
-  .transform(({ start, ...rest }) => ({ ...rest, ...(start ? { copyOf: Number(start) } : {}) }))
+  .object({ name: z.string(), resolution: z.enum(RESOLUTIONS), start: z.string() })
+  .transform(({ start, ...rest }): z.input<typeof createMappingBody> => ({ ...rest, start: startOf(start) }))
   .pipe(createMappingBody);
 
-/** A new mapping of the molecule: empty, or starting as a copy of another mapping's draft. */
-export function NewMappingForm({ moleculeId }: { moleculeId: number }) {
+/**
+ * A new mapping of the molecule: empty, the automatic proposal, a copy of another mapping of this
+ * molecule, or a transfer from a mapping of another molecule of the project.
+ */
+export function NewMappingForm({ moleculeId, projectId }: { moleculeId: number; projectId: number }) {
   const create = useCreateMapping(moleculeId);
   const mappings = useMappings(moleculeId);
+  const projectMappings = useProjectMappings(projectId);
   const navigate = useNavigate();
   const form = useZodForm(schema, { name: '', resolution: '4:1', start: '' });
-  const startOptions = [{ value: '', label: 'Empty: every atom unassigned' }, ...(mappings.data ?? []).map((m) => ({ value: String(m.id), label: `Copy of “${m.name}”` }))];
+  const startOptions = [
+    { value: '', label: 'Empty: every atom unassigned' },
+    { value: 'proposal', label: 'Automatic proposal (edit it together afterwards)' },
+    ...(mappings.data ?? []).map((m) => ({ value: `copy:${m.id}`, label: `Copy of “${m.name}”` })),
+    ...(projectMappings.data ?? []).filter((m) => m.moleculeId !== moleculeId).map((m) => ({ value: `transfer:${m.id}`, label: `Transfer from ${m.moleculeName}: “${m.name}”` })),
+  ];
   // A refusal about the name shows beside the name; anything else as an alert.
   const nameRefused = !!serverFieldErrors(create.error).name;
 
