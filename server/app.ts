@@ -88,7 +88,11 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
     }),
   );
   app.use(securityHeaders);
-  app.use(pinoHttp({ logger: ctx.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  // pino-http logs each answer at info (errors too, unless told otherwise). Above info (npm start runs at
+  // warn) it would log nothing yet still build a child logger and hook every answer: then requests only
+  // get a logger, made when something logs (the error middleware), with the request's method and path.
+  if (ctx.log.isLevelEnabled('info')) app.use(pinoHttp({ logger: ctx.log, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  else app.use(lazyRequestLogger(ctx.log));
   const json = express.json({ limit: '1mb' });
   // Imports parse their own (larger) bodies in the route.
   app.use((req, res, next) => (LARGE_JSON_PATHS.test(req.path) ? next() : json(req, res, next)));
@@ -96,7 +100,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
 
   const { middleware: session, store, cached: sessions } = createSessionMiddleware(ctx.config);
   // Accounts, memberships and sessions kept between requests, dropped by the access changes (auth/access-cache.ts).
-  const accessCache = new AccessCache(ctx.accessChanges, undefined, (sessionId) => sessions.forget(sessionId));
+  const accessCache = new AccessCache(ctx.accessChanges, sessions, ctx.invalidation);
   const passport = configurePassport(ctx.db, ctx.config, accessCache);
   const csrf = createCsrf(ctx.config);
   app.use((req, _res, next) => {
@@ -175,6 +179,14 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
       accessCache.close();
       await store.close();
     },
+  };
+}
+
+function lazyRequestLogger(log: AppContext['log']): express.RequestHandler {
+  return (req, _res, next) => {
+    let child: AppContext['log'] | undefined;
+    Object.defineProperty(req, 'log', { configurable: true, get: () => (child ??= log.child({ req: { method: req.method, url: req.originalUrl } })) });
+    next();
   };
 }
 

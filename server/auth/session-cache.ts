@@ -73,6 +73,11 @@ export class CachedSessionStore extends session.Store {
     this.rows.delete(sid);
   }
 
+  /** This instance may have missed sign-outs elsewhere: every session is read from MariaDB again. */
+  forgetAll(): void {
+    this.rows.clear();
+  }
+
   private keep(sid: string, data: SessionData, touchedAt: number, mark: number): void {
     this.rows.setIfUnchanged(sid, { json: JSON.stringify(data), expires: expiresOf(data, this.now()), touchedAt }, mark);
   }

@@ -12,7 +12,8 @@ const projectOfMapping = async (db: Db, mappingId: number): Promise<number | nul
 /** A mapping's project, authorised for `action`: 401 anonymous, 404 unknown or invisible, 403 not allowed. */
 export async function authorizeMapping(db: Db, req: Request, mappingId: number, action: ProjectAction): Promise<{ projectId: number; role: ProjectRole | null }> {
   requireUser(req);
-  const projectId = await projectOfMapping(db, mappingId);
+  const load = () => projectOfMapping(db, mappingId);
+  const projectId = req.accessCache ? await req.accessCache.projectOf('mapping', mappingId, load) : await load();
   if (projectId === null) throw notFound('That mapping');
   const role = await authorizeProject(db, req, projectId, action).catch((err) => {
     throw err.status === 404 ? notFound('That mapping') : err;

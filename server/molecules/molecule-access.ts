@@ -7,10 +7,11 @@ import { notFound } from '../http/errors';
 /** A molecule's project, authorised for `action`: 401 anonymous, 404 unknown or invisible, 403 not allowed. */
 export async function authorizeMolecule(db: Db, req: Request, moleculeId: number, action: ProjectAction): Promise<number> {
   requireUser(req);
-  const row = await db('molecules').where({ id: moleculeId }).first('project_id');
-  if (!row) throw notFound('That molecule');
-  await authorizeProject(db, req, row.project_id, action).catch((err) => {
+  const load = async (): Promise<number | null> => (await db('molecules').where({ id: moleculeId }).first('project_id'))?.project_id ?? null;
+  const projectId = req.accessCache ? await req.accessCache.projectOf('molecule', moleculeId, load) : await load();
+  if (projectId === null) throw notFound('That molecule');
+  await authorizeProject(db, req, projectId, action).catch((err) => {
     throw err.status === 404 ? notFound('That molecule') : err;
   });
-  return row.project_id;
+  return projectId;
 }

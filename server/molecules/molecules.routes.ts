@@ -10,6 +10,7 @@ import { authorizeMolecule } from './molecule-access';
 import { toDetail, toSummary } from './molecule-view';
 import { deleteOrArchive, findMolecule, insertMolecule, listMolecules, refuseDuplicate, updateMolecule } from './molecules.service';
 import type { Conformers } from './conformer-queue';
+import { PROJECT_OF_TOPIC } from '../auth/access-cache';
 
 const params = z.object({ id: idParam });
 
@@ -58,7 +59,11 @@ export function moleculeRoutes(r: RouteTable, ctx: AppContext, conformers: Confo
   r.delete('/api/molecules/:id', typed({ params }, async ({ params }, req, res) => {
     const id = params.id;
     await authorizeMolecule(ctx.db, req, id, 'molecule:delete');
-    if ((await deleteOrArchive(ctx.db, id)) === 'deleted') return void res.status(204).end();
+    if ((await deleteOrArchive(ctx.db, id)) === 'deleted') {
+      // Its mappings went with it: every instance forgets which project they were in (auth/access-cache.ts).
+      ctx.invalidation.publish(PROJECT_OF_TOPIC, `molecule:${id}`);
+      return void res.status(204).end();
+    }
     res.json({ archived: true, molecule: toSummary(await findMolecule(ctx.db, id), null) });
   }));
 }

@@ -5,6 +5,7 @@ import { createTestApp, type TestApp } from '../helpers/test-app';
 import { ApiClient, signedIn } from '../helpers/client';
 import { createAccount, demoMappingId, demoProjectId } from '../helpers/fixtures';
 import { SESSION_COOKIE } from '../../server/auth/session';
+import { propanolMapping } from './versions-fixtures';
 
 // Issue 18 (capacity): the account, the membership and the session row a request needs are kept in
 // memory between requests (server/auth/access-cache.ts, session-cache.ts). Each change of access must
@@ -46,6 +47,22 @@ describe('access kept between requests', () => {
     expect((await m.client.get(`/api/mappings/${mappingId}`).expect(200)).body.canEdit).toBe(false);
   });
 
+  it("a 'resync' (this instance may have missed changes) drops every kept account, membership and session", async () => {
+    const m = await member('modeller');
+    expect((await m.client.get(`/api/mappings/${mappingId}`).expect(200)).body.canEdit).toBe(true);
+    await t.ctx.db('project_members').where({ project_id: projectId, user_id: m.id }).update({ role: 'student' });
+    await t.ctx.db('users').where({ id: m.id }).update({ display_name: 'Renamed behind the back' });
+    t.ctx.accessChanges.publish({ kind: 'resync' });
+    expect((await m.client.get(`/api/mappings/${mappingId}`).expect(200)).body.canEdit).toBe(false);
+    expect((await m.client.get('/api/me').expect(200)).body.displayName).toBe('Renamed behind the back');
+    // A session row deleted behind the back (as another instance's sign-out does) is gone after a resync too.
+    const sid = decodeURIComponent(m.client.agent.jar.getCookie(SESSION_COOKIE, { domain: '127.0.0.1', path: '/', secure: false, script: false })!.value).slice(2).split('.')[0];
+    expect(await t.ctx.db('sessions').where({ session_id: sid }).delete()).toBe(1);
+    await m.client.get('/api/me').expect(200);
+    t.ctx.accessChanges.publish({ kind: 'resync' });
+    await m.client.get('/api/me').expect(401);
+  });
+
   it('a demoted modeller is read-only on the next request, and may edit again once promoted', async () => {
     const m = await member('modeller');
     expect((await m.client.get(`/api/mappings/${mappingId}`).expect(200)).body.canEdit).toBe(true);
@@ -73,6 +90,15 @@ describe('access kept between requests', () => {
     await outsider.get(`/api/projects/${projectId}`).expect(404);
     await supervisor.post(`/api/projects/${projectId}/members`, { email, role: 'student' }).expect(201);
     await outsider.get(`/api/projects/${projectId}`).expect(200);
+  });
+
+  it("a deleted molecule's mappings are 404 on the next request (the project each belonged to is not kept)", async () => {
+    const { moleculeId, mappingId: gone } = await propanolMapping(t.ctx.db, 'To delete');
+    await supervisor.get(`/api/molecules/${moleculeId}/mappings`).expect(200);
+    await supervisor.get(`/api/mappings/${gone}/threads`).expect(200);
+    await supervisor.delete(`/api/molecules/${moleculeId}`).expect(204);
+    await supervisor.get(`/api/molecules/${moleculeId}/mappings`).expect(404);
+    await supervisor.get(`/api/mappings/${gone}/threads`).expect(404);
   });
 
   it('a disabled account gets 401 on the next request', async () => {
