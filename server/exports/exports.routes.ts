@@ -62,8 +62,9 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
       res.setHeader('Cache-Control', 'no-store');
       return void res.send(text);
     }
+    if (q.residue !== undefined && q.format !== 'pdb') throw unprocessable('pdb_only', 'residue applies to the pdb format only.');
     const highlight = q.highlight?.split(',').map((n) => Number(n) - 1);
-    const file = renderExport(source, q.format as ExportFormat, { highlight });
+    const file = renderExport(source, q.format as ExportFormat, { highlight }, { residue: q.residue?.toUpperCase() });
     res.setHeader('Content-Type', file.mime);
     res.setHeader('Content-Disposition', `attachment; filename="${file.name}"`);
     res.setHeader('X-Content-SHA256', source.sha256);

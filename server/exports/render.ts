@@ -5,7 +5,7 @@ import { toCsv } from './csv';
 import { toGroups } from './groups';
 import { beadIndexGroups, writeNdx } from './ndx';
 import { toJsonExport } from './json';
-import { toPdb } from './pdb';
+import { toPdb, type PdbOptions } from './pdb';
 import { toPng } from './png';
 import { toSvg, type SvgOptions } from './svg';
 
@@ -18,12 +18,12 @@ export interface ExportFile {
 
 export const slug = (v: string) => v.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'mapping';
 
-export function renderExport(s: ExportSource, format: ExportFormat, svg: SvgOptions = {}): ExportFile {
+export function renderExport(s: ExportSource, format: ExportFormat, svg: SvgOptions = {}, pdb: PdbOptions = {}): ExportFile {
   const text = (t: string) => Buffer.from(t, 'utf8');
   const body =
     format === 'csv' ? text(toCsv(s))
     : format === 'json' ? text(JSON.stringify(toJsonExport(s), null, 2) + '\n')
-    : format === 'pdb' ? text(toPdb(s))
+    : format === 'pdb' ? text(toPdb(s, pdb))
     : format === 'groups' ? text(toGroups(s))
     : format === 'ndx' ? text(writeNdx(beadIndexGroups(s.model, s.draft.beads), ndxComments(s, 'atoms numbered as in the all-atom molecule (atoms, then hydrogens by parent)')))
     : format === 'svg' ? text(toSvg(s, svg))

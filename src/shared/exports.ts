@@ -23,6 +23,8 @@ const ALL_FORMATS = [...EXPORT_FORMATS, ...ENGINE_FORMATS] as const;
 
 export const exportQuery = z.strictObject({
   format: z.enum(ALL_FORMATS, `The format is one of ${ALL_FORMATS.join(', ')}.`),
+  /** PDB only: the molecule's residue name (1–3 letters or digits; CGM when absent). */
+  residue: z.string().regex(/^[A-Za-z0-9]{1,3}$/, 'residue is 1 to 3 letters or digits.').optional(),
   /** Engine formats: a reference analysis whose mean structure gives the coordinates. */
   analysis: z.string().regex(/^[1-9][0-9]{0,9}$/, 'analysis is an analysis id.').transform(Number).optional(),
   /** Engine formats, repeat units only: how many units the chain has. */

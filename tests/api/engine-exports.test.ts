@@ -213,6 +213,23 @@ describe('engine exports run in the engines', () => {
     expect(top).toMatch(/\[ molecules \]\n; name {2}count\nSodiu {2}1\nNA {2}1\n/);
     expect(readFileSync(join(dirs.gromacs, 'sodiu.itp'), 'utf8')).toMatch(/COO\s+2\s+-1\.0\s/);
     grompp(dirs.gromacs, 'salt');
+    // The PDB export: residue name as asked, the ion its own residue, blank element columns, a CRYST1 box
+    // that GROMACS' own PDB reader (gmx editconf) takes over.
+    const pdb = (await binary(modeller.get(`/api/mappings/${f.mappingId}/export?format=pdb&version=${dirs.version}&residue=pnt`)).expect(200)).body.toString('utf8');
+    const atoms = pdb.split('\n').filter((l: string) => l.startsWith('HETATM'));
+    expect(atoms.map((l: string) => `${l.slice(17, 20)} ${l.slice(22, 26).trim()}`)).toEqual(['PNT 1', 'PNT 1', ' NA 2']);
+    expect(atoms.every((l: string) => l.length <= 66)).toBe(true); // columns 77–78 (element) stay blank
+    const cryst = pdb.split('\n').find((l: string) => l.startsWith('CRYST1'))!;
+    const edge = Number(cryst.slice(6, 15));
+    expect(cryst.slice(33, 54)).toBe('  90.00  90.00  90.00');
+    writeFileSync(join(dirs.gromacs, 'cg.pdb'), pdb);
+    const editconf = spawnSync(GMX, ['-quiet', 'editconf', '-f', 'cg.pdb', '-o', 'from-pdb.gro'], { cwd: dirs.gromacs, encoding: 'utf8' });
+    expect(editconf.status, editconf.stderr).toBe(0);
+    const fromPdb = readFileSync(join(dirs.gromacs, 'from-pdb.gro'), 'utf8').trim().split('\n');
+    expect(Number(fromPdb[fromPdb.length - 1].trim().split(/\s+/)[0])).toBeCloseTo(edge / 10, 3);
+    expect(fromPdb[4].slice(5, 10).trim()).toBe('NA');
+    await modeller.get(`/api/mappings/${f.mappingId}/export?format=csv&residue=abc`).expect(422);
+    await modeller.get(`/api/mappings/${f.mappingId}/export?format=pdb&residue=toolong`).expect(400);
     bondsWithin5Percent(lammps(dirs.lammps, 'salt'), 'salt');
   }, 600_000);
 
