@@ -237,9 +237,12 @@ describe('two app servers behind nginx', () => {
     // Every edit so far relayed to every client (so each went through an instance and MariaDB).
     await until('the first edits everywhere', () => clients.every((c) => ids.every((id) => beadsOf(c.doc).has(id))));
     const relayed = [...ids];
+    const closesBefore = clients.map((c) => c.closes.length);
     await cluster.kill(0);
     for (let i = 0; i < 8; i++) edit(i);
     await until('every edit on every client after reconnecting', () => clients.every((c) => c.provider.wsconnected && ids.every((id) => beadsOf(c.doc).has(id))), 30_000);
+    // Some of them were on the killed instance: their sockets closed, and they came back through nginx.
+    expect(clients.filter((c, i) => c.closes.length > closesBefore[i]).length).toBeGreaterThan(0);
     const stored = await storedDraftIds(await cookieOf(cluster.url, 'supervisor@example.org'));
     expect(stored).toEqual(expect.arrayContaining(relayed));
     expect(stored).toEqual(expect.arrayContaining(ids));

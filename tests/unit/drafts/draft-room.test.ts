@@ -222,6 +222,40 @@ describe('the relay between servers', () => {
     relay.publish({ kind: 'update', mappingId: inputs.mappingId, seq: 14, prevSeq: 12, update: later, instance: 'other-server', sender: 'someone' });
     expect(room.gaps).toBe(1);
   });
+
+  it('on a gap reads the stored draft and takes what it lacks: applied, sent to its peers, compaction allowed again', async () => {
+    const relay = createInProcessRelay();
+    const storage = new MemoryDraftStorage();
+    const { room } = await kit({ relay }, storage);
+    const bob = testPeer(2);
+    room.join(bob);
+    // Another server stored two updates whose messages never arrived here.
+    const other = new Y.Doc();
+    const missed1 = updateOn(other, (d) => createBead(d, [0], { id: 'm1', name: 'M1' }));
+    Y.applyUpdate(other, missed1);
+    const missed2 = updateOn(other, (d) => createBead(d, [1], { id: 'm2', name: 'M2' }));
+    Y.applyUpdate(other, missed2);
+    const seq = await storage.append(inputs.mappingId, [{ userId: 9, data: missed1 }, { userId: 9, data: missed2 }]);
+    // Its next update names the last of them as its predecessor: this room never had it.
+    const next = updateOn(other, (d) => renameBead(d, 'm2', 'Later'));
+    await storage.append(inputs.mappingId, [{ userId: 9, data: next }]);
+    relay.publish({ kind: 'update', mappingId: inputs.mappingId, seq: seq + 1, prevSeq: seq, update: next, instance: 'other-server', sender: 'someone' });
+    expect(room.gaps).toBe(1);
+    await drained(room);
+    expect(room.caughtUp).toBe(1);
+    expect(room.draft().beads.map((b) => [b.id, b.name]).sort()).toEqual([
+      ['m1', 'M1'],
+      ['m2', 'Later'],
+    ]);
+    // Bob got the relayed update and then what was missing; together they give him the same draft.
+    const bobs = new Y.Doc();
+    for (const u of bob.updates) Y.applyUpdate(bobs, u);
+    expect(docToMapping(bobs)).toEqual(room.draft());
+    // Nothing was missing any more: a second gap message finds nothing to take.
+    relay.publish({ kind: 'gap', mappingId: inputs.mappingId });
+    await drained(room);
+    expect(room.caughtUp).toBe(1);
+  });
 });
 
 describe('two servers on one relay', () => {
