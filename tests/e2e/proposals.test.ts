@@ -59,6 +59,14 @@ describe('proposals in the editor', () => {
     await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count(), { timeout: 10_000 }).toBe(count);
     await second.getByText(`Tomas Brenn proposes ${count} beads`).waitFor();
 
+    // The alternatives can be put on show instead of the best one, for everyone; back to the best.
+    const which = first.getByRole('group', { name: 'Which proposal' });
+    await which.getByRole('button', { name: /^Alternative 1/ }).click();
+    const alternative = await proposed.getByRole('listitem').count();
+    await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count(), { timeout: 10_000 }).toBe(alternative);
+    await which.getByRole('button', { name: /^Best/ }).click();
+    await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count(), { timeout: 10_000 }).toBe(count);
+
     // Accept B1 and B2, dismiss B3.
     await first.getByRole('button', { name: 'Accept B1' }).click();
     await first.getByRole('button', { name: 'Accept B2' }).click();

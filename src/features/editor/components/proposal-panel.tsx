@@ -1,6 +1,6 @@
 import { useEffect, useId, useState, type RefObject } from 'react';
 import { Button } from '../../../components/ui/button';
-import type { ProposalScope } from '../../../shared/proposals';
+import type { Proposal, ProposalScope } from '../../../shared/proposals';
 import { useProposeMapping } from '../api/propose-mapping';
 import type { MappingSession } from '../collab/mapping-session';
 import { acceptGhosts, ghostsFrom, withoutGhosts, type GhostBead, type PeerGhosts } from '../model/proposal-ghosts';
@@ -23,6 +23,8 @@ const SCOPES: { value: ProposalScope; label: string }[] = [
 export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef }: ProposalPanelProps) {
   const [scope, setScope] = useState<ProposalScope>('unassigned');
   const [note, setNote] = useState<string | null>(null);
+  // The last answer: the best proposal and up to two alternatives, any of which can be put on show.
+  const [answer, setAnswer] = useState<{ scope: ProposalScope; proposals: Proposal[]; shown: number } | null>(null);
   const propose = useProposeMapping(mappingId);
   const legend = useId();
   const own = ghosts.find((g) => g.isLocal)?.proposal ?? null;
@@ -38,8 +40,12 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
           const best = proposals[0];
           if (!best || best.beads.length === 0) {
             setNote(scope === 'unassigned' ? 'Every atom already has a bead: nothing to propose.' : 'Nothing to propose.');
+            setAnswer(null);
             session.setPresence({ proposal: null });
-          } else session.setPresence({ proposal: ghostsFrom(best, scope) });
+          } else {
+            setAnswer({ scope, proposals, shown: 0 });
+            session.setPresence({ proposal: ghostsFrom(best, scope) });
+          }
         },
       },
     );
@@ -47,6 +53,12 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
   useEffect(() => {
     proposeRef.current = run;
   });
+
+  const show = (index: number) => {
+    if (!answer) return;
+    setAnswer({ ...answer, shown: index });
+    session.setPresence({ proposal: ghostsFrom(answer.proposals[index], answer.scope) });
+  };
 
   const settle = (beads: readonly GhostBead[], accept: boolean) => {
     if (!own) return;
@@ -74,6 +86,15 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
       )}
       {propose.isError && <p role="alert" className="text-alert-700">{propose.error.message}</p>}
       {note && <p role="status">{note}</p>}
+      {own && answer && answer.proposals.length > 1 && (
+        <div role="group" aria-label="Which proposal" className="flex flex-wrap gap-1">
+          {answer.proposals.map((p, i) => (
+            <Button key={i} size="sm" variant={answer.shown === i ? 'primary' : 'ghost'} aria-pressed={answer.shown === i} onClick={() => show(i)}>
+              {i === 0 ? 'Best' : `Alternative ${i}`} (cost {p.cost.toFixed(1)}, {p.beads.length} beads)
+            </Button>
+          ))}
+        </div>
+      )}
       {own && (
         <>
           <ul aria-label="Proposed beads" className="flex max-h-60 flex-col gap-1 overflow-auto">
