@@ -1,5 +1,6 @@
 // `npm run start:cluster`: the several-servers picture on one machine (docs/scaling.md): the private
-// MariaDB of `npm start` (.data/, migrated, demo-seeded when empty), a private redis-server, two app
+// MariaDB of `npm start` (.data/, migrated, demo-seeded when empty), a private redis-server (REDIS_PORT,
+// else a free port), two app
 // instances on PORT+1 and PORT+2, one job worker, and nginx on PORT (4820 unless PORT says otherwise)
 // in front of them. It prints the URLs; Ctrl-C stops everything it started, nginx first, MariaDB last.
 import { join } from 'node:path';
@@ -7,6 +8,7 @@ import { startLocalDatabase, sessionSecret } from './lib/local-db';
 import { startRedis, type RunningRedis } from './lib/redis';
 import { startCluster, type RunningCluster } from './lib/cluster';
 import { bin, run } from './lib/run';
+import { freePort } from './lib/free-port';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../seeds/demo-data';
 
 const port = Number(process.env.PORT ?? 4820);
@@ -30,7 +32,7 @@ process.on('SIGTERM', () => void stopAll(0));
 try {
   console.log('[beadloom] building the client…');
   if ((await run(bin('vite'), ['build', '--logLevel', 'warn'])) !== 0) throw new Error('The client build failed.');
-  redis = await startRedis({ port: Number(process.env.REDIS_PORT ?? port + 11), dir: '.data/redis' });
+  redis = await startRedis({ port: process.env.REDIS_PORT ? Number(process.env.REDIS_PORT) : await freePort(), dir: '.data/redis' });
   cluster = await startCluster({
     databaseUrl: mariadb.url,
     redisUrl: redis.url,
