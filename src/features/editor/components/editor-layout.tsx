@@ -12,6 +12,7 @@ import { ChecksPanel } from './checks-panel';
 import { EditorToolbar } from './editor-toolbar';
 import { FontPrimer } from './font-primer';
 import { MoleculeCanvas } from './molecule-canvas';
+import { BondedTermsPanel } from './bonded-terms-panel';
 import { Panel } from './panel';
 import { MassBalance, PartitionChart } from './partition-chart';
 import { ConnectionBadge, PresenceList } from './presence-bar';
@@ -129,6 +130,9 @@ export function EditorLayout(p: EditorLayoutProps) {
           <MassBalance evaluation={p.evaluation} molecularWeight={p.molecule.molecularWeight} />
           <PartitionChart view={view} evaluation={p.evaluation} library={p.library} />
         </div>
+      </Panel>
+      <Panel title="Bonded terms">
+        <BondedTermsPanel doc={state.ctx.doc} origin={state.ctx.origin} readOnly={state.ctx.readOnly} topology={p.evaluation?.topology ?? null} molecule={p.molecule} />
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
       <FontPrimer />
