@@ -113,9 +113,9 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   // the workers when several servers share a Redis (jobs/bull-queues.ts).
   let jobs: JobQueue & { close?(): Promise<void> };
   let conformers: Conformers;
-  if (ctx.config.redisUrl) {
+  if (ctx.config.redisUrl && ctx.redis) {
     jobs = createBullJobQueue(ctx.config.redisUrl, ctx.log);
-    conformers = new BullConformerQueue(ctx.db, ctx.config.redisUrl, ctx.log);
+    conformers = new BullConformerQueue(ctx.db, ctx.config.redisUrl, ctx.log, ctx.redis.commands);
   } else {
     const inProcess = createInProcessQueue(async (job) => ctx.mailer.send(job.mail), ctx.log);
     app.use(inProcess.afterResponse);

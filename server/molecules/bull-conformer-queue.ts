@@ -1,5 +1,6 @@
 import { EventEmitter } from 'node:events';
 import type { Logger } from 'pino';
+import type { Redis } from 'ioredis';
 import type { Db } from '../db/knex';
 import { BullProducer, QUEUES } from '../jobs/bull-queues';
 import type { Conformers } from './conformer-queue';
@@ -17,6 +18,7 @@ export class BullConformerQueue extends EventEmitter implements Conformers {
     private readonly db: Db,
     redisUrl: string,
     log: Pick<Logger, 'error'>,
+    private readonly redis: Redis,
   ) {
     super();
     this.producer = new BullProducer(QUEUES.conformers, redisUrl, log);
@@ -31,6 +33,8 @@ export class BullConformerQueue extends EventEmitter implements Conformers {
   }
 
   async resume(): Promise<void> {
+    // App servers start together: one of them queues what was left (the others would queue it again).
+    if ((await this.redis.set('beadloom:conformer-resume', String(process.pid), 'PX', 60_000, 'NX')) !== 'OK') return;
     const rows = await this.db('molecules').whereIn('conformer_status', ['queued', 'running']).orderBy('id').select('id');
     // Jobs already waiting in Redis keep their place: only molecules without one are queued.
     const waiting = new Set((await this.producer.queue.getJobs(['waiting', 'active', 'delayed', 'prioritized'])).map((j) => (j?.data as { moleculeId?: number })?.moleculeId));
