@@ -48,7 +48,7 @@ try {
   cluster.instanceUrls.forEach((u, i) => console.log(`  app instance ${i + 1}   ${u}`));
   console.log(`  redis            ${redis.url}`);
   console.log(`  MariaDB          .data/mariadb (port ${process.env.DB_PORT ?? 4830})`);
-  console.log('  worker           1 (BullMQ: mail, conformers)');
+  console.log('  worker           1 (BullMQ: mail, conformers, reference matching, analyses)');
   console.log(`Demo accounts (password: ${DEMO_PASSWORD}): ${DEMO_ACCOUNTS.map((a) => a.email).join(', ')}`);
   console.log('Press Ctrl-C to stop everything.');
 } catch (err) {
