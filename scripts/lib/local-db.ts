@@ -2,6 +2,7 @@ import { startMariaDb, type RunningMariaDb } from './mariadb';
 import { persistentSecret } from './secrets';
 import { createDb, migrateLatest } from '../../server/db/knex';
 import { seedDemo } from '../../seeds/demo';
+import { seedDemoReference } from '../../seeds/demo-reference';
 
 /**
  * The private MariaDB of `npm start` and `npm run dev`: data in .data/mariadb,
@@ -19,6 +20,8 @@ export async function startLocalDatabase(seed: boolean): Promise<{ mariadb: Runn
     const db = createDb(mariadb.url);
     await migrateLatest(db);
     const seeded = seed && (await seedDemo(db, 12));
+    // The demo reference and its analysis (files under the data folder, like an upload's).
+    if (seeded) await seedDemoReference(db, process.env.BEADLOOM_DATA_DIR || '.data/files');
     await db.destroy();
     return { mariadb, seeded };
   } catch (err) {
@@ -32,7 +35,9 @@ export async function prepareExternalDatabase(url: string, seed: boolean): Promi
   const db = createDb(url);
   try {
     await migrateLatest(db);
-    return seed && (await seedDemo(db, 12));
+    const seeded = seed && (await seedDemo(db, 12));
+    if (seeded) await seedDemoReference(db, process.env.BEADLOOM_DATA_DIR || '.data/files');
+    return seeded;
   } finally {
     await db.destroy();
   }

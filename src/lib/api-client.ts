@@ -112,6 +112,23 @@ async function request<T>(method: Method, path: string, body?: unknown): Promise
   }
 }
 
+/** The CSRF token for a request made outside this module (an upload with progress over XMLHttpRequest). */
+export async function csrfTokenForUpload(): Promise<string> {
+  return csrfToken ?? (await freshCsrfToken());
+}
+
+/** An API error from a status and a response body text, as `send` makes them. */
+export function apiErrorFrom(status: number, text: string): ApiError {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(text);
+  } catch {
+    parsed = undefined;
+  }
+  if (isApiErrorBody(parsed)) return new ApiError(status, parsed.error.code, parsed.error.message, parsed.error.details);
+  return new ApiError(status, 'http_error', `The server answered ${status}. Please try again.`);
+}
+
 export const api = {
   get: <T>(path: string) => request<T>('GET', path),
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, body ?? {}),

@@ -62,6 +62,12 @@ export const threadKeys = {
   isVersionList: (key: Key) => key.length > threadKeys.list(0).length,
 };
 
+export const referenceKeys = {
+  ofMolecule: (moleculeId: number) => [...moleculeKeys.detail(moleculeId), 'references'] as const,
+  analysesOf: (mappingId: number) => [...mappingKeys.detail(mappingId), 'analyses'] as const,
+  analysis: (analysisId: number) => ['analyses', analysisId] as const,
+};
+
 export const notificationKeys = {
   list: () => ['notifications'] as const,
 };

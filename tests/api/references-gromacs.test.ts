@@ -26,7 +26,7 @@ import { generateConformer } from '../../server/chem/index';
 import { beadCentre } from '../../server/chem/centres';
 import { prepare } from '../../server/chem/prepared';
 import { createMapping } from '../../server/mappings/mappings.service';
-import { dcdBytes, groText, makeSystem, pdbText, type RefSystem } from '../helpers/reference-systems';
+import { dcdBytes, groText, makeSystem, pdbText, type RefSystem } from '../../seeds/invented-reference';
 import type { Mapping, Molecule } from '../../src/shared/chem';
 import type { AnalysisView, Term } from '../../src/shared/references';
 

@@ -5,7 +5,7 @@ import { createTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { createMolecule, demoProjectId, snapshot } from '../helpers/fixtures';
 import { generateConformer } from '../../server/chem/index';
-import { groText, makeSystem, type RefSystem } from '../helpers/reference-systems';
+import { groText, makeSystem, type RefSystem } from '../../seeds/invented-reference';
 import type { Molecule } from '../../src/shared/chem';
 
 // References over the API: streamed upload, matching in the background, and bad input refused with

@@ -14,6 +14,10 @@ import { MoleculeFacts } from '../../features/molecules/components/molecule-fact
 import { MoleculeThumbnail } from '../../features/molecules/components/molecule-thumbnail';
 import { useProject } from '../../features/projects/api/get-project';
 import { useDocumentTitle } from '../../hooks/use-document-title';
+import { ReferencesPanel } from '../../features/references/components/references-panel';
+import { AnalysesPanel } from '../../features/references/components/analyses-panel';
+import { useReferences } from '../../features/references/api/get-references';
+import { useMappings } from '../../features/mappings/api/get-mappings';
 import { paths } from '../../lib/paths';
 import { useCan } from '../../lib/authorization';
 import type { moleculeLoader } from '../loaders/page-loaders';
@@ -27,6 +31,8 @@ export function MoleculeRoute() {
   // The shared rule table decides, as on the server (site admins included).
   const canEdit = useCan('molecule:update', m.projectId);
   const canMap = useCan('mapping:create', m.projectId);
+  const references = useReferences(m.id);
+  const mappings = useMappings(m.id);
 
   return (
     <>
@@ -62,6 +68,18 @@ export function MoleculeRoute() {
             </Section>
           )}
         </div>
+      </div>
+      <div className="mt-6 grid items-start gap-6 lg:grid-cols-[2fr_3fr]">
+        <Section title="References" description="Atomistic simulations of this molecule; Beadloom finds every copy in them.">
+          <ReferencesPanel moleculeId={m.id} projectId={m.projectId} />
+        </Section>
+        <Section title="Analyses" description="A mapping version applied to a reference: bonded distributions and Boltzmann-inverted parameters.">
+          {mappings.data && mappings.data.length > 0 ? (
+            <AnalysesPanel projectId={m.projectId} mappings={mappings.data.map((p) => ({ id: p.id, name: p.name }))} references={references.data ?? []} />
+          ) : (
+            <p className="text-sm text-ink-600">Make a mapping first.</p>
+          )}
+        </Section>
       </div>
       {importing && <ImportMappingDialog molecule={m} onClose={() => setImporting(false)} />}
     </>

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { generateConformer, parseMolecule, type Molecule } from '../../../server/chem/index';
 import { matchReference } from '../../../server/references/match-reference';
 import { MatchError } from '../../../server/references/match-errors';
-import { groText, makeSystem, type RefSystem } from '../../helpers/reference-systems';
+import { groText, makeSystem, type RefSystem } from '../../../seeds/invented-reference';
 
 // Finding every copy of a molecule in a reference, on invented systems (reference-systems.ts).
 
