@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { startServer } from '../../server/index';
 import { configFromEnv } from '../../server/config';
 import { seedDemo } from '../../seeds/demo';
@@ -10,7 +13,10 @@ import { createTestDatabase } from './db';
 export async function startTestServer(env: Record<string, string> = {}): Promise<{ url: string; stop(): Promise<void> }> {
   const database = await createTestDatabase();
   await seedDemo(database.db, 12);
+  // Uploaded references go to a folder of this run's own.
+  const dataDir = mkdtempSync(join(tmpdir(), 'beadloom-e2e-data-'));
   const config = configFromEnv({
+    BEADLOOM_DATA_DIR: dataDir,
     DATABASE_URL: database.url,
     SESSION_SECRET: 'browser-test-secret-that-is-long-enough-0123',
     PORT: '0',
@@ -26,6 +32,7 @@ export async function startTestServer(env: Record<string, string> = {}): Promise
     async stop() {
       await running.stop();
       await database.drop();
+      rmSync(dataDir, { recursive: true, force: true });
     },
   };
 }

@@ -1,0 +1,60 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdtemp, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { browserSession } from '../helpers/browser-session';
+import { generateConformer } from '../../server/chem/index';
+import { groText, makeSystem } from '../../seeds/invented-reference';
+import type { Molecule } from '../../src/shared/chem';
+
+// Issue 15 through the real client and server: on the molecule page a modeller uploads an invented
+// reference of the demo's anisole, sees it matched, starts an analysis of the demo mapping, watches it
+// finish and opens its distributions (uPlot charts); a student sees both but may not start one.
+
+const session = browserSession();
+let dir: string;
+
+beforeAll(async () => {
+  dir = await mkdtemp(join(tmpdir(), 'beadloom-refs-e2e-'));
+  await session.open();
+});
+afterAll(() => session.close());
+
+describe('references and analyses in the browser', () => {
+  it('uploads a reference, runs an analysis and shows its distributions', async () => {
+    const modeller = await session.signedIn('modeller@example.org', 'beadloom-demo');
+    const { moleculeId, model } = await modeller.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules: { id: number; name: string }[] = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      const anisole = molecules.find((m) => m.name === 'Anisole')!;
+      const detail = await (await fetch(`/api/molecules/${anisole.id}`)).json();
+      return { moleculeId: anisole.id, model: detail.model };
+    });
+    const mol = model as Molecule;
+    const s = makeSystem(mol, await generateConformer(mol, { seed: 5 }), { copies: 8, frames: 12, boxA: 40, noiseA: 0.05, seed: 8 });
+    await writeFile(join(dir, 'box.gro'), groText(s, s.frames.slice(0, 1)));
+    await writeFile(join(dir, 'traj.gro'), groText(s));
+
+    await modeller.goto(`/molecules/${moleculeId}`);
+    const upload = modeller.getByRole('form', { name: 'Upload a reference' });
+    await upload.getByLabel('Name', { exact: true }).fill('Anisole box');
+    await upload.getByLabel('Structure (.gro, .pdb, .mol)').setInputFiles(join(dir, 'box.gro'));
+    await upload.getByLabel(/^Trajectory/).setInputFiles(join(dir, 'traj.gro'));
+    await upload.getByRole('button', { name: 'Upload reference' }).click();
+    const refs = modeller.getByRole('list', { name: 'References' });
+    await refs.getByText('8 copies × 12 frames', { exact: false }).waitFor({ timeout: 60_000 });
+
+    const start = modeller.getByRole('form', { name: 'Start an analysis' });
+    await start.getByRole('button', { name: 'Start analysis' }).click();
+    const analyses = modeller.getByRole('list', { name: 'Analyses' });
+    await analyses.getByRole('button', { name: 'Show distributions' }).click({ timeout: 60_000 });
+    await modeller.getByRole('region', { name: 'bonds distributions' }).waitFor();
+    expect(await modeller.locator('figure .uplot').count()).toBeGreaterThan(0);
+
+    const student = await session.signedIn('student@example.org', 'beadloom-demo');
+    await student.goto(`/molecules/${moleculeId}`);
+    await student.getByRole('list', { name: 'Analyses' }).getByText('done').waitFor();
+    expect(await student.getByRole('form', { name: 'Start an analysis' }).count()).toBe(0);
+    expect(await student.getByRole('form', { name: 'Upload a reference' }).count()).toBe(0);
+  }, 180_000);
+});
