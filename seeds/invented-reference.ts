@@ -87,7 +87,7 @@ export function makeSystem(m: Molecule, xyz: number[][], opts: { copies: number;
   const solvent = opts.solvent ?? 0;
   for (let s = 0; s < solvent; s++) {
     elements.push('Ar');
-    names.push('AR');
+    names.push('Ar');
     residues.push('SOL');
     residueNumbers.push(opts.copies + s + 1);
   }
