@@ -4,18 +4,25 @@ import type { RouteTable } from '../http/route-table';
 import { typed } from '../http/validate';
 import { authorizeProject, requireUser } from '../auth/access';
 import { can } from '../../src/shared/permissions';
-import { unprocessable } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
 import { createMappingBody, updateMappingBody, type MappingDetail } from '../../src/shared/mappings';
 import type { Mapping } from '../../src/shared/chem';
 import { authorizeMolecule } from '../molecules/molecule-access';
 import { authorizeMapping } from './mapping-access';
-import { assertUnlocked, createMapping, findMapping, isMappingOf, listMappings, listProjectMappings, updateMapping } from './mappings.service';
+import { assertUnlocked, createMapping, findMapping, listMappings, listProjectMappings, updateMapping } from './mappings.service';
 import type { DraftAccess } from './draft-access';
 import type { MappingStarts } from './mapping-starts';
-import type { TransferReport } from '../../src/shared/proposals';
+import { transferSummary, type TransferReport } from '../../src/shared/proposals';
 
 const params = z.object({ id: idParam });
+const DESCRIPTION_MAX = 5000;
+
+function withTransferSummary(description: string | undefined, report: TransferReport, draft: Mapping | null): string {
+  const atoms = new Set(draft?.beads.flatMap((b) => b.atoms.map((a) => a.index)) ?? []).size;
+  const own = description?.trim() ?? '';
+  const summary = transferSummary(report, Math.max(atoms, report.matchedAtoms), DESCRIPTION_MAX - own.length - 2);
+  return own ? `${own}\n\n${summary}` : summary;
+}
 
 export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess, starts: MappingStarts): void {
   const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
@@ -37,15 +44,15 @@ export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAcces
     let draft: Mapping | null = null;
     let transfer: TransferReport | undefined;
     if (start === 'proposal') draft = await starts.proposal(moleculeId, body.resolution);
-    else if (typeof start === 'object' && 'copyOf' in start) {
-      if (!(await isMappingOf(ctx.db, start.copyOf, moleculeId))) throw unprocessable('copy_source_invalid', `Mapping ${start.copyOf} is not a mapping of this molecule.`, { copyOf: start.copyOf });
-      draft = (await drafts.read(start.copyOf)).draft;
-    } else if (typeof start === 'object') {
+    else if (typeof start === 'object' && 'copyOf' in start) draft = await starts.copy(moleculeId, start);
+    else if (typeof start === 'object') {
       const result = await starts.transfer(moleculeId, start, body.resolution);
       draft = result.draft;
       transfer = result.report;
     }
-    const id = await createMapping(ctx.db, moleculeId, body, requireUser(req).id, draft);
+    // The transfer report stays readable with the mapping: a summary follows the description.
+    const description = transfer ? withTransferSummary(body.description, transfer, draft) : body.description;
+    const id = await createMapping(ctx.db, moleculeId, { ...body, description }, requireUser(req).id, draft);
     res.status(201).json({ ...(await detail(id, true)), ...(transfer ? { transfer } : {}) });
   }));
 

@@ -87,10 +87,6 @@ export async function updateMapping(db: Db, id: number, patch: UpdateMappingBody
 }
 
 /** A mapping of this molecule (the source of a copy must be one). */
-export async function isMappingOf(db: Db, mappingId: number, moleculeId: number): Promise<boolean> {
-  return !!(await db('mappings').where({ id: mappingId, molecule_id: moleculeId }).first('id'));
-}
-
 /** REST edits of a locked mapping answer 409 mapping_locked (the lock itself is server/lock's). */
 export async function assertUnlocked(db: Db, mappingId: number): Promise<void> {
   const row = await db('mappings').where({ id: mappingId }).first('locked');

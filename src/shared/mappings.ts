@@ -13,19 +13,27 @@ const description = z.string().trim().max(5000, 'A description has at most 5000 
 
 const mappingId = z.number('A mapping id is a number.').int('A mapping id is a whole number.').positive('A mapping id is positive.');
 
+/** Which state of a source mapping a copy or transfer starts from (absent: its draft). */
+export const sourceVersion = z.union(
+  [z.literal('draft'), z.literal('production'), z.number().int('A version number is a whole number.').positive('A version number is positive.')],
+  "A version is a number, 'draft' or 'production'.",
+);
+export type SourceVersion = z.infer<typeof sourceVersion>;
+
 /**
  * How a new mapping's draft starts: empty; the best automatic proposal; a copy of another mapping of
- * the same molecule; or a transfer from a mapping (its draft, or one of its versions) of a molecule of
- * the same project (docs/chemistry.md, "Mapping proposals").
+ * the same molecule; or a transfer from a mapping of a molecule of the same project — each of the last
+ * two from the source's draft, its locked production version or any saved version (docs/chemistry.md,
+ * "Mapping proposals").
  */
 export const mappingStart = z.union(
   [
     z.literal('empty'),
     z.literal('proposal'),
-    z.strictObject({ copyOf: mappingId }),
-    z.strictObject({ transferFrom: mappingId, version: z.number().int().positive('A version number is positive.').optional() }),
+    z.strictObject({ copyOf: mappingId, version: sourceVersion.optional() }),
+    z.strictObject({ transferFrom: mappingId, version: sourceVersion.optional() }),
   ],
-  "Start with 'empty', 'proposal', { copyOf } or { transferFrom, version? }.",
+  "Start with 'empty', 'proposal', { copyOf, version? } or { transferFrom, version? }.",
 );
 export type MappingStart = z.infer<typeof mappingStart>;
 

@@ -40,6 +40,35 @@ export interface TransferReport {
   added: { name: string; atoms: number[] }[];
   /** Atoms of the new molecule with a counterpart in the source molecule (maximum common substructure). */
   matchedAtoms: number;
+  /** The mapping and state carried over (added by the server; version null = its draft). */
+  source?: TransferSource;
+}
+
+export interface TransferSource {
+  mappingId: number;
+  mappingName: string;
+  moleculeName: string;
+  version: number | null;
+  /** True when that version was the source's locked production version. */
+  production: boolean;
+}
+
+const names = (list: { name: string }[]) => (list.length ? list.map((b) => b.name).join(', ') : 'none');
+
+/**
+ * The transfer report in a few lines of text: kept in the new mapping's description so the group can
+ * still read where the mapping came from after the report on screen is dismissed.
+ */
+export function transferSummary(r: TransferReport, atomCount: number, max = 1000): string {
+  const s = r.source;
+  const from = s ? `Transferred from “${s.mappingName}” of ${s.moleculeName} (${s.version === null ? 'draft' : `version ${s.version}${s.production ? ', production' : ''}`})` : 'Transferred from a related mapping';
+  const text = [
+    `${from}: ${r.matchedAtoms} of ${atomCount} heavy atoms matched by common substructure.`,
+    `Carried over: ${names(r.carried)}.`,
+    `Changed (only partly matched, proposed anew): ${r.changed.length ? r.changed.map((c) => `${c.name} (${c.matched} of ${c.total} atoms)`).join(', ') : 'none'}.`,
+    `Newly proposed: ${names(r.added)}.`,
+  ].join('\n');
+  return text.length > max ? `${text.slice(0, max - 1)}…` : text;
 }
 
 export interface TransferResult {

@@ -104,9 +104,41 @@ describe('starting a mapping', () => {
     expect(report.added.flatMap((b) => b.atoms).sort((a, b) => a - b)).toEqual(range(18, 30));
     expect(new Set(draft.beads.map((b) => b.name)).size).toBe(draft.beads.length);
 
+    expect(report.source).toMatchObject({ mappingId, version: null, production: false, moleculeName: expect.any(String), mappingName: expect.any(String) });
+    // The summary stays with the mapping, in its description.
+    expect(res.body.description).toContain('Carried over: T1, T2, T3, E1, E2.');
+    expect(res.body.description).toContain('(draft): 25 of 31 heavy atoms matched');
+
     await modeller.post(`/api/mappings/${mappingId}/versions`, { message: 'For the transfer' }).expect(201);
-    const fromVersion = await modeller.post(`/api/molecules/${target}/mappings`, { name: 'From v1', resolution: '4:1', start: { transferFrom: mappingId, version: 1 } }).expect(201);
+    const fromVersion = await modeller.post(`/api/molecules/${target}/mappings`, { name: 'From v1', resolution: '4:1', description: 'Longer EO head.', start: { transferFrom: mappingId, version: 1 } }).expect(201);
     expect((fromVersion.body.transfer as TransferReport).carried.map((b) => b.name)).toEqual(['T1', 'T2', 'T3', 'E1', 'E2']);
+    expect((fromVersion.body.transfer as TransferReport).source).toMatchObject({ version: 1, production: false });
+    expect(fromVersion.body.description).toMatch(/^Longer EO head\.\n\nTransferred from .*\(version 1\)/);
+    // 'draft' names the draft explicitly, like no version at all.
+    const fromDraft = await modeller.post(`/api/molecules/${target}/mappings`, { name: 'From the draft', resolution: '4:1', start: { transferFrom: mappingId, version: 'draft' } }).expect(201);
+    expect((fromDraft.body.transfer as TransferReport).source?.version).toBeNull();
+  });
+
+  it('copies and transfers a saved version and the locked production version, not only the draft', async () => {
+    const source = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'Versioned source', resolution: '4:1', start: { copyOf: mappingId } }).expect(201);
+    const sourceId = source.body.id as number;
+    const v = await modeller.post(`/api/mappings/${sourceId}/versions`, { message: 'Five beads' }).expect(201);
+    // Refused before the lock: no production version yet.
+    const none = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'No production', resolution: '4:1', start: { copyOf: sourceId, version: 'production' } }).expect(422);
+    expect(none.body.error.code).toBe('copy_version_invalid');
+    const supervisor = await signedIn(t.app, 'supervisor@example.org');
+    await supervisor.post(`/api/mappings/${sourceId}/lock`, { version: v.body.number, note: 'For the copy test' }).expect(200);
+
+    const fromVersion = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'Copy of v', resolution: '4:1', start: { copyOf: sourceId, version: v.body.number } }).expect(201);
+    expect(fromVersion.body.draft.beads.map((b: { name: string }) => b.name)).toEqual(['T1', 'T2', 'T3', 'E1', 'E2']);
+    const fromProduction = await modeller.post(`/api/molecules/${moleculeId}/mappings`, { name: 'Copy of production', resolution: '4:1', start: { copyOf: sourceId, version: 'production' } }).expect(201);
+    expect(fromProduction.body.draft.beads.map((b: { name: string }) => b.name)).toEqual(['T1', 'T2', 'T3', 'E1', 'E2']);
+
+    const projectId = await demoProjectId(t.ctx.db);
+    const target = await createMolecule(t.ctx.db, projectId, 'C12E5', `${'C'.repeat(12)}${'OCC'.repeat(5)}O`);
+    const transfer = await modeller.post(`/api/molecules/${target}/mappings`, { name: 'From production', resolution: '4:1', start: { transferFrom: sourceId, version: 'production' } }).expect(201);
+    expect((transfer.body.transfer as TransferReport).source).toMatchObject({ mappingId: sourceId, version: v.body.number, production: true });
+    expect(transfer.body.description).toContain(`(version ${v.body.number}, production)`);
   });
 
   it('reports beads only partly found in the new molecule as changed', async () => {
@@ -129,6 +161,10 @@ describe('starting a mapping', () => {
     ['a version the source does not have', { start: { transferFrom: 'MAPPING', version: 999 } }, 422, 'transfer_version_invalid'],
     ['a non-numeric transfer source', { start: { transferFrom: 'x' } }, 400, 'validation_failed'],
     ['an extra field in start', { start: { transferFrom: 'MAPPING', also: 1 } }, 400, 'validation_failed'],
+    ['a transfer from a production version the source does not have', { start: { transferFrom: 'MAPPING', version: 'production' } }, 422, 'transfer_version_invalid'],
+    ['a copy of a version the source does not have', { start: { copyOf: 'MAPPING', version: 999 } }, 422, 'copy_version_invalid'],
+    ['a version that is no number, draft or production', { start: { copyOf: 'MAPPING', version: 'latest' } }, 400, 'validation_failed'],
+    ['a version of zero', { start: { transferFrom: 'MAPPING', version: 0 } }, 400, 'validation_failed'],
   ])('refuses %s and creates nothing', async (_what, extra, status, code) => {
     const before = await snapshot(t.ctx.db, TABLES);
     const body = JSON.parse(JSON.stringify({ name: 'Refused', resolution: '4:1', ...extra }).replace('"MAPPING"', String(mappingId)));

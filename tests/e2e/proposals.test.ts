@@ -112,4 +112,48 @@ describe('proposals in the editor', () => {
     await expect.poll(() => page.locator('[data-bead-tag]').count()).toBeGreaterThanOrEqual(4);
     expect(pageErrors).toEqual([]);
   });
+
+  it('transfers a saved version of a related molecule’s mapping from the form and shows the transfer report', async () => {
+    const page = await session.signedIn('modeller@example.org', PASSWORD);
+    const { targetId, version, sourceLabel } = await page.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      const c12e4 = molecules.find((m: { name: string }) => m.name.includes('C12E4'));
+      const [source] = await (await fetch(`/api/molecules/${c12e4.id}/mappings`)).json();
+      const { token } = await (await fetch('/api/auth/csrf')).json();
+      const post = (url: string, body: unknown) => fetch(url, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token }, body: JSON.stringify(body) }).then((r) => r.json());
+      const saved = await post(`/api/mappings/${source.id}/versions`, { message: 'Agreed tail' });
+      const target = await post(`/api/projects/${projects[0].id}/molecules`, { name: 'C12E6 for the transfer', smiles: `${'C'.repeat(12)}${'OCC'.repeat(6)}O` });
+      return { targetId: target.id as number, version: saved.number as number, sourceLabel: `Transfer from ${c12e4.name}: “${source.name}”` };
+    });
+
+    await page.goto(`/molecules/${targetId}`);
+    const form = page.getByRole('form', { name: 'New mapping' });
+    await form.getByLabel('Mapping name').fill('C12E6 from the agreed tail');
+    await form.getByLabel('Start from').selectOption({ label: sourceLabel });
+    // The source's state: its draft, or any saved version (this one, chosen with the keyboard).
+    const which = form.getByLabel('Version of the source');
+    await which.locator(`option[value="${version}"]`).waitFor({ state: 'attached' });
+    await which.focus();
+    await which.selectOption(String(version));
+    await form.getByRole('button', { name: 'Create and open' }).click();
+
+    const report = page.getByRole('region', { name: /^Transfer report/ });
+    await report.waitFor();
+    await expect(report.getByRole('heading').textContent()).resolves.toContain(`version ${version}`);
+    await expect(report.textContent()).resolves.toMatch(/25 of 31 heavy atoms have a counterpart/);
+    await expect(report.locator('dt', { hasText: 'Carried over' }).textContent()).resolves.not.toBe('Carried over (0)');
+    await expect(report.locator('dd').first().textContent()).resolves.toContain('T1');
+    await page.locator('[data-connection="live"]').waitFor();
+    await tag(page, 'T1').waitFor();
+
+    // A reload keeps the report; dismissing it removes it, and its summary stays in the description.
+    await page.reload();
+    await report.waitFor();
+    await report.getByRole('button', { name: 'Dismiss' }).click();
+    await report.waitFor({ state: 'detached' });
+    await page.goto(`/molecules/${targetId}`);
+    await page.getByRole('list', { name: 'Mappings' }).getByText(`(version ${version}): 25 of 31 heavy atoms matched`).waitFor();
+    expect(pageErrors).toEqual([]);
+  });
 });

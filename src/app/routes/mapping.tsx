@@ -11,6 +11,7 @@ import { moleculeQueryOptions } from '../../features/molecules/api/get-molecule'
 import { useProject } from '../../features/projects/api/get-project';
 import { useEditorThreads } from '../../features/threads/components/use-editor-threads';
 import { VersionThreads } from '../../features/threads/components/version-threads';
+import { TransferReportPanel } from '../../features/mappings/components/transfer-report';
 import { MappingHistory } from '../../features/versions/components/mapping-history';
 import { ExportMenu } from '../../features/exports/components/export-menu';
 import { useCurrentUser } from '../../lib/auth';
@@ -46,6 +47,7 @@ export function MappingRoute() {
         <span className="rounded-full bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-800">{mapping.resolution} target</span>
         {mapping.locked && <span className="rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Production version locked</span>}
       </header>
+      <TransferReportPanel atomCount={molecule.model.heavyAtoms ?? molecule.model.atoms.length} />
       <MappingWithThreads mapping={mapping} molecule={molecule.model} library={library.types} onSession={onSession} />
       <HistoryAndExports mapping={mapping} editor={editor} />
     </div>

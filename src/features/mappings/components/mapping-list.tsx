@@ -21,7 +21,7 @@ export function MappingList({ moleculeId }: { moleculeId: number }) {
               <span className="font-semibold text-ink-900">{m.name}</span>
               <span className="ml-2 rounded-full bg-ink-100 px-2 py-0.5 text-xs font-semibold text-ink-800">{m.resolution}</span>
               {m.locked && <span className="ml-2 rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Locked</span>}
-              {m.description && <span className="block text-sm text-ink-700">{m.description}</span>}
+              {m.description && <span className="block whitespace-pre-line text-sm text-ink-700">{m.description}</span>}
             </span>
             <span className="text-xs text-ink-600">{plural(m.beadCount, 'bead')} · updated {formatDate(m.updatedAt)}</span>
           </Link>
