@@ -7,7 +7,7 @@ import { requireUser } from '../auth/access';
 import { idParam } from '../../src/shared/fields';
 import { bondedTermsPutBody } from '../../src/shared/bonded-terms';
 import { authorizeMapping } from '../mappings/mapping-access';
-import { readBondedTerms, writeBondedTerms } from './bonded-terms.service';
+import { fillFromAnalysis, readBondedTerms, writeBondedTerms } from './bonded-terms.service';
 
 const params = z.object({ id: idParam });
 
@@ -19,6 +19,7 @@ export function bondedTermRoutes(r: RouteTable, ctx: AppContext, collab: Collab)
 
   r.put('/api/mappings/:id/bonded-terms', typed({ params, body: bondedTermsPutBody }, async ({ params, body }, req, res) => {
     await authorizeMapping(ctx.db, req, params.id, 'mapping:edit');
-    res.json(await writeBondedTerms(ctx.db, collab.rooms, collab, params.id, body, requireUser(req).id));
+    const userId = requireUser(req).id;
+    res.json('fromAnalysis' in body ? await fillFromAnalysis(ctx.db, collab.rooms, collab, params.id, body.fromAnalysis, userId) : await writeBondedTerms(ctx.db, collab.rooms, collab, params.id, body, userId));
   }));
 }

@@ -1,13 +1,14 @@
 import type { Db } from '../db/knex';
 import type { DraftAccess } from '../mappings/draft-access';
 import type { Rooms } from '../drafts/rooms';
-import type { BondedParams, BondedTerm, BondedTermsPutBody, BondedTermsView, TermKind } from '../../src/shared/bonded-terms';
+import type { BondedParams, BondedTerm, BondedTermsView, TermKind } from '../../src/shared/bonded-terms';
+import { planFill, type BondedFillView, type FillReport } from '../../src/shared/bonded-fill';
 import { BEADS_PER_TERM, bondedRows, termKey, topologyTermIds } from '../../src/shared/bonded-terms';
 import type { Mapping, Molecule, Topology } from '../../src/shared/chem';
 import { readBonded, setBonded } from '../../src/shared/mapping-doc';
 import { conflict, notFound, unprocessable } from '../http/errors';
 import { junctionOf, junctionTerms, parseUnitRef, unitRef } from '../../src/shared/repeat-chain';
-import { mappingForExport } from '../exports/exports.service';
+import { finishedAnalysisOf, mappingForExport } from '../exports/exports.service';
 import { parseModel } from '../molecules/molecule-view';
 import { assertUnlocked } from '../mappings/mappings.service';
 
@@ -79,8 +80,7 @@ export function entriesOf(draft: Mapping, topology: Topology, terms: readonly Bo
 }
 
 /** PUT: the table becomes exactly these terms (and exclusion count, when given). */
-export async function writeBondedTerms(db: Db, rooms: Rooms, drafts: DraftAccess, mappingId: number, body: BondedTermsPutBody, userId: number): Promise<BondedTermsView> {
-  if ('fromAnalysis' in body) return fillFromAnalysis(db, mappingId, body.fromAnalysis);
+export async function writeBondedTerms(db: Db, rooms: Rooms, drafts: DraftAccess, mappingId: number, body: { terms: BondedTerm[]; exclusions?: number | null }, userId: number): Promise<BondedTermsView> {
   await assertUnlocked(db, mappingId);
   const room = await rooms.open(mappingId);
   if (!room) throw notFound('That mapping');
@@ -100,13 +100,31 @@ export async function writeBondedTerms(db: Db, rooms: Rooms, drafts: DraftAccess
 }
 
 /**
- * Fitted values from a reference analysis. The analyses (reference trajectories) are another
- * module's table; until it exists every id is unknown, and an unknown id is a 404, never a made-up fill.
+ * PUT { fromAnalysis }: the rows the analysis has fitted values for get them (src/shared/bonded-fill.ts
+ * says which values and why), in one edit of the live draft; the answer says what was filled, which
+ * analysis terms were not used and which rows the analysis does not cover (left as they were).
  */
-async function fillFromAnalysis(db: Db, mappingId: number, analysisId: number): Promise<BondedTermsView> {
-  if (!(await db.schema.hasTable('analyses'))) throw notFound('That analysis');
-  const row = await db('analyses').where({ id: analysisId }).first('mapping_id');
-  if (!row) throw notFound('That analysis');
-  if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
-  throw unprocessable('analysis_fill_unavailable', 'Filling bonded terms from an analysis is not available yet in this build.', { analysisId });
+export async function fillFromAnalysis(db: Db, rooms: Rooms, drafts: DraftAccess, mappingId: number, analysisId: number, userId: number): Promise<BondedFillView> {
+  const analysis = await finishedAnalysisOf(db, mappingId, analysisId);
+  await assertUnlocked(db, mappingId);
+  const room = await rooms.open(mappingId);
+  if (!room) throw notFound('That mapping');
+  let report: FillReport = { analysisId, filled: [], skipped: [], missing: [] };
+  try {
+    const { result } = await drafts.read(mappingId);
+    const topology = topologyOf(result);
+    const model = await moleculeOf(db, mappingId);
+    await room.editDraft((next, current) => {
+      const junction = junctionTermIds(model, current, topology);
+      const rows = bondedView(current, topology, junction).terms;
+      // bondedView lists the topology's terms, then the junction's, in this order: the same keys.
+      const keys = [...topologyTermIds(topology), ...junction].map(({ kind, ids }) => termKey(kind, ids));
+      const plan = planFill(rows, analysis.result);
+      report = { analysisId, filled: plan.filled, skipped: plan.skipped, missing: plan.missing };
+      if (plan.updates.length > 0) setBonded(next, Object.fromEntries(plan.updates.map((u) => [keys[u.row], u.params])));
+    }, userId);
+  } finally {
+    await room.releaseIfIdle();
+  }
+  return { ...(await readBondedTerms(db, drafts, mappingId)), fill: report };
 }

@@ -64,7 +64,8 @@ function chainShift(s: ExportSource): Vec3 {
   return [p[0] - q[0], p[1] - q[1], p[2] - q[2]];
 }
 
-export function buildCgModel(s: ExportSource, units = 1): CgModel {
+/** `centres` (bead id → nm) replaces the 3D coordinates' bead centres, e.g. an analysis's mean structure. */
+export function buildCgModel(s: ExportSource, units = 1, centres?: ReadonlyMap<string, Vec3>): CgModel {
   const problems: Problem[] = [];
   const junction = units > 1 ? junctionOf(s.model, s.draft.beads) : null;
   if (units > 1 && !junction) problems.push({ check: 'no_junction', message: 'The atoms next to the attachment points are not both in beads, so units cannot be joined.' });
@@ -85,7 +86,9 @@ export function buildCgModel(s: ExportSource, units = 1): CgModel {
   if (s.draft.exclusions === undefined && !problems.some((p) => p.check === 'exclusions_missing')) problems.push({ check: 'exclusions_missing', message: 'No exclusion count set.' });
   for (const b of s.draft.beads) {
     if (!b.type) problems.push({ check: 'bead_type_missing', message: `Bead ${b.name} has no bead type.` });
-    if (!byId.get(b.id)?.centre) problems.push({ check: 'no_3d_coordinates', message: `Bead ${b.name} has no 3D centre (the molecule has no 3D coordinates yet).` });
+    if (centres) {
+      if (!centres.has(b.id)) problems.push({ check: 'analysis_bead_missing', message: `Bead ${b.name} is not in the analysis's structure (the analysis applied a state of the mapping without it).` });
+    } else if (!byId.get(b.id)?.centre) problems.push({ check: 'no_3d_coordinates', message: `Bead ${b.name} has no 3D centre (the molecule has no 3D coordinates yet).` });
   }
   if (problems.length > 0) {
     throw unprocessable('model_incomplete', `This state cannot be exported to an engine yet: ${problems.map((p) => p.message).join(' ')}`, { problems });
@@ -103,6 +106,8 @@ export function buildCgModel(s: ExportSource, units = 1): CgModel {
   const cg = (id: string, u = 0): CgBead => {
     const e = byId.get(id)!;
     const bead = s.draft.beads.find((b) => b.id === id)!;
+    const given = centres?.get(id);
+    if (given) return { name: bead.name, residue: u + 1, type: bead.type!, mass: e.mass, charge: e.charge, xyz: [given[0], given[1], given[2]] };
     const [x, y, z] = e.centre!;
     return { name: bead.name, residue: u + 1, type: bead.type!, mass: e.mass, charge: e.charge, xyz: [(x + u * shift[0]) * NM_PER_ANGSTROM, (y + u * shift[1]) * NM_PER_ANGSTROM, (z + u * shift[2]) * NM_PER_ANGSTROM] };
   };

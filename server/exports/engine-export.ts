@@ -7,6 +7,7 @@ import { lammpsFiles } from './lammps';
 import { nonbondedTypes, placeholderNote, type LibraryNonbonded } from './nonbonded';
 import { beadIndexGroups, writeNdx } from './ndx';
 import { slug } from './render';
+import type { AnalysisStructure } from './analysis-structure';
 
 // The engine downloads (docs/exports.md): a zip of GROMACS or LAMMPS files for one state of a mapping.
 
@@ -16,10 +17,10 @@ export const ENGINE_TITLES = {
 } as const;
 export type EngineFormat = keyof typeof ENGINE_TITLES;
 
-export function engineFiles(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1): TextFile[] {
-  const model = buildCgModel(s, units);
+export function engineFiles(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1, structure?: AnalysisStructure): TextFile[] {
+  const model = buildCgModel(s, units, structure?.centres);
   const types = nonbondedTypes(model, library);
-  const header = headerLines(s, ENGINE_TITLES[format]);
+  const header = [...headerLines(s, ENGINE_TITLES[format]), ...(structure ? [`Coordinates: ${structure.note}.`] : [])];
   const base = slug(s.mappingName);
   if (format === 'lammps') {
     const dataName = `${base}.data`;
@@ -37,15 +38,15 @@ export function engineFiles(s: ExportSource, format: EngineFormat, library: Libr
   return [
     ...itps,
     { name: 'topol.top', text: topol(model, types, itps.map((f) => f.name), `${s.moleculeName} (${s.mappingName}, ${stateLabel(s)})`, header) },
-    { name: 'conf.gro', text: gro(placed, edge, `${header[0]}; ${s.mappingName} ${stateLabel(s)}; bead centres from 3D coordinates, nm`) },
+    { name: 'conf.gro', text: gro(placed, edge, `${header[0]}; ${s.mappingName} ${stateLabel(s)}; ${structure?.note ?? 'bead centres from 3D coordinates, nm'}`) },
     { name: 'md.mdp', text: mdp(header) },
     { name: `${base}-atoms.ndx`, text: writeNdx(beadIndexGroups(s.model, s.draft.beads), ndxHeader) },
   ];
 }
 
 /** The zip of an engine export, as a buffer (the files are small). */
-export async function engineZip(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1): Promise<{ name: string; body: Buffer }> {
-  const files = engineFiles(s, format, library, units);
+export async function engineZip(s: ExportSource, format: EngineFormat, library: LibraryNonbonded, units = 1, structure?: AnalysisStructure): Promise<{ name: string; body: Buffer }> {
+  const files = engineFiles(s, format, library, units, structure);
   const { ZipArchive } = await import('archiver');
   const zip = new ZipArchive({ zlib: { level: 6 } });
   const chunks: Buffer[] = [];

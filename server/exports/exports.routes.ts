@@ -17,7 +17,8 @@ import { exportSource } from './export-source';
 import { renderExport } from './render';
 import { writeProjectZip } from './project-zip';
 import { importMapping, planImport, previewOf } from './import.service';
-import { analysisForExport, libraryNonbonded, projectName } from './exports.service';
+import { finishedAnalysisOf, libraryNonbonded, projectName } from './exports.service';
+import { analysisStructure, type AnalysisStructure } from './analysis-structure';
 import { ndxComments, slug } from './render';
 import { writeNdx } from './ndx';
 import { referenceIndexGroups } from './reference-ndx';
@@ -37,9 +38,14 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
     const q = query;
     const source = await exportSource(ctx.db, drafts, id, q.version);
     if (isEngineFormat(q.format)) {
-      if (q.analysis !== undefined) await analysisForExport(ctx.db, id, q.analysis);
+      let structure: AnalysisStructure | undefined;
+      if (q.analysis !== undefined) {
+        const analysis = await finishedAnalysisOf(ctx.db, id, q.analysis);
+        if ((q.units ?? 1) > 1) throw unprocessable('analysis_one_unit', 'An analysis\'s mean structure is one molecule; export a chain of units from the 3D coordinates (without analysis).', { analysisId: q.analysis });
+        structure = await analysisStructure(ctx.config.dataDir, analysis);
+      }
       assertUnits(source, q.units);
-      const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id), q.units ?? 1);
+      const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id), q.units ?? 1, structure);
       res.setHeader('Content-Type', 'application/zip');
       res.setHeader('Content-Disposition', `attachment; filename="${zip.name}"`);
       res.setHeader('X-Content-SHA256', source.sha256);

@@ -1,7 +1,8 @@
 import type { Db } from '../db/knex';
 import { mappingsWithMolecule } from '../mappings/mappings.service';
 import type { Resolution } from '../../src/shared/chem';
-import { notFound, unprocessable } from '../http/errors';
+import { conflict, notFound, unprocessable } from '../http/errors';
+import type { AnalysisResult } from '../../src/shared/references';
 import { libraryFor } from '../bead-types/bead-types.service';
 
 // Knex for exports: the rows an export file and the project download are written from.
@@ -28,15 +29,22 @@ export async function projectName(db: Db, projectId: number): Promise<string> {
 }
 
 /**
- * The reference analysis an engine export takes its structure from. Analyses belong to the reference
- * trajectories module; until its table exists every id is unknown (404), never a made-up structure.
+ * A finished analysis of this mapping, for an export's structure or a fill of the bonded terms: 404
+ * when it does not exist or belongs to another project (the caller was authorised for this mapping
+ * only, so nothing about other projects leaks), 422 `analysis_of_other_mapping` for another mapping of
+ * the same project, 409 `analysis_not_finished` until it is done.
  */
-export async function analysisForExport(db: Db, mappingId: number, analysisId: number): Promise<never> {
-  if (!(await db.schema.hasTable('analyses'))) throw notFound('That analysis');
-  const row = await db('analyses').where({ id: analysisId }).first('mapping_id');
-  if (!row) throw notFound('That analysis');
+export async function finishedAnalysisOf(db: Db, mappingId: number, analysisId: number): Promise<{ id: number; versionNumber: number | null; result: AnalysisResult }> {
+  const row = await db('analyses as a')
+    .join('mappings as p', 'p.id', 'a.mapping_id')
+    .join('molecules as m', 'm.id', 'p.molecule_id')
+    .where('a.id', analysisId)
+    .first('a.id', 'a.mapping_id', 'a.status', 'a.version_number', 'a.result', 'm.project_id');
+  const own = await mappingsWithMolecule(db).where('p.id', mappingId).first('m.project_id');
+  if (!row || !own || row.project_id !== own.project_id) throw notFound('That analysis');
   if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
-  throw unprocessable('analysis_structure_unavailable', 'Coordinates from an analysis\'s mean structure are not available yet in this build; export without analysis to use the 3D coordinates.', { analysisId });
+  if (row.status !== 'done' || !row.result) throw conflict('analysis_not_finished', `That analysis is ${row.status}; only a finished analysis has fitted values and a mean structure.`, { analysisId, status: row.status });
+  return { id: row.id, versionNumber: row.version_number, result: JSON.parse(row.result) as AnalysisResult };
 }
 
 /** The non-bonded parameters of the mapping's project library, by bead type name (nulls: not set). */

@@ -9,6 +9,7 @@ import { createMapping } from '../../server/mappings/mappings.service';
 import { groText, makeSystem, type RefSystem } from '../../seeds/invented-reference';
 import type { Mapping, Molecule } from '../../src/shared/chem';
 import type { AnalysisView } from '../../src/shared/references';
+import { uploadReference as uploadReferenceFor } from './analysis-fixtures';
 
 // Analyses over the API: a mapping version applied to a reference in the background, its result,
 // cancelling, downloads, and bad input refused with nothing stored.
@@ -34,18 +35,7 @@ const DRAFT: Mapping = {
   ],
 };
 
-async function uploadReference(moleculeId: number, s: RefSystem): Promise<number> {
-  const res = await modeller.agent
-    .post(`/api/molecules/${moleculeId}/references`)
-    .set('x-csrf-token', modeller.csrf)
-    .attach('structure', Buffer.from(groText(s, s.frames.slice(0, 1))), 'box.gro')
-    .attach('trajectory', Buffer.from(groText(s)), 'traj.gro')
-    .expect(202);
-  await t.tasks.idle();
-  const got = await modeller.get(`/api/references/${res.body.id}`).expect(200);
-  expect(got.body.status, JSON.stringify(got.body.error)).toBe('ready');
-  return res.body.id;
-}
+const uploadReference = (moleculeId: number, s: RefSystem) => uploadReferenceFor(t, modeller, moleculeId, s);
 
 const untilFinished = async (id: number): Promise<AnalysisView> => {
   await t.tasks.idle();
