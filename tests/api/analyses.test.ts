@@ -6,7 +6,7 @@ import { generateConformer } from '../../server/chem/index';
 import { beadCentre } from '../../server/chem/centres';
 import { prepare } from '../../server/chem/prepared';
 import { createMapping } from '../../server/mappings/mappings.service';
-import { groText, makeSystem, type RefSystem } from '../../seeds/invented-reference';
+import { makeSystem, type RefSystem } from '../../seeds/invented-reference';
 import type { Mapping, Molecule } from '../../src/shared/chem';
 import type { AnalysisView } from '../../src/shared/references';
 import { uploadReference as uploadReferenceFor } from './analysis-fixtures';
