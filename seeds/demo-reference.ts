@@ -8,9 +8,8 @@ import { docToMapping } from '../src/shared/mapping-doc';
 import { loadDraft } from '../server/drafts/drafts.service';
 import { matchReference } from '../server/references/match-reference';
 import { referenceDir, analysisDir } from '../server/references/reference-files';
-import { analyseFrames } from '../server/analyses/analyse-frames';
 import { planAnalysis } from '../server/analyses/analysis-plan';
-import { buildResult } from '../server/analyses/analysis-result';
+import { runAnalysis } from '../server/analyses/analysis-run';
 import { contentSha256 } from '../server/versions/content-hash';
 import { DEFAULT_BINS, DEFAULT_TEMPERATURE } from '../src/shared/references';
 import { groText, makeSystem } from './invented-reference';
@@ -74,19 +73,8 @@ export async function seedDemoReference(db: Knex, dataDir: string): Promise<void
     created_by: modeller,
   });
   const index = JSON.parse(await readFile(join(dir, 'frames.json'), 'utf8'));
-  const values = plan.terms.map(() => new Float32Array(found.frames * found.copies));
   const out = analysisDir(dataDir, analysisId);
   await mkdir(out, { recursive: true });
-  const centres: Buffer[] = [];
-  await analyseFrames(
-    { source: { path: join(dir, 'trajectory.gro'), format: 'gro' }, index, copiesFile: join(dir, 'copies.bin'), copies: found.copies, atomsPerCopy: found.atomsPerCopy, order: plan.order, via: plan.via, beads: plan.beads, terms: plan.terms, from: 0, to: found.frames, chunk: 16 },
-    (part) => {
-      centres.push(Buffer.from(part.centres.buffer, part.centres.byteOffset, part.centres.byteLength));
-      const nf = part.to - part.from;
-      plan.terms.forEach((_, ti) => values[ti].set(part.values.subarray(ti * nf * found.copies, (ti + 1) * nf * found.copies), part.from * found.copies));
-    },
-  );
-  await writeFile(join(out, 'centres.f32'), Buffer.concat(centres));
-  const result = buildResult(plan, values, found.frames, found.copies, DEFAULT_TEMPERATURE, DEFAULT_BINS);
+  const result = await runAnalysis({ plan, source: found.source, index, copiesFile: join(dir, 'copies.bin'), copies: found.copies, atomsPerCopy: found.atomsPerCopy, outDir: out, temperature: DEFAULT_TEMPERATURE, bins: DEFAULT_BINS });
   await db('analyses').where({ id: analysisId }).update({ status: 'done', progress_done: found.frames, progress_total: found.frames, result: JSON.stringify(result), started_at: db.fn.now(3), finished_at: db.fn.now(3) });
 }

@@ -1,16 +1,17 @@
-// From the collected term values to the stored result: each term's distribution and Boltzmann
-// inversion (trajectory/distributions.ts) and, for dihedrals, the cosine fit (cosine-fit.ts).
+// From each term's distribution to the stored result: rounded numbers, bead names and ids, and, for
+// dihedrals, the cosine fit (cosine-fit.ts).
 import type { AnalysisResult, Term } from '../../src/shared/references';
 import { fitCosines } from '../trajectory/cosine-fit';
-import { distribution } from '../trajectory/distributions';
+import type { Distribution } from '../trajectory/distributions';
 import type { AnalysisPlan } from './analysis-plan';
 
 const round = (v: number, digits = 6) => (Number.isFinite(v) ? Number(v.toPrecision(digits)) : v);
 
-export function buildResult(plan: AnalysisPlan, values: Float32Array[], frames: number, copies: number, temperature: number, bins: number): AnalysisResult {
+/** distributions[i]: the distribution of plan.terms[i] (analysis-run.ts builds them from the values file). */
+export function buildResult(plan: AnalysisPlan, distributions: Distribution[], frames: number, copies: number): AnalysisResult {
   const out: AnalysisResult = { frames, copies, beads: plan.beads.map((b) => ({ id: b.id, name: b.name })), bonds: [], angles: [], dihedrals: [] };
   plan.terms.forEach((t, i) => {
-    const d = distribution(t.kind, values[i], temperature, bins);
+    const d = distributions[i];
     const term: Term = {
       beads: t.beads.map((b) => plan.beads[b].name),
       beadIds: t.beads.map((b) => plan.beads[b].id),

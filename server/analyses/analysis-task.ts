@@ -19,7 +19,13 @@ export interface AnalysisTask {
   terms: { kind: TermKind; beads: number[] }[];
   from: number;
   to: number;
+  /** Frames per chunk (one read, one part sent back). */
   chunk: number;
+  /**
+   * Int32 counter of the next chunk, shared by the threads of one analysis (they take chunks from it
+   * until none is left); without it the thread does every chunk from `from` to `to` itself.
+   */
+  next?: SharedArrayBuffer;
 }
 
 export interface AnalysisPart {

@@ -33,49 +33,95 @@ export function kT(temperature: number): number {
   return R_KJ * temperature;
 }
 
-export function meanSd(values: ArrayLike<number>): { mean: number; sd: number } {
-  let s = 0;
-  for (let i = 0; i < values.length; i++) s += values[i];
-  const mean = s / values.length;
-  let v = 0;
-  for (let i = 0; i < values.length; i++) v += (values[i] - mean) ** 2;
-  return { mean, sd: Math.sqrt(v / Math.max(1, values.length - 1)) };
-}
+/**
+ * A term's distribution from values given in blocks, in two passes over the same blocks in the same
+ * order (the values of a long trajectory live in a file, never whole in memory):
+ *   pass 1 (add): the sum (or, for dihedrals, the sums of cos and sin), the smallest and largest value;
+ *   pass 2 (addAgain): the squared deviations from the mean and the histogram.
+ * Summing in the values' order makes the numbers the same as from one array in one piece.
+ */
+export class DistributionBuilder {
+  private n = 0;
+  private sum = 0;
+  private sumCos = 0;
+  private sumSin = 0;
+  private lo = Infinity;
+  private hi = -Infinity;
+  private squares = 0;
+  private range: [number, number] | null = null;
+  private width = 0;
+  private counts: number[];
 
-/** Degrees in, degrees out. */
-export function circularMeanSd(values: ArrayLike<number>): { mean: number; sd: number } {
-  let c = 0;
-  let s = 0;
-  for (let i = 0; i < values.length; i++) {
-    const r = (values[i] * Math.PI) / 180;
-    c += Math.cos(r);
-    s += Math.sin(r);
+  constructor(
+    readonly kind: TermKind,
+    readonly bins: number,
+  ) {
+    this.counts = new Array<number>(bins).fill(0);
   }
-  const rBar = Math.min(1, Math.hypot(c, s) / values.length);
-  return { mean: (Math.atan2(s, c) * 180) / Math.PI, sd: (Math.sqrt(-2 * Math.log(Math.max(rBar, 1e-300))) * 180) / Math.PI };
-}
 
-export function histogram(values: ArrayLike<number>, lo: number, hi: number, bins: number): Histogram {
-  const width = (hi - lo) / bins;
-  const counts = new Array<number>(bins).fill(0);
-  for (let i = 0; i < values.length; i++) {
-    let b = Math.floor((values[i] - lo) / width);
-    if (b === bins && values[i] <= hi) b = bins - 1;
-    if (b >= 0 && b < bins) counts[b]++;
+  add(values: ArrayLike<number>): void {
+    const dihedral = this.kind === 'dihedral';
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (dihedral) {
+        const r = (v * Math.PI) / 180;
+        this.sumCos += Math.cos(r);
+        this.sumSin += Math.sin(r);
+      } else this.sum += v;
+      if (v < this.lo) this.lo = v;
+      if (v > this.hi) this.hi = v;
+    }
+    this.n += values.length;
   }
-  return { edges: Array.from({ length: bins + 1 }, (_, i) => lo + i * width), counts };
+
+  /** The mean and sd (circular for dihedrals); the sd is known once pass 2 is done. */
+  private mean(): number {
+    return this.kind === 'dihedral' ? (Math.atan2(this.sumSin, this.sumCos) * 180) / Math.PI : this.sum / this.n;
+  }
+
+  private ensureRange(): [number, number] {
+    if (!this.range) {
+      this.range = rangeFor(this.kind, this.lo, this.hi);
+      this.width = (this.range[1] - this.range[0]) / this.bins;
+    }
+    return this.range;
+  }
+
+  addAgain(values: ArrayLike<number>): void {
+    const [lo, hi] = this.ensureRange();
+    const { width, bins, counts } = this;
+    const mean = this.mean();
+    const linear = this.kind !== 'dihedral';
+    for (let i = 0; i < values.length; i++) {
+      const v = values[i];
+      if (linear) this.squares += (v - mean) ** 2;
+      let b = Math.floor((v - lo) / width);
+      if (b === bins && v <= hi) b = bins - 1;
+      if (b >= 0 && b < bins) counts[b]++;
+    }
+  }
+
+  /** bond values in nm (k in kJ mol⁻¹ nm⁻²); angles and dihedrals in degrees (k in kJ mol⁻¹ rad⁻²). */
+  finish(temperature: number): Distribution {
+    const { kind, n } = this;
+    const mean = this.mean();
+    let sd: number;
+    if (kind === 'dihedral') {
+      const rBar = Math.min(1, Math.hypot(this.sumCos, this.sumSin) / n);
+      sd = (Math.sqrt(-2 * Math.log(Math.max(rBar, 1e-300))) * 180) / Math.PI;
+    } else sd = Math.sqrt(this.squares / Math.max(1, n - 1));
+    const [lo] = this.ensureRange();
+    const h: Histogram = { edges: Array.from({ length: this.bins + 1 }, (_, i) => lo + i * this.width), counts: this.counts };
+    const sdInK = kind === 'bond' ? sd : (sd * Math.PI) / 180;
+    const k = kind === 'dihedral' || !(sdInK > 0) ? null : kT(temperature) / (sdInK * sdInK);
+    return { mean, sd, k, histogram: h, potential: invert(kind, h, temperature) };
+  }
 }
 
-/** The histogram's range for a term: bonds their observed range, angles 0–180°, dihedrals ±180°. */
-export function rangeOf(kind: TermKind, values: ArrayLike<number>): [number, number] {
+/** The histogram's range for a term: bonds their observed range (lo … hi, padded 2 %), angles 0–180°, dihedrals ±180°. */
+export function rangeFor(kind: TermKind, lo: number, hi: number): [number, number] {
   if (kind === 'angle') return [0, 180];
   if (kind === 'dihedral') return [-180, 180];
-  let lo = Infinity;
-  let hi = -Infinity;
-  for (let i = 0; i < values.length; i++) {
-    if (values[i] < lo) lo = values[i];
-    if (values[i] > hi) hi = values[i];
-  }
   if (!(hi > lo)) return [Math.max(0, lo - 0.01), hi + 0.01];
   const pad = (hi - lo) * 0.02;
   return [Math.max(0, lo - pad), hi + pad];
@@ -99,12 +145,10 @@ export function invert(kind: TermKind, h: Histogram, temperature: number): { x: 
   return { x, u: raw.map((u) => (u === null ? null : u - min)) };
 }
 
-/** bond values in nm (k in kJ mol⁻¹ nm⁻²); angles and dihedrals in degrees (k in kJ mol⁻¹ rad⁻²). */
+/** A distribution of values in one array (DistributionBuilder with one block). */
 export function distribution(kind: TermKind, values: ArrayLike<number>, temperature: number, bins: number): Distribution {
-  const { mean, sd } = kind === 'dihedral' ? circularMeanSd(values) : meanSd(values);
-  const sdInK = kind === 'bond' ? sd : (sd * Math.PI) / 180;
-  const k = kind === 'dihedral' || !(sdInK > 0) ? null : kT(temperature) / (sdInK * sdInK);
-  const [lo, hi] = rangeOf(kind, values);
-  const h = histogram(values, lo, hi, bins);
-  return { mean, sd, k, histogram: h, potential: invert(kind, h, temperature) };
+  const b = new DistributionBuilder(kind, bins);
+  b.add(values);
+  b.addAgain(values);
+  return b.finish(temperature);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { distribution, kT } from '../../../server/trajectory/distributions';
+import { distribution, DistributionBuilder, kT, type TermKind } from '../../../server/trajectory/distributions';
 import { fitCosines } from '../../../server/trajectory/cosine-fit';
 import { angle, dihedral } from '../../../server/trajectory/geometry';
 
@@ -45,6 +45,28 @@ describe('distributions', () => {
     });
     expect(d.potential.x[best]).toBeLessThan(0.5);
     expect(d.potential.x[best]).toBeGreaterThan(0.5 - 3 * (2 * sigma ** 2) / 0.5 - 0.01);
+  });
+
+  it('built block by block (as from the values file of a long trajectory), a distribution is the same to the last bit', () => {
+    // The analysis never holds all values: DistributionBuilder reads them in blocks, twice. Summing in
+    // the same order must give exactly what one array gives (hand-made check, no outside source).
+    const cases: [TermKind, Float64Array][] = [
+      ['bond', gaussians(50_001, 0.47, 0.01, 5)],
+      ['angle', gaussians(50_001, 120, 9, 6)],
+      ['dihedral', gaussians(50_001, 170, 25, 8).map((v) => v - 360 * Math.round(v / 360))],
+    ];
+    for (const [kind, values] of cases) {
+      const whole = distribution(kind, values, 298.15, 90);
+      const b = new DistributionBuilder(kind, 90);
+      for (const pass of [0, 1]) {
+        for (let at = 0; at < values.length; at += 7_777) {
+          const block = values.subarray(at, at + 7_777);
+          if (pass === 0) b.add(block);
+          else b.addAgain(block);
+        }
+      }
+      expect(b.finish(298.15), kind).toEqual(whole);
+    }
   });
 
   it('cosine fit recovers the terms of a known dihedral potential (hand-made series)', () => {
