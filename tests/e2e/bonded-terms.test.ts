@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { browserSession } from '../helpers/browser-session';
+import { newMappingInPage } from '../helpers/page-mapping';
 
 // The bonded-terms table in the editor, through the real client, server, collab socket and MariaDB:
 // a bad value is refused in the row with a message and nothing is stored; a good one is stored in the
@@ -12,18 +13,7 @@ afterAll(() => session.close());
 describe('bonded terms in the editor', () => {
   it('refuses a negative force constant, stores a valid bond, and shows the missing-value checks', async () => {
     const page = await session.signedIn('modeller@example.org', 'beadloom-demo');
-    const { mappingId } = await page.evaluate(async () => {
-      const { token } = await (await fetch('/api/auth/csrf')).json();
-      const post = async (path: string, body: unknown) => {
-        const res = await fetch(path, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token }, body: JSON.stringify(body) });
-        if (!res.ok) throw new Error(`${path}: ${res.status} ${await res.text()}`);
-        return res.json();
-      };
-      const projects = await (await fetch('/api/projects')).json();
-      const molecule = await post(`/api/projects/${projects[0].id}/molecules`, { name: 'Butane for bonded terms', smiles: 'CCCC' });
-      const mapping = await post(`/api/molecules/${molecule.id}/mappings`, { name: 'Two beads', resolution: '2:1' });
-      return { mappingId: mapping.id as number };
-    });
+    const { mappingId } = await newMappingInPage(page, { molecule: 'Butane for bonded terms', smiles: 'CCCC', mapping: 'Two beads', resolution: '2:1' });
     await page.goto(`/mappings/${mappingId}`);
     await page.locator('[data-connection="live"]').waitFor();
     // Two beads joined by one bond: atoms 0–1 and 2–3 (butane's chain in openchemlib's order).

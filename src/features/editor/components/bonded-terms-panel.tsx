@@ -2,11 +2,14 @@ import { z } from 'zod';
 import type * as Y from 'yjs';
 import type { Molecule, Topology } from '../../../shared/chem';
 import { TERM_FUNCTIONS, TERM_LIMITS, bondedParamsProblem, type BondedParams } from '../../../shared/bonded-terms';
-import { setBonded } from '../../../shared/mapping-doc';
+import { docToMapping, setBonded } from '../../../shared/mapping-doc';
 import { Form } from '../../../components/ui/form';
 import { FormField } from '../../../components/ui/form-field';
 import { useZodForm } from '../../../hooks/use-zod-form';
 import { editorBondedRows, useBondedRevision, type EditorBondedRow } from '../model/bonded-rows';
+import { FillFromAnalysis } from './fill-from-analysis';
+import { ImproperForm } from './improper-form';
+import { RingControls } from './ring-controls';
 
 const compact = 'px-1 py-0.5 text-xs w-20';
 const UNITS: Record<EditorBondedRow['kind'], { value: string; k: string }> = {
@@ -17,6 +20,7 @@ const UNITS: Record<EditorBondedRow['kind'], { value: string; k: string }> = {
 };
 
 interface PanelProps {
+  mappingId: number;
   doc: Y.Doc;
   origin: unknown;
   readOnly: boolean;
@@ -29,17 +33,22 @@ interface PanelProps {
  * topology, edited in the draft like everything else; a value the draft would refuse never leaves the
  * row's form (the same rule the server checks the document with), and an empty field stays unset.
  */
-export function BondedTermsPanel({ doc, origin, readOnly, topology, molecule }: PanelProps) {
+export function BondedTermsPanel({ mappingId, doc, origin, readOnly, topology, molecule }: PanelProps) {
   useBondedRevision(doc);
   if (!topology) return <p className="text-sm text-ink-700">The bonded terms appear once the draft has been evaluated.</p>;
   const { rows, exclusions } = editorBondedRows(doc, topology, molecule);
   if (rows.length === 0) return <p className="text-sm text-ink-700">No bonds between beads yet.</p>;
+  const draft = docToMapping(doc);
+  const names = new Map(draft.beads.map((b) => [b.id, b.name]));
   return (
     <div className="flex flex-col gap-2">
+      {!readOnly && <FillFromAnalysis mappingId={mappingId} rows={rows} />}
       <ExclusionsForm doc={doc} origin={origin} readOnly={readOnly} exclusions={exclusions} />
+      <RingControls doc={doc} origin={origin} readOnly={readOnly} topology={topology} stored={draft.bonded ?? {}} beadName={(id) => names.get(id) ?? id} />
       <ul className="flex flex-col gap-1" aria-label="Bonded terms">
         {rows.map((r) => <BondedRowForm key={r.key} row={r} doc={doc} origin={origin} readOnly={readOnly} />)}
       </ul>
+      {!readOnly && <ImproperForm doc={doc} origin={origin} beads={draft.beads} />}
     </div>
   );
 }
@@ -98,6 +107,9 @@ function BondedRowForm({ row, doc, origin, readOnly }: { row: EditorBondedRow; d
           {row.kind === 'dihedral' && <FormField name="multiplicity" label={`Multiplicity of ${label}`} hideLabel announce placeholder="n" inputMode="numeric" disabled={readOnly} controlClassName={compact} />}
           {row.kind === 'bond' ? <FormField name="constraint" label="Constraint" type="checkbox" disabled={readOnly} /> : <FormField name="omit" label="Leave out" type="checkbox" disabled={readOnly} />}
           {!readOnly && <button type="submit" className="rounded-md bg-ink-700 px-2 py-0.5 font-semibold text-paper-50 hover:bg-ink-800">Save</button>}
+          {!readOnly && row.kind === 'improper' && (
+            <button type="button" aria-label={`Remove ${label}`} className="rounded-md border border-alert-600/40 px-2 py-0.5 font-semibold text-alert-700 hover:bg-alert-50" onClick={() => setBonded(doc, { [row.key]: null }, undefined, origin)}>Remove</button>
+          )}
         </div>
       </Form>
     </li>

@@ -21,6 +21,7 @@ import { TotalsBar } from './totals-bar';
 import type { EditorThreads } from './thread-badges';
 
 interface EditorLayoutProps {
+  mappingId: number;
   onKeyDown(e: KeyboardEvent): void;
   state: ReturnType<typeof useEditorState>;
   snapshot: SessionSnapshot;
@@ -132,7 +133,7 @@ export function EditorLayout(p: EditorLayoutProps) {
         </div>
       </Panel>
       <Panel title="Bonded terms">
-        <BondedTermsPanel doc={state.ctx.doc} origin={state.ctx.origin} readOnly={state.ctx.readOnly} topology={p.evaluation?.topology ?? null} molecule={p.molecule} />
+        <BondedTermsPanel mappingId={p.mappingId} doc={state.ctx.doc} origin={state.ctx.origin} readOnly={state.ctx.readOnly} topology={p.evaluation?.topology ?? null} molecule={p.molecule} />
       </Panel>
       {state.helpOpen && <ShortcutHelp onClose={() => state.setHelpOpen(false)} />}
       <FontPrimer />

@@ -64,6 +64,7 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
 
   return (
     <EditorLayout
+      mappingId={mapping.id}
       onKeyDown={onKeyDown}
       state={state}
       snapshot={snapshot}
