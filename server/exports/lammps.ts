@@ -52,6 +52,7 @@ export function lammpsFiles(model: CgModel, types: readonly NonbondedType[], hea
   const improperCoeffs: string[] = [];
   const angleStyles = new Set<string>();
   const stiff: string[] = [];
+  const exclusionBonds: string[] = [];
   let offset = 0;
   const bad: string[] = [];
   model.types.forEach((t, m) => {
@@ -78,6 +79,18 @@ export function lammpsFiles(model: CgModel, types: readonly NonbondedType[], hea
         improperCoeffs.push(`${improperCoeffs.length + 1} ${n6(angleK(p.k!))} ${n6(p.value!)}`);
         impropers.push(`${impropers.length + 1} ${improperCoeffs.length} ${ids(x)}`);
       }
+    }
+    // GROMACS' [ exclusions ] of a rigid ring, the LAMMPS way: a pair of the ring that no bond joins
+    // gets a bond of zero force constant, so special_bonds treats it as a 1-2 pair (weight 0 when
+    // nrexcl ≥ 1) and it adds no energy. r0 is the pair's starting distance (unused while K = 0).
+    const joined = new Set(t.terms.filter((x) => x.kind === 'bond').map((x) => [...x.beads].sort((a, b) => a - b).join(',')));
+    for (const [a, b] of t.exclusions) {
+      if (joined.has(`${a},${b}`)) continue;
+      const [p, q] = [t.beads[a].xyz, t.beads[b].xyz];
+      const r0 = Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]) * ANGSTROM_PER_NM;
+      bondCoeffs.push(`${bondCoeffs.length + 1} 0.0 ${n6(r0)}  # exclusion only: rigid-ring pair ${t.beads[a].name}-${t.beads[b].name}`.replace(/[\r\n]+/g, ' '));
+      bonds.push(`${bonds.length + 1} ${bondCoeffs.length} ${a + offset + 1} ${b + offset + 1}`);
+      exclusionBonds.push(`${a + offset + 1}-${b + offset + 1}`);
     }
     offset += t.beads.length;
   });
@@ -139,6 +152,11 @@ export function lammpsFiles(model: CgModel, types: readonly NonbondedType[], hea
     'Harmonic K here includes the 1/2 of the GROMACS forms: K = k/2 (bonds, angles, impropers); dihedral K = k.',
     ...(stiff.length ? [`Constraints ${stiff.join('; ')} are harmonic bonds with a stiff stand-in k = ${CONSTRAINT_STAND_IN_K} kJ/mol/nm^2 (no source; LAMMPS SHAKE cannot hold rings of constraints).`] : []),
     `Exclusions: special_bonds ${special} follows the exclusion count ${nrexcl} (bonded neighbours up to ${nrexcl} bonds apart).`,
+    ...(exclusionBonds.length
+      ? [
+          `Rigid-ring pairs ${exclusionBonds.join(', ')} are joined by bonds of zero force constant so they are excluded as 1-2 pairs (GROMACS: [ exclusions ]).${nrexcl === 0 ? ' With exclusion count 0 they are NOT excluded here (1-2 weight 1.0), unlike GROMACS.' : nrexcl >= 2 ? ` With exclusion count ${nrexcl}, pairs up to ${nrexcl} bonds apart through them are excluded too, which GROMACS does not do.` : ''}`,
+        ]
+      : []),
     ...placeholderNote(types),
   ];
   const input = [

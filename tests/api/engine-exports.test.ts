@@ -48,7 +48,7 @@ async function evaluated(mappingId: number) {
 }
 
 /** Fills the table at the starting geometry, saves a version and downloads both engine zips into folders. */
-async function exportBoth(f: Fixture, label: string, options: Parameters<typeof termsAtGeometry>[2] = {}, exclusions = 1, chain?: { units: number; shift: Vec3 }): Promise<{ gromacs: string; lammps: string; version: number }> {
+async function exportBoth(f: Fixture, label: string, options: Parameters<typeof termsAtGeometry>[2] = {}, exclusions = 1, chain?: { units: number; shift: Vec3 }, extra: (centre: (name: string) => Vec3) => BondedTerm[] = () => []): Promise<{ gromacs: string; lammps: string; version: number }> {
   const evaluation = await evaluated(f.mappingId);
   // "A++" is bead A two units on: its centre moved twice by the chain's shift.
   const centre = (ref: string): Vec3 => {
@@ -58,7 +58,7 @@ async function exportBoth(f: Fixture, label: string, options: Parameters<typeof 
     return [c[0] + u * d[0], c[1] + u * d[1], c[2] + u * d[2]];
   };
   const rows: BondedTerm[] = (await modeller.get(`/api/mappings/${f.mappingId}/bonded-terms`).expect(200)).body.terms;
-  await modeller.put(`/api/mappings/${f.mappingId}/bonded-terms`, { terms: termsAtGeometry(rows, centre, options), exclusions }).expect(200);
+  await modeller.put(`/api/mappings/${f.mappingId}/bonded-terms`, { terms: [...termsAtGeometry(rows, centre, options), ...extra(centre)], exclusions }).expect(200);
   const version = (await modeller.post(`/api/mappings/${f.mappingId}/versions`, { message: 'for the engines' }).expect(201)).body.number as number;
   const out = { version, gromacs: '', lammps: '' };
   for (const format of ['gromacs', 'lammps'] as const) {
@@ -134,6 +134,20 @@ function lammps(dir: string, label: string): { r0: number; mean: number; atoms: 
   return bonds.map((b, i) => ({ atoms: b.atoms, r0: r0.get(b.type)!, mean: sums[i] / frames.length }));
 }
 
+/** The dihedral angle i–j–k–l in degrees (IUPAC sign convention), from positions. */
+function dihedralDeg(i: Vec3, j: Vec3, k: Vec3, l: Vec3): number {
+  const sub = (a: Vec3, b: Vec3): Vec3 => [a[0] - b[0], a[1] - b[1], a[2] - b[2]];
+  const cross = (a: Vec3, b: Vec3): Vec3 => [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
+  const dot = (a: Vec3, b: Vec3) => a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  const b1 = sub(j, i);
+  const b2 = sub(k, j);
+  const b3 = sub(l, k);
+  const n1 = cross(b1, b2);
+  const n2 = cross(b2, b3);
+  const m = cross(n1, b2.map((v) => v / Math.hypot(...b2)) as Vec3);
+  return (Math.atan2(dot(m, n2), dot(n1, n2)) * 180) / Math.PI;
+}
+
 const readdirData = (dir: string) => readdirSync(dir).find((n) => n.endsWith('.data') && n !== 'final.data')!;
 
 function bondsWithin5Percent(result: ReturnType<typeof lammps>, label: string): void {
@@ -195,6 +209,41 @@ describe('engine exports run in the engines', () => {
     expect(itp).toContain('[ exclusions ]');
     grompp(dirs.gromacs, 'drug');
     bondsWithin5Percent(lammps(dirs.lammps, 'drug'), 'drug');
+  }, 600_000);
+
+  it('a planar ring system held planar by an improper dihedral (toluene: rigid ring of three beads, the methyl bead kept in its plane)', async () => {
+    const f = await mappedMolecule(t.ctx.db, 'Toluene', 'Cc1ccccc1', (m) => {
+      const ring = ringOrder(m);
+      const inRing = new Set(ring);
+      const methyl = m.atoms.find((a) => !inRing.has(a.index))!.index;
+      const start = ring.indexOf(neighbours(m, methyl).find((x) => inRing.has(x))!);
+      const r = [...ring.slice(start), ...ring.slice(0, start)];
+      return [{ name: 'ME', type: 'methyl', atoms: [methyl] }, ...[r.slice(0, 2), r.slice(2, 4), r.slice(4, 6)].map((p, i) => ({ name: `R${i + 1}`, type: 'ring', atoms: p }))];
+    });
+    const ring = new Set(['R1', 'R2', 'R3']);
+    const inRing = (x: BondedTerm) => x.beads.filter((b) => ring.has(b)).length;
+    // Exclusion count 2: ME sits closer to R2 and R3 than the placeholder sigma (as for paracetamol).
+    // ME and R1 lie on the same side of the R2–R3 edge: the improper ME–R2–R3–R1 is near 0° when planar.
+    let xi0 = Number.NaN;
+    const improper = (centre: (name: string) => Vec3): BondedTerm[] => {
+      xi0 = dihedralDeg(...(['ME', 'R2', 'R3', 'R1'].map(centre) as [Vec3, Vec3, Vec3, Vec3]));
+      // k: a test value (no source); the improper's own starting angle, so the model starts at rest.
+      return [{ kind: 'improper', beads: ['ME', 'R2', 'R3', 'R1'], function: 'harmonic', value: Number(xi0.toFixed(2)), k: 100 }];
+    };
+    const dirs = await exportBoth(f, 'improper', { constrain: (x) => inRing(x) === 2, omit: (x) => inRing(x) === 3 }, 2, undefined, improper);
+    expect(Math.abs(xi0)).toBeLessThan(10);
+    const itp = readFileSync(join(dirs.gromacs, 'tolue.itp'), 'utf8');
+    expect(itp).toMatch(/\[ dihedrals \]\n;[^\n]*\n1 {2}3 {2}4 {2}2 {2}2 {2}-?[\d.]+ {2}100\.0\n/);
+    grompp(dirs.gromacs, 'improper');
+    const data = readFileSync(join(dirs.lammps, readdirData(dirs.lammps)), 'utf8');
+    expect(data).toMatch(/^1 impropers$/m);
+    expect(data).toMatch(/Improper Coeffs # harmonic[^\n]*\n\n1 11\.950287 -?[\d.]+\n/);
+    bondsWithin5Percent(lammps(dirs.lammps, 'improper'), 'improper');
+    const log = readFileSync(join(dirs.lammps, 'log.lammps'), 'utf8');
+    const runPart = log.slice(log.lastIndexOf('Step'));
+    const eimp = runPart.split('\n').filter((l) => /^\s*\d+\s/.test(l)).map((l) => Number(l.trim().split(/\s+/)[8]));
+    console.log(`[improper] eimp over the run (kcal/mol): ${eimp.map((e) => e.toFixed(4)).join(' ')}`);
+    expect(eimp.every(Number.isFinite)).toBe(true);
   }, 600_000);
 
   it('a salt (sodium pentanoate: the carboxylate bead carries −1, the sodium ion is its own molecule type)', async () => {
