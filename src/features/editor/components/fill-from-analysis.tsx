@@ -70,6 +70,7 @@ function FillConfirm({ analysis, rows, pending, onCancel, onConfirm }: { analysi
             This replaces the function, value and force constant of {plan.updates.length} row{plan.updates.length === 1 ? '' : 's'}
             {replaced > 0 ? ` (${replaced} of them already set)` : ''}. {plan.missing.length > 0 ? `${plan.missing.length} row${plan.missing.length === 1 ? '' : 's'} the analysis does not cover stay as they are. ` : ''}
             Constraints, left-out terms, impropers and the exclusion count stay.
+            {plan.skipped.length > 0 && ` Not used from the analysis: ${plan.skipped.map((x) => `${x.kind} ${x.beads.join('–')} (${x.reason})`).join('; ')}`}
           </p>
         ) : (
           <p>Reading the analysis…</p>
