@@ -12,17 +12,20 @@
  * relays, so nothing unchecked (a struct the document already had, sent again with other content)
  * travels on.
  *
- * Refused: anything at the top level but `beads`, `atoms`, `settings` and `bonded`; list content anywhere; a bead
+ * Refused: anything at the top level but `beads`, `atoms`, `settings`, `bonded` and `proposal`; list content anywhere; a bead
  * that is not a Y.Map of `name` (1–40 characters), `type` (string ≤ 40 or null), `centre` (a centre
  * rule) and optionally `measured` (null or a measured value within MEASURED_LIMITS with a source of
  * 1–300 characters); an atom key that is not a decimal index below the molecule's atom count; an atom
  * value that is not a non-empty plain object of bead id → weight in (0, 1]; a setting other than
  * `partitionBasis` ('fragment' or 'atoms') and `exclusions` (a whole number 0–6); a bonded entry whose
- * key is not a term key or whose value is not valid params for its kind (bonded-terms.ts).
+ * key is not a term key or whose value is not valid params for its kind (bonded-terms.ts); a proposal
+ * entry that is not the open proposal's meta or a proposed bead of this molecule's atoms, or more than
+ * GHOSTS_MAX of them (proposal-doc.ts).
  */
 import * as Y from 'yjs';
 import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, atomsOf, beadsOf, bondedOf, measuredProblem, settingsOf } from './mapping-doc';
 import { TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
+import { GHOSTS_MAX, PROPOSAL, proposalEntryProblem, proposalOf } from './proposal-doc';
 import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkIntegratedStructs, checkUpdateStructs } from './mapping-update-check';
 
 export type DocProblemCode = 'unknown_key' | 'wrong_type' | 'atom_out_of_range' | 'weight_out_of_range' | 'too_large' | 'missing_dependencies';
@@ -105,9 +108,19 @@ export function checkAtom(key: string, value: unknown, atomCount: number): DocPr
   return null;
 }
 
+export function checkProposalEntry(key: string, value: unknown, atomCount: number, size: number): DocProblem | null {
+  const path = `${PROPOSAL}.${key.slice(0, 80)}`;
+  if (size > GHOSTS_MAX + 1) return problem('too_large', PROPOSAL, `A proposal has at most ${GHOSTS_MAX} beads.`);
+  const why = proposalEntryProblem(key, value, atomCount);
+  if (!why) return null;
+  return problem(value === undefined || why.startsWith('The proposal holds') ? 'unknown_key' : why.includes('atom indices') ? 'atom_out_of_range' : 'wrong_type', path, why);
+}
+
 function checkTopLevel(doc: Y.Doc): DocProblem | null {
   for (const [name, type] of doc.share) {
-    if (name !== BEADS && name !== ATOMS && name !== SETTINGS && name !== BONDED) return problem('unknown_key', name, `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}" and "${BONDED}" at the top; "${name}" is not allowed.`);
+    if (name !== BEADS && name !== ATOMS && name !== SETTINGS && name !== BONDED && name !== PROPOSAL) {
+      return problem('unknown_key', name, `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}", "${BONDED}" and "${PROPOSAL}" at the top; "${name}" is not allowed.`);
+    }
     if ((type as unknown as { _start: unknown })._start !== null) return problem('wrong_type', name, `"${name}" is a map, not a list.`);
   }
   return null;
@@ -134,6 +147,13 @@ export function checkDoc(doc: Y.Doc, atomCount: number): DocProblem | null {
   if (doc.share.has(BONDED)) {
     for (const [key, value] of bondedOf(doc).entries()) {
       const p = checkBonded(key, value);
+      if (p) return p;
+    }
+  }
+  if (doc.share.has(PROPOSAL)) {
+    const map = proposalOf(doc);
+    for (const [key, value] of map.entries()) {
+      const p = checkProposalEntry(key, value, atomCount, map.size);
       if (p) return p;
     }
   }
@@ -171,6 +191,7 @@ export function applyCheckedUpdate(doc: Y.Doc, update: Uint8Array, atomCount: nu
   const atoms = atomsOf(doc) as Y.Map<unknown>;
   const settings = settingsOf(doc);
   const bonded = bondedOf(doc) as Y.Map<unknown>;
+  const proposal = proposalOf(doc);
   const transactions: Y.Transaction[] = [];
   let structural: DocProblem | null = null;
   const added: Uint8Array[] = [];
@@ -206,6 +227,7 @@ export function applyCheckedUpdate(doc: Y.Doc, update: Uint8Array, atomCount: nu
           : type === (atoms as unknown) ? checkAtom(key, atoms.get(key), atomCount)
           : type === (settings as unknown) ? checkSetting(key, settings.get(key))
           : type === (bonded as unknown) ? checkBonded(key, bonded.get(key))
+          : type === (proposal as unknown) ? checkProposalEntry(key, proposal.get(key), atomCount, proposal.size)
           : nestedBead(type, beads);
         if (p) return refused(p);
       }

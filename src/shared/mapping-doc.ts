@@ -9,6 +9,8 @@
  *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms', exclusions?: 0…6 }
  *   doc.getMap('bonded')   optional; term key ("angle:b1,b2,b3") → plain object BondedParams
  *                          (src/shared/bonded-terms.ts: function, value, k, multiplicity, constraint, omit)
+ *   doc.getMap('proposal') optional; the open automatic proposal shown as ghosts, not mapping data
+ *                          (src/shared/proposal-doc.ts; docToMapping never reads it)
  *
  * `measured` is a modeller's measured or literature partition value for the bead with its source; it
  * wins over both estimates in suggestions and exports (limits: MEASURED_LIMITS, a source of 1 to

@@ -11,11 +11,13 @@
  *     format or sub-document content;
  *   - a plain value is null, text of at most the longest bead field, a whole number 0–6 (the
  *     exclusion count), an atom entry (≤ 16 bead ids of ≤ BEAD_ID_MAX characters → finite numbers),
- *     a valid measured value or valid bonded-term params (of any kind; the key's kind is checked
- *     once the value lands);
- *   - a top-level name is "beads", "atoms", "settings" or "bonded"; a key directly in "beads" is a bead
- *     id, in "atoms" an atom index below the atom count, in "settings" a setting, in "bonded" a term
- *     key; a key in a nested map is a bead field; list positions (no key) are refused.
+ *     a valid measured value, valid bonded-term params (of any kind; the key's kind is checked
+ *     once the value lands) or a proposal entry (proposal-doc.ts; its atoms are bounded by the atom
+ *     count once it lands);
+ *   - a top-level name is "beads", "atoms", "settings", "bonded" or "proposal"; a key directly in
+ *     "beads" is a bead id, in "atoms" an atom index below the atom count, in "settings" a setting, in
+ *     "bonded" a term key, in "proposal" 'meta' or 'g:<key>'; a key in a nested map is a bead field;
+ *     list positions (no key) are refused.
  * A struct whose parent comes from its left neighbour (an overwrite) carries no key: its value is
  * still bounded as above, and where it lands is checked once it is applied.
  */
@@ -23,6 +25,7 @@ import * as Y from 'yjs';
 import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, measuredProblem } from './mapping-doc';
 import { TERM_KINDS, TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
 import type { DocProblem } from './mapping-doc-check';
+import { PROPOSAL, ghostProblem, metaProblem, proposalEntryProblem } from './proposal-doc';
 
 const TEXT_MAX = Math.max(BEAD_NAME_MAX, BEAD_TYPE_MAX);
 const INDEX = /^(0|[1-9][0-9]{0,8})$/;
@@ -37,6 +40,7 @@ function plainValue(value: unknown): boolean {
   if (typeof value !== 'object' || Array.isArray(value) || value instanceof Uint8Array) return false;
   if (measuredProblem(value) === null) return true;
   if (TERM_KINDS.some((kind) => bondedParamsProblem(kind, value) === null)) return true;
+  if (metaProblem(value) === null || ghostProblem(value) === null) return true;
   const entries = Object.entries(value);
   return entries.length <= MAX_BEADS_PER_ATOM && entries.every(([k, w]) => k.length > 0 && k.length <= BEAD_ID_MAX && typeof w === 'number' && Number.isFinite(w));
 }
@@ -57,8 +61,8 @@ function checkKey(item: Y.Item, atomCount: number): DocProblem | null {
   if (raw === null) return null;
   const parent = typeof raw === 'string' ? raw : raw instanceof Y.AbstractType && raw._item === null ? Y.findRootTypeKey(raw) : null;
   const parentSub = item.parentSub;
-  if (parent !== null && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS && parent !== BONDED) {
-    return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}" and "${BONDED}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
+  if (parent !== null && parent !== BEADS && parent !== ATOMS && parent !== SETTINGS && parent !== BONDED && parent !== PROPOSAL) {
+    return refuse('unknown_key', parent.slice(0, 80), `The draft has only "${BEADS}", "${ATOMS}", "${SETTINGS}", "${BONDED}" and "${PROPOSAL}" at the top; "${parent.slice(0, 40)}" is not allowed.`);
   }
   const where = parent ?? 'beads.…';
   if (parentSub === null) return refuse('wrong_type', where, 'The draft holds no list content.');
@@ -66,6 +70,10 @@ function checkKey(item: Y.Item, atomCount: number): DocProblem | null {
   if (parent === BEADS) return parentSub.length <= BEAD_ID_MAX ? null : refuse('wrong_type', `${BEADS}.${key}…`, `A bead id has 1 to ${BEAD_ID_MAX} characters.`);
   if (parent === ATOMS) return atomKeyProblem(parentSub, atomCount);
   if (parent === BONDED) return parentSub.length <= TERM_KEY_MAX && parseTermKey(parentSub) ? null : refuse('unknown_key', `${BONDED}.${key}`, 'A bonded term key is "kind:id,id…" with the kind\'s number of bead ids.');
+  if (parent === PROPOSAL) {
+    const why = proposalEntryProblem(parentSub, undefined);
+    return why ? refuse('unknown_key', `${PROPOSAL}.${key}`, why) : null;
+  }
   if (parent === SETTINGS) {
     return (SETTING_KEYS as readonly string[]).includes(parentSub) ? null : refuse('unknown_key', `${SETTINGS}.${key}`, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
   }

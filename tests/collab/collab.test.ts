@@ -8,6 +8,7 @@ import { connectClient, cookieSocket, listen, sessionCookie, synced, until, type
 import { createAccount, demoMappingId, demoProjectId } from '../helpers/fixtures';
 import { assignAtoms, atomsOf, beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
 import { CLOSE_MALFORMED, MESSAGE_AWARENESS } from '../../src/shared/collab-protocol';
+import { acceptGhosts, dismissGhosts, openProposal, readOpenProposal } from '../../src/shared/proposal-doc';
 
 let t: TestApp;
 let http: Awaited<ReturnType<typeof listen>>;
@@ -133,6 +134,32 @@ describe('live collaboration', () => {
     const studentId = (await t.ctx.db('users').where({ email: 'student@example.org' }).first('id')).id;
     expect(await t.ctx.db('mapping_updates').where({ user_id: studentId })).toHaveLength(0);
     expect(await storedUpdates()).toBe(before + 1);
+  });
+
+  it('keeps the open proposal in the draft: stored, shown to all, decided by editors only', async () => {
+    const ATOMS = 25;
+    const ghostNames = (c: CollabClient) => readOpenProposal(c.doc, ATOMS)?.beads.map((g) => g.name) ?? [];
+    const beads = [
+      { name: 'P1', atoms: [18, 19, 20], type: null, reason: 'test' },
+      { name: 'P2', atoms: [21, 22], type: null, reason: 'test' },
+      { name: 'P3', atoms: [23, 24], type: null, reason: 'test' },
+    ];
+    openProposal(a.doc, { cost: 1, beads }, 'unassigned', { id: 1, name: 'Tomas Brenn', colour: '#1f4e5a' });
+    await until('the proposal reaches the supervisor', () => ghostNames(b).length === 3);
+    // A student sees it but cannot decide: the dismissal stays local and is dropped by the server.
+    const s = await client('student');
+    expect(ghostNames(s)).toEqual(['P1', 'P2', 'P3']);
+    dismissGhosts(s.doc, ['g1']);
+    await until('read-only notice', () => s.errors.some((e) => e.code === 'read_only'));
+    // The supervisor (not the proposer) accepts P2; everyone gets the bead and loses the ghost.
+    acceptGhosts(b.doc, [readOpenProposal(b.doc, ATOMS)!.beads[1]], null);
+    await until('the accept reaches the proposer', () => ghostNames(a).join() === 'P1,P3' && docToMapping(a.doc).beads.some((x) => x.name === 'P2'));
+    expect(ghostNames(c)).toContain('P1');
+    // A fresh connection (a reload) loads the open proposal from storage.
+    const again = await client('modeller');
+    expect(ghostNames(again)).toEqual(['P1', 'P3']);
+    dismissGhosts(again.doc, ['g1', 'g3']);
+    await until('dismissed for everyone', () => [a, b, c].every((x) => ghostNames(x).length === 0));
   });
 
   it('refuses an invalid update with a clear error and changes nothing', async () => {

@@ -5,8 +5,9 @@ import { addModeller } from '../helpers/second-modeller';
 
 // Issue 17's browser test, through the real client, server, collab socket and MariaDB: one modeller
 // asks for a proposal (the P shortcut), accepts two of its beads and dismisses one, while a second
-// modeller sees the ghosts, then the accepted beads, live; the first modeller's undo takes back the
-// last accept (one transaction, one undo step) for everyone.
+// modeller sees the ghosts, then the accepted beads, live, and accepts a bead of the proposal too; each
+// one's undo takes back their own last accept (one transaction, one undo step) for everyone; the
+// proposal is the mapping's, so it survives the proposer's reload.
 
 const PASSWORD = 'beadloom-demo';
 const SECOND = { email: 'ines.varga@example.org', name: 'Ines Varga', password: 'second-modeller-pass-47' };
@@ -82,14 +83,39 @@ describe('proposals in the editor', () => {
     await expect(ghost(second, 'B4').count()).resolves.toBe(1);
     await expect.poll(() => second.locator('[data-ghost-owner="Tomas Brenn"]').count()).toBe(count - 3);
 
-    // Undo is the accepting person's: one step takes back the last accept (B2) for everyone.
+    // The second modeller, not the proposer, accepts B4 from the same proposal.
+    await second.getByRole('button', { name: 'Accept B4' }).click();
+    for (const page of [first, second]) {
+      await tag(page, 'B4').waitFor();
+      await ghost(page, 'B4').waitFor({ state: 'detached' });
+    }
+    await expect.poll(() => first.locator('[data-ghost-owner="you"]').count()).toBe(count - 4);
+
+    // Undo is the accepting person's: one step takes back the last accept (B2) for everyone, and its
+    // ghost comes back; the second modeller's accept (B4) stays.
     await first.locator('svg[role="application"]').focus();
     await first.keyboard.press('Control+z');
     await tag(second, 'B2').waitFor({ state: 'detached' });
+    await ghost(second, 'B2').waitFor();
     await expect(tag(second, 'B1').count()).resolves.toBe(1);
+    await expect(tag(second, 'B4').count()).resolves.toBe(1);
+    // The second modeller's undo takes back B4 only.
+    await second.locator('svg[role="application"]').focus();
+    await second.keyboard.press('Control+z');
+    await tag(first, 'B4').waitFor({ state: 'detached' });
+    await ghost(first, 'B4').waitFor();
+    await expect(tag(first, 'B1').count()).resolves.toBe(1);
 
-    // Dismiss all clears the ghosts for the second modeller too.
-    await first.getByRole('button', { name: 'Dismiss all' }).click();
+    // The proposer reloads: the open proposal is the mapping's, so the ghosts are still there for both.
+    await first.reload();
+    await first.locator('[data-connection="live"]').waitFor();
+    await expect.poll(() => first.locator('[data-ghost-owner="you"]').count(), { timeout: 10_000 }).toBe(count - 2);
+    await expect(first.getByRole('list', { name: 'Proposed beads' }).getByRole('listitem').count()).resolves.toBe(count - 2);
+    await expect(second.locator('[data-ghost-owner="Tomas Brenn"]').count()).resolves.toBe(count - 2);
+
+    // Dismiss all, here by the second modeller, clears the ghosts for everyone.
+    await second.getByRole('button', { name: 'Dismiss all' }).click();
+    await expect.poll(() => first.locator('[data-ghost-owner]').count()).toBe(0);
     await expect.poll(() => second.locator('[data-ghost-owner]').count()).toBe(0);
 
     expect(pageErrors).toEqual([]);

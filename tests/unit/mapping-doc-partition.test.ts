@@ -3,6 +3,7 @@ import * as Y from 'yjs';
 import { beadsOf, createBead, docToMapping, mappingToDoc, setMeasured, setPartitionBasis, settingsOf } from '../../src/shared/mapping-doc';
 import { applyChecked, checkDoc } from '../../src/shared/mapping-doc-check';
 import { mappingSchema } from '../../src/shared/mapping-schema';
+import { updateOf } from '../helpers/doc-updates';
 
 // The draft's contract for a bead's measured partition value and the mapping's partition basis:
 // written by the helpers, read back by docToMapping, refused by the collab server's checks when out
@@ -10,13 +11,6 @@ import { mappingSchema } from '../../src/shared/mapping-schema';
 
 const ATOMS = 6;
 
-function updateOf(base: Y.Doc, edit: (doc: Y.Doc) => void): Uint8Array {
-  const doc = new Y.Doc();
-  Y.applyUpdate(doc, Y.encodeStateAsUpdate(base));
-  const before = Y.encodeStateVector(doc);
-  edit(doc);
-  return Y.encodeStateAsUpdate(doc, before);
-}
 
 const shadowOf = (doc: Y.Doc) => {
   const copy = new Y.Doc();

@@ -13,6 +13,7 @@ import {
   type SessionMessage,
 } from '../../../shared/collab-protocol';
 import { ATOMS, BEADS, SETTINGS } from '../../../shared/mapping-doc';
+import { PROPOSAL } from '../../../shared/proposal-doc';
 import { presenceColour } from '../../../shared/presence-colour';
 import type { PresenceState } from '../model/presence';
 
@@ -49,7 +50,9 @@ export class MappingSession {
   private everConnected = false;
 
   constructor(mappingId: number) {
-    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS), this.doc.getMap(SETTINGS)], { trackedOrigins: new Set([this.origin]), captureTimeout: 0 });
+    // The open proposal is in scope so that undoing an accept brings its ghosts back; proposing and
+    // dismissing use no tracked origin, so they are not undo steps.
+    this.undo = new Y.UndoManager([this.doc.getMap(BEADS), this.doc.getMap(ATOMS), this.doc.getMap(SETTINGS), this.doc.getMap(PROPOSAL)], { trackedOrigins: new Set([this.origin]), captureTimeout: 0 });
     const scheme = window.location.protocol === 'https:' ? 'wss' : 'ws';
     this.provider = new WebsocketProvider(`${scheme}://${window.location.host}/collab`, String(mappingId), this.doc, BROADCAST_CHANNEL_OFF);
     this.provider.messageHandlers[MESSAGE_EVALUATION] = (_enc, dec) => this.set({ evaluation: readJson<EvaluationMessage>(dec) });

@@ -17,7 +17,7 @@ export const GhostLayer = memo(function GhostLayer({ ghosts, points }: { ghosts:
           if (!at.length) return null;
           const top = at.reduce((p, q) => (q.y < p.y ? q : p));
           return (
-            <g key={`${g.clientId}:${b.key}`} data-ghost={b.name} data-ghost-owner={g.isLocal ? 'you' : g.user.name}>
+            <g key={`${g.id}:${b.key}`} data-ghost={b.name} data-ghost-owner={g.isLocal ? 'you' : g.user.name}>
               <path d={hullPath(at, HULL_MARGIN * 1.15)} fill={g.user.colour} fillOpacity={0.08} stroke={g.user.colour} strokeWidth={1.6} strokeDasharray="5 4" />
               <text x={top.x} y={top.y - HULL_MARGIN * 1.6} fontSize={BOND * 0.26} fontWeight={600} textAnchor="middle" fill={g.user.colour}>
                 {b.name}?

@@ -31,7 +31,7 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
   const snapshot = useSessionSnapshot(session);
   const view = useMappingView(session.doc, molecule.bonds);
   const peers = usePeers(session, molecule.atoms.length);
-  const ghosts = useGhosts(session, molecule.atoms.length);
+  const ghosts = useGhosts(session, molecule.atoms.length, snapshot.session?.userId ?? null);
   const evaluation = snapshot.evaluation ? snapshot.evaluation.evaluation : mapping.evaluation;
   const readOnly = !mapping.canEdit || snapshot.session === null || snapshot.session.readOnly || !snapshot.synced;
   const suggestions = useMemo(() => new Map(evaluation?.beads.map((b) => [b.id, b.suggestedType]) ?? []), [evaluation]);

@@ -3,7 +3,9 @@ import { Button } from '../../../components/ui/button';
 import type { Proposal, ProposalScope } from '../../../shared/proposals';
 import { useProposeMapping } from '../api/propose-mapping';
 import type { MappingSession } from '../collab/mapping-session';
-import { acceptGhosts, ghostsFrom, withoutGhosts, type GhostBead, type PeerGhosts } from '../model/proposal-ghosts';
+import type { GhostBead, PeerGhosts } from '../model/proposal-ghosts';
+import { acceptGhosts, closeProposal, dismissGhosts, openProposal } from '../../../shared/proposal-doc';
+import { presenceColour } from '../../../shared/presence-colour';
 
 interface ProposalPanelProps {
   session: MappingSession;
@@ -19,16 +21,24 @@ const SCOPES: { value: ProposalScope; label: string }[] = [
   { value: 'all', label: 'Whole molecule' },
 ];
 
-/** Propose, then accept or dismiss the proposed beads one by one or all at once. */
+/**
+ * Propose, then accept or dismiss the proposed beads one by one or all at once. The open proposal is
+ * the mapping's (kept in the draft): everyone who may edit decides its beads; viewers only see them.
+ */
 export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef }: ProposalPanelProps) {
   const [scope, setScope] = useState<ProposalScope>('unassigned');
   const [note, setNote] = useState<string | null>(null);
-  // The last answer: the best proposal and up to two alternatives, any of which can be put on show.
-  const [answer, setAnswer] = useState<{ scope: ProposalScope; proposals: Proposal[]; shown: number } | null>(null);
+  // The last answer here: the best proposal and up to two alternatives, any of which can be put on
+  // show while the proposal opened from it is still the open one (the alternatives are not stored).
+  const [answer, setAnswer] = useState<{ id: string; scope: ProposalScope; proposals: Proposal[]; shown: number } | null>(null);
   const propose = useProposeMapping(mappingId);
   const legend = useId();
-  const own = ghosts.find((g) => g.isLocal)?.proposal ?? null;
-  const others = ghosts.filter((g) => !g.isLocal);
+  const open = ghosts[0] ?? null;
+  const own = open?.proposal ?? null;
+  const me = () => {
+    const s = session.getSnapshot().session;
+    return s ? { id: s.userId, name: s.displayName, colour: presenceColour(s.userId) } : null;
+  };
 
   const run = () => {
     if (readOnly || propose.isPending) return;
@@ -38,13 +48,14 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
       {
         onSuccess: ({ proposals }) => {
           const best = proposals[0];
+          const by = me();
+          if (!by) return;
           if (!best || best.beads.length === 0) {
             setNote(scope === 'unassigned' ? 'Every atom already has a bead: nothing to propose.' : 'Nothing to propose.');
             setAnswer(null);
-            session.setPresence({ proposal: null });
+            closeProposal(session.doc);
           } else {
-            setAnswer({ scope, proposals, shown: 0 });
-            session.setPresence({ proposal: ghostsFrom(best, scope) });
+            setAnswer({ id: openProposal(session.doc, best, scope, by), scope, proposals, shown: 0 });
           }
         },
       },
@@ -55,15 +66,17 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
   });
 
   const show = (index: number) => {
-    if (!answer) return;
-    setAnswer({ ...answer, shown: index });
-    session.setPresence({ proposal: ghostsFrom(answer.proposals[index], answer.scope) });
+    const by = me();
+    if (!answer || !by || readOnly) return;
+    setAnswer({ ...answer, id: openProposal(session.doc, answer.proposals[index], answer.scope, by), shown: index });
   };
 
+  // Accepting is one transaction with the editor's origin: one undo step for whoever accepted (and the
+  // undo brings the ghosts back). Dismissing is not an edit of the mapping, so not an undo step.
   const settle = (beads: readonly GhostBead[], accept: boolean) => {
-    if (!own) return;
+    if (!own || readOnly) return;
     if (accept) acceptGhosts(session.doc, beads, session.origin);
-    session.setPresence({ proposal: withoutGhosts(own, new Set(beads.map((b) => b.key))) });
+    else dismissGhosts(session.doc, beads.map((b) => b.key));
   };
 
   return (
@@ -86,7 +99,7 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
       )}
       {propose.isError && <p role="alert" className="text-alert-700">{propose.error.message}</p>}
       {note && <p role="status">{note}</p>}
-      {own && answer && answer.proposals.length > 1 && (
+      {open?.isLocal && !readOnly && answer?.id === open.id && answer.proposals.length > 1 && (
         <div role="group" aria-label="Which proposal" className="flex flex-wrap gap-1">
           {answer.proposals.map((p, i) => (
             <Button key={i} size="sm" variant={answer.shown === i ? 'primary' : 'ghost'} aria-pressed={answer.shown === i} onClick={() => show(i)}>
@@ -95,8 +108,9 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
           ))}
         </div>
       )}
-      {own && (
+      {open && own && (
         <>
+          <p role="status">{open.isLocal ? 'Your proposal' : `${open.user.name} proposes ${own.beads.length} bead${own.beads.length === 1 ? '' : 's'}`} (dashed outlines){readOnly ? '.' : ': anyone editing may accept or dismiss its beads.'}</p>
           <ul aria-label="Proposed beads" className="flex max-h-60 flex-col gap-1 overflow-auto">
             {own.beads.map((b) => (
               <li key={b.key} aria-label={`Proposed bead ${b.name}`} className="flex items-center gap-2 rounded border border-dashed border-ink-300 px-2 py-1">
@@ -105,23 +119,24 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
                   {b.type ? ` · ${b.type}` : ''}
                   <span className="block truncate text-xs text-ink-600" title={b.reason}>{b.reason}</span>
                 </span>
-                <Button size="sm" variant="secondary" aria-label={`Accept ${b.name}`} disabled={readOnly} onClick={() => settle([b], true)}>Accept</Button>
-                <Button size="sm" variant="ghost" aria-label={`Dismiss ${b.name}`} onClick={() => settle([b], false)}>Dismiss</Button>
+                {!readOnly && (
+                  <>
+                    <Button size="sm" variant="secondary" aria-label={`Accept ${b.name}`} onClick={() => settle([b], true)}>Accept</Button>
+                    <Button size="sm" variant="ghost" aria-label={`Dismiss ${b.name}`} onClick={() => settle([b], false)}>Dismiss</Button>
+                  </>
+                )}
               </li>
             ))}
           </ul>
-          <div className="flex gap-2">
-            <Button size="sm" variant="secondary" disabled={readOnly} onClick={() => settle(own.beads, true)}>Accept all</Button>
-            <Button size="sm" variant="ghost" onClick={() => settle(own.beads, false)}>Dismiss all</Button>
-          </div>
+          {!readOnly && (
+            <div className="flex gap-2">
+              <Button size="sm" variant="secondary" onClick={() => settle(own.beads, true)}>Accept all</Button>
+              <Button size="sm" variant="ghost" onClick={() => settle(own.beads, false)}>Dismiss all</Button>
+            </div>
+          )}
         </>
       )}
-      {others.map((g) => (
-        <p key={g.clientId} role="status">
-          {g.user.name} proposes {g.proposal.beads.length} bead{g.proposal.beads.length === 1 ? '' : 's'} (dashed outlines).
-        </p>
-      ))}
-      {!own && others.length === 0 && !note && <p className="text-ink-700">Proposed beads show as dashed outlines for everyone here until accepted or dismissed.</p>}
+      {!own && !note && <p className="text-ink-700">Proposed beads show as dashed outlines for everyone here until accepted or dismissed.</p>}
     </div>
   );
 }

@@ -1,16 +1,17 @@
 import { useEffect, useState } from 'react';
 import type { MappingSession } from '../collab/mapping-session';
 import { readGhosts, type PeerGhosts } from '../model/proposal-ghosts';
+import { proposalOf } from '../../../shared/proposal-doc';
 
-/** Everyone's proposal ghosts, live from the awareness protocol. */
-export function useGhosts(session: MappingSession, atomCount: number): PeerGhosts[] {
+/** The mapping's open proposal as ghosts, live from the draft document. */
+export function useGhosts(session: MappingSession, atomCount: number, userId: number | null): PeerGhosts[] {
   const [ghosts, setGhosts] = useState<PeerGhosts[]>([]);
   useEffect(() => {
-    const awareness = session.provider.awareness;
-    const update = () => setGhosts(readGhosts(awareness.getStates() as Map<number, Record<string, unknown>>, awareness.clientID, atomCount));
+    const map = proposalOf(session.doc);
+    const update = () => setGhosts(readGhosts(session.doc, userId, atomCount));
     update();
-    awareness.on('change', update);
-    return () => awareness.off('change', update);
-  }, [session, atomCount]);
+    map.observe(update);
+    return () => map.unobserve(update);
+  }, [session, atomCount, userId]);
   return ghosts;
 }

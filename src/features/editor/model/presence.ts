@@ -5,15 +5,12 @@
  * defensively: wrong fields are dropped, never thrown on.
  */
 import type { Point } from '../../../shared/drawing/hull';
-import type { GhostProposal } from './proposal-ghosts';
 
 export interface PresenceState {
   user: { id: number; name: string; colour: string };
   selection: number[];
   pointer: Point | null;
   activeBead: string | null;
-  /** This person's proposal on show as ghosts (model/proposal-ghosts.ts), or null. */
-  proposal?: GhostProposal | null;
 }
 
 export interface Peer extends PresenceState {
