@@ -47,6 +47,7 @@ export function analysisJobRunner(db: Db, dataDir: string): TaskRunner<AnalysisJ
         outDir: out,
         temperature: row.temperature,
         bins: row.bins,
+        keepWarm: true,
         onProgress: (done, total) => hooks.reportProgress(done, total),
         isCancelled: () => hooks.isCancelled(),
       });

@@ -3,7 +3,7 @@
  * row's state, progress and cancelling; the demo seed and bench:trajectory call it as it is).
  *
  * ANALYSIS_THREADS threads (the machine's two cores) take chunks of frames from a shared counter
- * (analyse-frames.ts). Their bead centres go to centres.f32 (frames × copies × beads × 3, float32,
+ * (analyse-frames.ts); spare threads started after an earlier analysis are used when there are. Their bead centres go to centres.f32 (frames × copies × beads × 3, float32,
  * nm) at the chunk's place, their term values to values.f32 (term after term, each frames × copies,
  * float32) likewise; then each term's distribution is built from values.f32 in blocks, in two passes
  * (trajectory/distributions.ts DistributionBuilder), and values.f32 is removed. Nothing here holds
@@ -15,12 +15,13 @@ import type { AnalysisResult } from '../../src/shared/references';
 import type { FrameIndex } from '../references/frame-index';
 import type { TrajectoryFormat } from '../references/formats';
 import { DistributionBuilder, type Distribution } from '../trajectory/distributions';
-import { runTaskThread } from '../workers/task-thread';
+import { keepSpareThreads, runTaskThread } from '../workers/task-thread';
 import type { AnalysisPlan } from './analysis-plan';
 import { buildResult } from './analysis-result';
 import type { AnalysisPart, AnalysisTask } from './analysis-task';
 
 export const ANALYSIS_THREADS = 2;
+export const ANALYSIS_WORKER = new URL('./analysis-worker.ts', import.meta.url);
 /** Frames per chunk: a chunk of a 45,000-atom XTC is about 3 MB read and 8 MB decoded. */
 const CHUNK_FRAMES = 16;
 /** Values read back per block when the distributions are built (4 MB). */
@@ -39,6 +40,11 @@ export interface AnalysisRun {
   temperature: number;
   bins: number;
   threads?: number;
+  /**
+   * Afterwards, start ANALYSIS_THREADS spare threads for the next analysis of this process
+   * (workers/task-thread.ts keepSpareThreads): the job does; one-off callers (the seed) do not.
+   */
+  keepWarm?: boolean;
   onProgress?(done: number, total: number): void | Promise<void>;
   isCancelled?(): Promise<boolean> | boolean;
 }
@@ -87,7 +93,7 @@ export async function runAnalysis(run: AnalysisRun): Promise<AnalysisResult> {
     const threads = Math.max(1, Math.min(run.threads ?? ANALYSIS_THREADS, Math.ceil(frames / CHUNK_FRAMES)));
     await Promise.all(
       Array.from({ length: threads }, () =>
-        runTaskThread<AnalysisTask, null, AnalysisPart>(new URL('./analysis-worker.ts', import.meta.url), task, { onPart, isCancelled: run.isCancelled }),
+        runTaskThread<AnalysisTask, null, AnalysisPart>(ANALYSIS_WORKER, task, { onPart, isCancelled: run.isCancelled }),
       ),
     );
     await centresFile.close();
@@ -104,6 +110,8 @@ export async function runAnalysis(run: AnalysisRun): Promise<AnalysisResult> {
     await centresFile.close().catch(() => undefined);
     await valuesFile.close().catch(() => undefined);
     await rm(valuesPath, { force: true });
+    // After the run, not before: starting them costs CPU the run would otherwise have.
+    if (run.keepWarm) void keepSpareThreads(ANALYSIS_WORKER, ANALYSIS_THREADS);
   }
 }
 

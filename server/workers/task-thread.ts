@@ -1,3 +1,4 @@
+import type { Worker } from 'node:worker_threads';
 import { startTsWorker, WORKER_READY } from './ts-worker';
 
 /**
@@ -29,8 +30,76 @@ export interface TaskHooks<Part> {
   isCancelled?(): Promise<boolean> | boolean;
 }
 
+/**
+ * Spare threads: started ahead, their module loaded, each waiting for one task. Starting a thread
+ * costs about half a second of CPU (tsx's loader registers inside it, then the module's libraries
+ * load), which is a large part of a short analysis; a process that has run one analysis keeps as
+ * many spares ready for the next (keepSpareThreads), each used once (a cancelled task's thread is
+ * terminated, so a spare is never a thread that has run anything). Spares unused for SPARE_IDLE_MS
+ * are ended: an idle thread holds some 40 MB.
+ */
+const SPARE_IDLE_MS = 10 * 60_000;
+const spares = new Map<string, { ready: Worker[]; starting: number; timer?: NodeJS.Timeout }>();
+/** A spare's own listeners, removed when it is taken (never removeAllListeners: the Worker has internal ones). */
+const spareListeners = new WeakMap<Worker, () => void>();
+
+export function keepSpareThreads(moduleUrl: URL, count: number): Promise<void> {
+  let pool = spares.get(moduleUrl.href);
+  if (!pool) spares.set(moduleUrl.href, (pool = { ready: [], starting: 0 }));
+  const p = pool;
+  const started: Promise<void>[] = [];
+  for (let i = p.ready.length + p.starting; i < count; i++) {
+    p.starting++;
+    const worker = startTsWorker(moduleUrl);
+    started.push(
+      new Promise<void>((resolve) => {
+        let booting = true;
+        const booted = () => {
+          if (booting) p.starting--;
+          booting = false;
+          resolve();
+        };
+        worker.once('message', (m) => {
+          if (m === WORKER_READY) p.ready.push(worker);
+          else void worker.terminate();
+          booted();
+        });
+        const gone = () => {
+          p.ready = p.ready.filter((w) => w !== worker);
+          booted();
+        };
+        worker.once('error', gone);
+        worker.once('exit', gone);
+        spareListeners.set(worker, () => {
+          worker.off('error', gone);
+          worker.off('exit', gone);
+        });
+      }),
+    );
+  }
+  if (p.timer) clearTimeout(p.timer);
+  p.timer = setTimeout(() => {
+    for (const w of p.ready.splice(0)) void w.terminate();
+  }, SPARE_IDLE_MS);
+  p.timer.unref();
+  return Promise.all(started).then(() => undefined);
+}
+
+/** How many spare threads of a module are ready now (for tests and the bench). */
+export function readySpareThreads(moduleUrl: URL): number {
+  return spares.get(moduleUrl.href)?.ready.length ?? 0;
+}
+
+function takeSpare(moduleUrl: URL): Worker | undefined {
+  const worker = spares.get(moduleUrl.href)?.ready.shift();
+  if (worker) spareListeners.get(worker)?.();
+  return worker;
+}
+
 export function runTaskThread<Task extends object, Result, Part = never>(moduleUrl: URL, task: Task, hooks: TaskHooks<Part> = {}, transfer: ArrayBuffer[] = []): Promise<Result> {
-  const worker = startTsWorker(moduleUrl);
+  const spare = takeSpare(moduleUrl);
+  const worker = spare ?? startTsWorker(moduleUrl);
+  if (spare) worker.postMessage(task, transfer);
   return new Promise<Result>((resolve, reject) => {
     let settled = false;
     let parts = Promise.resolve();
