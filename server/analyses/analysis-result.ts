@@ -1,7 +1,7 @@
 // From each term's distribution to the stored result: rounded numbers, bead names and ids, and, for
 // dihedrals, the cosine fit (cosine-fit.ts).
 import type { AnalysisResult, Term } from '../../src/shared/references';
-import { fitCosines } from '../trajectory/cosine-fit';
+import { fitCosineSeries } from '../trajectory/cosine-fit';
 import type { Distribution } from '../trajectory/distributions';
 import type { AnalysisPlan } from './analysis-plan';
 
@@ -21,7 +21,11 @@ export function buildResult(plan: AnalysisPlan, distributions: Distribution[], f
       histogram: { edges: d.histogram.edges.map((e) => round(e)), counts: d.histogram.counts },
       potential: { x: d.potential.x.map((x) => round(x)), u: d.potential.u.map((u) => (u === null ? null : round(u))) },
     };
-    if (t.kind === 'dihedral') term.fourier = fitCosines(d.potential.x, d.potential.u).map((f) => ({ n: f.n, k: round(f.k), phase: round(f.phase) }));
+    if (t.kind === 'dihedral') {
+      const fit = fitCosineSeries(d.potential.x, d.potential.u);
+      term.fourier = fit.terms.map((f) => ({ n: f.n, k: round(f.k), phase: round(f.phase) }));
+      term.fourierFit = { fitted: fit.terms.map((f) => f.n), filledBins: fit.filledBins, note: fit.note };
+    }
     (t.kind === 'bond' ? out.bonds : t.kind === 'angle' ? out.angles : out.dihedrals).push(term);
   });
   return out;

@@ -61,6 +61,11 @@ export interface Term {
   potential: { x: number[]; u: (number | null)[] };
   /** Dihedrals: U(φ) ≈ Σ k [1 + cos(nφ − phase)], n = 1…4 (kJ/mol, degrees). */
   fourier?: { n: number; k: number; phase: number }[];
+  /**
+   * Dihedrals: which terms the fit has and why: `fitted` the n in `fourier`, `filledBins` the points
+   * fitted, `note` why fewer than n = 1…4 (terms up to n need 2n + 1 filled bins), null when all four.
+   */
+  fourierFit?: { fitted: number[]; filledBins: number; note: string | null };
 }
 
 export interface AnalysisResult {

@@ -96,6 +96,11 @@ describe('analyses', () => {
       expect(term.potential.x).toHaveLength(50);
     }
     expect(r.dihedrals[0].fourier!.length).toBeGreaterThan(0);
+    // Which cosine terms were fitted is said, with the filled bins (and why, when fewer than four).
+    const fit = r.dihedrals[0].fourierFit!;
+    expect(fit.fitted).toEqual(r.dihedrals[0].fourier!.map((f) => f.n));
+    expect(fit.filledBins).toBeGreaterThan(0);
+    expect(fit.note === null).toBe(fit.fitted.length === 4);
   });
 
   it('lists the analyses of a mapping for every member, and offers terms.csv and the CG trajectory', async () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { distribution, DistributionBuilder, kT, type TermKind } from '../../../server/trajectory/distributions';
-import { fitCosines } from '../../../server/trajectory/cosine-fit';
+import { fitCosines, fitCosineSeries } from '../../../server/trajectory/cosine-fit';
 import { angle, dihedral } from '../../../server/trajectory/geometry';
 
 // Boltzmann inversion and harmonic constants on synthetic distributions of known width.
@@ -78,6 +78,42 @@ describe('distributions', () => {
     expect(fit[2].k).toBeCloseTo(1.5, 6);
     expect(fit[2].phase).toBeCloseTo(90, 4);
     expect(fit[1].k).toBeCloseTo(0, 6);
+  });
+});
+
+describe('cosine fit with few filled bins', () => {
+  // Hand-worked: terms up to n have 2n + 1 unknowns (constant, cos and sin per n), so 5 filled bins
+  // determine n = 1, 2 at most; 2 filled bins determine none. The result must say so.
+  const x = Array.from({ length: 72 }, (_, i) => -177.5 + 5 * i);
+  const narrow = (filled: number) => x.map((p, i) => (i >= 30 && i < 30 + filled ? 0.02 * (p - x[30]) ** 2 : null));
+
+  it('all four terms and no note when nine or more bins are filled around the circle', () => {
+    const spread = x.map((p, i) => (i % 8 === 0 ? 1 + Math.cos((p * Math.PI) / 180) : null));
+    const fit = fitCosineSeries(x, spread);
+    expect(fit.terms.map((t) => t.n)).toEqual([1, 2, 3, 4]);
+    expect(fit).toMatchObject({ filledBins: 9, upTo: 4, note: null });
+  });
+
+  it('nine neighbouring bins (40°) do not tell four terms apart: fewer are fitted, and the note says why', () => {
+    const fit = fitCosineSeries(x, narrow(9));
+    expect(fit.terms.length).toBeGreaterThan(0);
+    expect(fit.terms.length).toBeLessThan(4);
+    const n = fit.terms.length;
+    expect(fit.note).toBe(`The 9 filled bins span too narrow a range to tell terms beyond n = ${n} apart (the least-squares equations for more are singular), so ${n === 1 ? 'n = 1 was' : `n = 1…${n} were`} fitted and ${n === 3 ? 'n = 4 was' : `n = ${n + 1}…4 were`} not.`);
+  });
+
+  it('five filled bins: n = 1…2 fitted, and the note says why 3 and 4 were not', () => {
+    const fit = fitCosineSeries(x, narrow(5));
+    expect(fit.terms.map((t) => t.n)).toEqual([1, 2]);
+    expect(fit.filledBins).toBe(5);
+    expect(fit.note).toBe('Only 5 histogram bins are filled; cosine terms up to n need at least 2n + 1 filled bins, so n = 1…2 were fitted and n = 3…4 were not.');
+  });
+
+  it('seven filled bins: n = 4 alone is left out; two bins: nothing is fitted, and it says so', () => {
+    expect(fitCosineSeries(x, narrow(7)).note).toBe('Only 7 histogram bins are filled; cosine terms up to n need at least 2n + 1 filled bins, so n = 1…3 were fitted and n = 4 was not.');
+    const none = fitCosineSeries(x, narrow(2));
+    expect(none.terms).toEqual([]);
+    expect(none.note).toBe('Only 2 histogram bins are filled; cosine terms up to n need at least 2n + 1 filled bins, so no term was fitted (n = 1 needs 3).');
   });
 });
 
