@@ -31,8 +31,11 @@ export const paths = {
   project: (projectId: Id) => generatePath(routePatterns.project, { projectId: String(projectId) }),
   newMolecule: (projectId: Id) => generatePath(routePatterns.newMolecule, { projectId: String(projectId) }),
   molecule: (moleculeId: Id) => generatePath(routePatterns.molecule, { moleculeId: String(moleculeId) }),
-  /** The editor; `bead` and `thread` open that bead's thread panel (deep links from mail and the bell). */
-  mapping: (mappingId: Id, search?: { bead: string; thread?: string }) =>
+  /**
+   * The editor; `bead` and `thread` open that bead's thread panel (deep links from mail and the bell);
+   * `beads` (ids, comma-separated) rings those beads' atoms and marks them in the bead graph.
+   */
+  mapping: (mappingId: Id, search?: { bead: string; thread?: string } | { beads: string }) =>
     withSearch(generatePath(routePatterns.mapping, { mappingId: String(mappingId) }), search),
   adminUsers: routePatterns.adminUsers,
   account: routePatterns.account,

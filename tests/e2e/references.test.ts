@@ -9,7 +9,9 @@ import type { Molecule } from '../../src/shared/chem';
 
 // Issue 15 through the real client and server: on the molecule page a modeller uploads an invented
 // reference of the demo's anisole, sees it matched, starts an analysis of the demo mapping, watches it
-// finish and opens its distributions (uPlot charts); a student sees both but may not start one.
+// finish and opens its distributions (uPlot charts); picking a term (keyboard in the term list, a click
+// on a chart) shows its beads on the drawing and the bead graph, and opens the editor with them marked;
+// a student sees both but may not start one.
 
 const session = browserSession();
 let dir: string;
@@ -50,6 +52,37 @@ describe('references and analyses in the browser', () => {
     await analyses.getByRole('button', { name: 'Show distributions' }).click({ timeout: 60_000 });
     await modeller.getByRole('region', { name: 'bonds distributions' }).waitFor();
     expect(await modeller.locator('figure .uplot').count()).toBeGreaterThan(0);
+
+    // A term picked in the term list, with the keyboard, shows its beads on the analysed state's drawing
+    // (its atoms ringed) and in the bead graph (its two beads marked).
+    const terms = modeller.getByRole('list', { name: 'Terms' });
+    const firstBond = terms.getByRole('button').first();
+    const bondName = ((await firstBond.textContent()) ?? '').split(' ')[1];
+    const [b1, b2] = bondName.split('–');
+    await firstBond.focus();
+    await modeller.keyboard.press('Enter');
+    await expect(firstBond.getAttribute('aria-pressed')).resolves.toBe('true');
+    const beads = modeller.getByRole('region', { name: `Beads of the bond ${bondName}` });
+    await beads.waitFor();
+    await expect.poll(() => beads.locator('[data-term-bead][data-picked="true"]').evaluateAll((els) => els.map((e) => e.getAttribute('data-term-bead')).sort())).toEqual([b1, b2].sort());
+    const picture = beads.getByRole('img', { name: /^Drawing of/ });
+    await expect(picture.getAttribute('src')).resolves.toMatch(/format=svg.*highlight=\d/);
+    await expect.poll(() => picture.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+
+    // A click on another term's chart picks that term instead.
+    const angles = modeller.getByRole('region', { name: 'angles distributions' });
+    const angleFigure = angles.locator('figure').first();
+    const angleLabel = (await angleFigure.getAttribute('aria-label'))!.split(':')[0].replace(/^angle /, '').replaceAll('-', '–');
+    await angleFigure.click();
+    const angleBeads = modeller.getByRole('region', { name: `Beads of the angle ${angleLabel}` });
+    await angleBeads.waitFor();
+    await expect(angleBeads.locator('[data-term-bead][data-picked="true"]').count()).resolves.toBe(3);
+
+    // The editor opens with the term's beads marked in its bead graph and their atoms ringed.
+    await angleBeads.getByRole('link', { name: 'Open in the editor with these beads selected' }).click();
+    await modeller.locator('[data-connection="live"]').waitFor();
+    await expect.poll(() => modeller.locator('[data-graph-bead][data-active="true"]').count(), { timeout: 10_000 }).toBe(3);
+    expect(await modeller.locator('[data-flagged]').count()).toBeGreaterThanOrEqual(3);
 
     const student = await session.signedIn('student@example.org', 'beadloom-demo');
     await student.goto(`/molecules/${moleculeId}`);

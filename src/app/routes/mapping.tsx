@@ -1,5 +1,5 @@
-import { useCallback, useRef } from 'react';
-import { useLoaderData } from 'react-router';
+import { useCallback, useMemo, useRef } from 'react';
+import { useLoaderData, useSearchParams } from 'react-router';
 import { useSuspenseQuery } from '@tanstack/react-query';
 import type { MappingDetail } from '../../shared/mappings';
 import type { MappingSession } from '../../features/editor/collab/mapping-session';
@@ -32,6 +32,9 @@ export function MappingRoute() {
   const onSession = useCallback((s: MappingSession | null) => void (session.current = s), []);
   const editor = useCallback(() => (session.current ? { clientId: session.current.clientId, beadCount: session.current.beadCount() } : null), []);
   useDocumentTitle(`${mapping.name} · ${molecule.name}`);
+  // `?beads=` from an analysis term: those beads are shown marked in the editor.
+  const [search] = useSearchParams();
+  const linkedBeads = useMemo(() => search.get('beads')?.split(',').filter(Boolean).slice(0, 4), [search]);
 
   return (
     // The editor wants the whole window: it steps out of the shell's reading-width column.
@@ -48,7 +51,7 @@ export function MappingRoute() {
         {mapping.locked && <span className="rounded-full bg-paper-200 px-2 py-0.5 text-xs font-semibold text-ink-800">Production version locked</span>}
       </header>
       <TransferReportPanel atomCount={molecule.model.heavyAtoms ?? molecule.model.atoms.length} />
-      <MappingWithThreads mapping={mapping} molecule={molecule.model} library={library.types} onSession={onSession} />
+      <MappingWithThreads mapping={mapping} molecule={molecule.model} library={library.types} onSession={onSession} linkedBeads={linkedBeads} />
       <HistoryAndExports mapping={mapping} editor={editor} />
     </div>
   );

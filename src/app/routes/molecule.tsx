@@ -69,13 +69,14 @@ export function MoleculeRoute() {
           )}
         </div>
       </div>
-      <div className="mt-6 grid items-start gap-6 lg:grid-cols-[2fr_3fr]">
+      {/* Stacked, so the analyses' charts have the page's width beside the picked term's beads. */}
+      <div className="mt-6 flex flex-col gap-6">
         <Section title="References" description="Atomistic simulations of this molecule; Beadloom finds every copy in them.">
           <ReferencesPanel moleculeId={m.id} projectId={m.projectId} />
         </Section>
         <Section title="Analyses" description="A mapping version applied to a reference: bonded distributions and Boltzmann-inverted parameters.">
           {mappings.data && mappings.data.length > 0 ? (
-            <AnalysesPanel projectId={m.projectId} mappings={mappings.data.map((p) => ({ id: p.id, name: p.name }))} references={references.data ?? []} />
+            <AnalysesPanel projectId={m.projectId} molecule={m.model} mappings={mappings.data.map((p) => ({ id: p.id, name: p.name }))} references={references.data ?? []} />
           ) : (
             <p className="text-sm text-ink-600">Make a mapping first.</p>
           )}

@@ -16,6 +16,7 @@ const BeadNodeView = memo(function BeadNodeView({ data }: NodeProps<BeadNode>) {
       className="relative flex size-11 items-center justify-center rounded-full border-2 text-xs font-bold shadow-card"
       style={{ background: data.colour, color: textOn(data.colour), borderColor: data.active ? '#0e3030' : '#fdfbf6' }}
       data-graph-bead={data.name}
+      data-active={data.active ? 'true' : undefined}
     >
       {data.name}
       <span className="absolute -top-1.5 -right-1.5">
@@ -29,12 +30,15 @@ const BeadNodeView = memo(function BeadNodeView({ data }: NodeProps<BeadNode>) {
 });
 
 const nodeTypes = { bead: BeadNodeView };
+const NONE: readonly string[] = [];
 const NODE = 44;
 
 interface BeadGraphProps {
   view: MappingView;
   points: readonly Point[];
   activeBead: string | null;
+  /** Further beads to show as active (an analysis term's beads, from a link). */
+  marked?: readonly string[];
   onSelectBead(id: string): void;
   threads?: EditorThreads;
 }
@@ -53,7 +57,7 @@ interface Cached {
  * and edges of unchanged beads stay the same objects between renders, so React Flow re-measures and
  * redraws only the ones an edit touched.
  */
-export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onSelectBead, threads }: BeadGraphProps) {
+export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, marked = NONE, onSelectBead, threads }: BeadGraphProps) {
   // Centroids are scaled so the whole graph spans a few hundred units: nodes stay legible for a
   // long chain and do not pile up for a compact ring system.
   const scale = useMemo(() => {
@@ -67,14 +71,14 @@ export const BeadGraph = memo(function BeadGraph({ view, points, activeBead, onS
     const next = new Map<string, Cached>();
     for (const b of view.beads) {
       if (b.atoms.length === 0) continue;
-      const active = b.id === activeBead;
+      const active = b.id === activeBead || marked.includes(b.id);
       const old = nodeCache.current.get(b.id);
       const same = old && old.bead === b && old.active === active && old.points === points && old.threads === threads;
       next.set(b.id, same ? old : { bead: b, active, points, threads, node: beadNode(b, active, points, scale, threads) });
     }
     nodeCache.current = next;
     return [...next.values()].map((c) => c.node);
-  }, [view, activeBead, points, scale, threads]);
+  }, [view, activeBead, marked, points, scale, threads]);
   const edgeCache = useRef(new Map<string, Edge>());
   const edges = useMemo<Edge[]>(() => {
     const next = new Map<string, Edge>();

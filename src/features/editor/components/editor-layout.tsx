@@ -106,7 +106,7 @@ export function EditorLayout(p: EditorLayoutProps) {
           </Panel>
           <Panel title="Bead graph" className="h-64 p-0">
             <Suspense fallback={<p className="p-3 text-sm text-ink-600">Drawing the bead graph…</p>}>
-              <BeadGraph view={view} points={points} activeBead={state.activeBead} onSelectBead={state.selectOnly} threads={p.threads} />
+              <BeadGraph view={view} points={points} activeBead={state.activeBead} marked={state.marked} onSelectBead={state.selectOnly} threads={p.threads} />
             </Suspense>
           </Panel>
           <Panel title="Checks">

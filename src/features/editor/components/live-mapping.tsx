@@ -13,6 +13,8 @@ interface LiveMappingProps {
   library: readonly BeadTypeRow[];
   /** Comment threads on beads (badges, panel, deep link), when the page has them. */
   threads?: EditorThreads;
+  /** Beads a link asks to show (`?beads=`). */
+  linkedBeads?: readonly string[];
   /** Told of the live session when it opens (and null when it closes), e.g. so a restore can name it. */
   onSession?: (session: MappingSession | null) => void;
 }

@@ -22,12 +22,14 @@ interface MappingEditorProps {
   molecule: Molecule;
   library: readonly BeadTypeRow[];
   threads?: EditorThreads;
+  /** Beads a link asks to show (`?beads=id,id`, from an analysis term): ringed atoms, marked in the graph. */
+  linkedBeads?: readonly string[];
 }
 
 const typing = (el: EventTarget) => el instanceof HTMLElement && (el.isContentEditable || ['INPUT', 'TEXTAREA', 'SELECT'].includes(el.tagName));
 
 /** The live mapping editor: wires the session, the document view and the editor state to the panels. */
-export function MappingEditor({ session, mapping, molecule, library, threads }: MappingEditorProps) {
+export function MappingEditor({ session, mapping, molecule, library, threads, linkedBeads }: MappingEditorProps) {
   const snapshot = useSessionSnapshot(session);
   const view = useMappingView(session.doc, molecule.bonds);
   const peers = usePeers(session, molecule.atoms.length);
@@ -48,6 +50,16 @@ export function MappingEditor({ session, mapping, molecule, library, threads }: 
   useEffect(() => {
     if (linked && linkedPresent) selectLinked(linked);
   }, [linked, linkedPresent]);
+
+  // A term's beads from a link: once the draft has any of them, ring their atoms and mark them.
+  const linkedKey = linkedBeads?.filter((id) => view.byId.has(id)).join(',') ?? '';
+  const showLinked = useEffectEvent((ids: string[]) => {
+    state.setHighlight(ids.flatMap((id) => view.byId.get(id)?.atoms.map((a) => a.index) ?? []));
+    state.setMarked(ids);
+  });
+  useEffect(() => {
+    if (linkedKey) showLinked(linkedKey.split(','));
+  }, [linkedKey]);
 
   const onKeyDown = (e: KeyboardEvent) => {
     if (typing(e.target) || state.helpOpen) return;

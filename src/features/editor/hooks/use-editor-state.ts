@@ -24,6 +24,8 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
   const [helpOpen, setHelpOpen] = useState(false);
   const [renaming, setRenaming] = useState<string | null>(null);
   const [highlight, setHighlight] = useState<number[]>([]);
+  // Beads a link marked (an analysis term's beads): ringed in the bead graph beside the active one.
+  const [marked, setMarked] = useState<string[]>([]);
   const [viewport, setViewport] = useState<Viewport>({ x: 0, y: 0, k: 1 });
   const size = useRef<{ width: number; height: number } | null>(null);
   // The proposal panel puts its propose action here, so the P shortcut and the toolbar button run it.
@@ -132,6 +134,6 @@ export function useEditorState(session: MappingSession, molecule: Molecule, view
 
   return {
     ctx, proposeRef, drawing, neighbours, selection, activeBead, cursor, setCursor, showHydrogens, showNumbers, colourAtoms, toggles, viewport, setViewport, onSize, gestures,
-    selectBead, selectOnly, highlight, setHighlight, helpOpen, setHelpOpen, renaming, endRename,
+    selectBead, selectOnly, highlight, setHighlight, marked, setMarked, helpOpen, setHelpOpen, renaming, endRename,
   };
 }

@@ -4,6 +4,7 @@ import { useCan } from '../../../lib/authorization';
 import { useCurrentUser } from '../../../lib/auth';
 import { isApiError } from '../../../lib/api-client';
 import type { AnalysisView, ReferenceView } from '../../../shared/references';
+import type { Molecule } from '../../../shared/chem';
 import { useAnalyses } from '../api/get-analyses';
 import { useStartAnalysis } from '../api/start-analysis';
 import { useCancelAnalysis } from '../api/cancel-analysis';
@@ -14,6 +15,8 @@ const AnalysisCharts = lazy(() => import('./analysis-charts'));
 
 interface Props {
   projectId: number;
+  /** The molecule's atoms and bonds: where a picked term's beads are drawn. */
+  molecule: Pick<Molecule, 'atoms' | 'bonds'>;
   mappings: { id: number; name: string }[];
   references: ReferenceView[];
 }
@@ -21,7 +24,7 @@ interface Props {
 const label = (a: AnalysisView) => `#${a.id} ${a.versionNumber === null ? 'draft' : `v${a.versionNumber}`}, ${a.temperature} K`;
 
 /** Analyses of one mapping: start one, watch its progress, cancel, and look at the distributions. */
-export function AnalysesPanel({ projectId, mappings, references }: Props) {
+export function AnalysesPanel({ projectId, molecule, mappings, references }: Props) {
   const [mappingId, setMappingId] = useState<number | null>(mappings[0]?.id ?? null);
   const analyses = useAnalyses(mappingId);
   const canStart = useCan('analysis:start', projectId);
@@ -48,7 +51,7 @@ export function AnalysesPanel({ projectId, mappings, references }: Props) {
       </ul>
       {shown.length > 0 && (
         <Suspense fallback={<p className="text-ink-600">Loading the charts…</p>}>
-          <AnalysisCharts ids={shown} />
+          <AnalysisCharts ids={shown} molecule={molecule} />
         </Suspense>
       )}
     </div>
