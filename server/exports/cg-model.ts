@@ -31,7 +31,10 @@ export interface CgTerm {
 }
 
 export interface CgMoleculeType {
+  /** The GROMACS moleculetype name (not limited to five characters: only .gro columns are). */
   name: string;
+  /** Residue name in .itp and .gro (five columns in .gro): the mapping's residue name, else from the molecule's name. */
+  residue: string;
   beads: CgBead[];
   terms: CgTerm[];
   /** Pairs excluded beyond nrexcl: every pair of a ring whose bonds are all constraints (a rigid ring). */
@@ -50,8 +53,13 @@ export interface Problem {
 
 const NM_PER_ANGSTROM = 0.1;
 
-/** Up to five characters of letters and digits: a GROMACS molecule or residue name. */
+/** Up to five characters of letters and digits: a residue name that fits the .gro columns. */
 export const shortName = (name: string, fallback: string) => name.replace(/[^A-Za-z0-9]/g, '').slice(0, 5) || fallback;
+/**
+ * A GROMACS moleculetype name: one token (letters, digits, _ and -; other runs become _), up to 40
+ * characters. GROMACS reads it as a whitespace-free string of any length; 40 keeps files readable.
+ */
+export const typeName = (name: string, fallback: string) => name.replace(/[^A-Za-z0-9_-]+/g, '_').replace(/^_+|_+$/g, '').slice(0, 40) || fallback;
 
 /** Å: from the atom next to the first attachment point to the second attachment point. */
 function chainShift(s: ExportSource): Vec3 {
@@ -140,14 +148,14 @@ export function buildCgModel(s: ExportSource, units = 1, centres?: ReadonlyMap<s
     for (let i = 0; i < r.length; i++) for (let j = i + 1; j < r.length; j++) exclusions.push([Math.min(r[i], r[j]), Math.max(r[i], r[j])]);
   }
   const types: CgMoleculeType[] = [];
-  if (mainIds.length > 0) types.push({ name: shortName(s.moleculeName, 'MOL'), beads: Array.from({ length: units }, (_, u) => mainIds.map((id) => cg(id, u))).flat(), terms, exclusions, nrexcl: s.draft.exclusions! });
-  for (const b of s.draft.beads.filter((x) => isIon(x.id))) types.push({ name: shortName(b.name, 'ION'), beads: [cg(b.id)], terms: [], exclusions: [], nrexcl: 1 });
+  if (mainIds.length > 0) types.push({ name: typeName(s.moleculeName, 'MOL'), residue: s.draft.residue ?? shortName(s.moleculeName, 'MOL'), beads: Array.from({ length: units }, (_, u) => mainIds.map((id) => cg(id, u))).flat(), terms, exclusions, nrexcl: s.draft.exclusions! });
+  for (const b of s.draft.beads.filter((x) => isIon(x.id))) types.push({ name: typeName(b.name, 'ION'), residue: shortName(b.name, 'ION'), beads: [cg(b.id)], terms: [], exclusions: [], nrexcl: 1 });
   // Molecule type names must differ.
   const seen = new Map<string, number>();
   for (const t of types) {
     const n = seen.get(t.name) ?? 0;
     seen.set(t.name, n + 1);
-    if (n > 0) t.name = `${t.name.slice(0, 4)}${n}`;
+    if (n > 0) t.name = `${t.name}_${n + 1}`;
   }
   return { types };
 }

@@ -25,7 +25,7 @@ export const atomName = (name: string, i: number) => name.replace(/\s+/g, '').sl
 
 export function itp(t: CgMoleculeType, typeName: (beadType: string) => string, header: readonly string[]): string {
   const out = [...comment(header), '', '[ moleculetype ]', '; name  nrexcl', `${t.name}  ${t.nrexcl}`, '', '[ atoms ]', '; nr  type  resnr  residue  atom  cgnr  charge  mass  ; bead name'];
-  t.beads.forEach((b, i) => out.push(`${i + 1}  ${typeName(b.type)}  ${b.residue}  ${t.name}  ${atomName(b.name, i)}  ${i + 1}  ${num(b.charge, 9)}  ${num(b.mass, 4)}  ; ${b.name}`));
+  t.beads.forEach((b, i) => out.push(`${i + 1}  ${typeName(b.type)}  ${b.residue}  ${t.residue}  ${atomName(b.name, i)}  ${i + 1}  ${num(b.charge, 9)}  ${num(b.mass, 4)}  ; ${b.name}`));
   const section = (title: string, columns: string, rows: string[]) => {
     if (rows.length > 0) out.push('', `[ ${title} ]`, `; ${columns}`, ...rows);
   };
@@ -78,7 +78,7 @@ export function gro(model: CgModel, edge: number, title: string): string {
       serial++;
       residues = Math.max(residues, first + b.residue);
       const f = (v: number) => v.toFixed(3).padStart(8);
-      lines.push(`${String((first + b.residue) % 100000).padStart(5)}${t.name.padEnd(5).slice(0, 5)}${atomName(b.name, i).padStart(5)}${String(serial % 100000).padStart(5)}${f(b.xyz[0])}${f(b.xyz[1])}${f(b.xyz[2])}`);
+      lines.push(`${String((first + b.residue) % 100000).padStart(5)}${t.residue.padEnd(5).slice(0, 5)}${atomName(b.name, i).padStart(5)}${String(serial % 100000).padStart(5)}${f(b.xyz[0])}${f(b.xyz[1])}${f(b.xyz[2])}`);
     });
   });
   lines.push(`${edge.toFixed(5).padStart(10)}${edge.toFixed(5).padStart(10)}${edge.toFixed(5).padStart(10)}`);

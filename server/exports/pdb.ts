@@ -53,7 +53,7 @@ export function toPdb(s: ExportSource, options: PdbOptions = {}): string {
   const ionAtoms = new Set((s.model.components ?? []).filter((c) => c.freeIon).flatMap((c) => c.atoms));
   const isIon = (b: (typeof s.draft.beads)[number]) => b.atoms.length > 0 && b.atoms.every((a) => ionAtoms.has(a.index));
   let nextResidue = 2;
-  const residueOf = new Map(s.draft.beads.map((b) => [b.id, isIon(b) ? { name: b.name.replace(/[^A-Za-z0-9]/g, '').slice(0, 3).toUpperCase() || 'ION', number: nextResidue++ } : { name: options.residue ?? 'CGM', number: 1 }]));
+  const residueOf = new Map(s.draft.beads.map((b) => [b.id, isIon(b) ? { name: b.name.replace(/[^A-Za-z0-9]/g, '').slice(0, 3).toUpperCase() || 'ION', number: nextResidue++ } : { name: options.residue ?? s.draft.residue ?? 'CGM', number: 1 }]));
   const remark = (n: number, text: string) => lines.push(`REMARK ${pad(n, 3)} ${text}`.slice(0, 80));
   for (const l of headerLines(s, FILE_TITLES.pdb)) {
     if (l.startsWith('sha256: ')) {
@@ -61,7 +61,7 @@ export function toPdb(s: ExportSource, options: PdbOptions = {}): string {
       remark(1, `sha256 (2/2): ${s.sha256.slice(32)}`);
     } else remark(1, l.replace(/[\r\n]+/g, ' '));
   }
-  remark(1, `residue: ${options.residue ?? 'CGM'} for the molecule; element columns blank (beads are not elements)`);
+  remark(1, `residue: ${options.residue ?? s.draft.residue ?? 'CGM'} for the molecule; element columns blank (beads are not elements)`);
   remark(1, threeD ? 'centres: bead centres from 3D coordinates, angstrom' : 'centres: no 3D coordinates yet; 2D drawing layout at 1.5 A per bond, z = 0');
   const serial = new Map<string, number>();
   s.draft.beads.forEach((b, i) => {

@@ -122,6 +122,8 @@ export interface Mapping {
   bonded?: Record<string, BondedParams>;
   /** Non-bonded exclusion count (GROMACS nrexcl); absent when not set. */
   exclusions?: number;
+  /** The molecule's residue name in PDB, GRO and ITP exports (RESIDUE_NAME in mapping-doc.ts); absent when not set. */
+  residue?: string;
 }
 
 export interface BeadType {

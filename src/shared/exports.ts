@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { CentreRule, Mapping, MeasuredPartition, PartitionBasis } from './chem';
 import { measuredSchema, partitionBasisSchema } from './mapping-schema';
-import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES, TERM_KEY_MAX } from './mapping-doc';
+import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, CENTRE_RULES, RESIDUE_NAME, TERM_KEY_MAX } from './mapping-doc';
 import { bondedParamsProblem, exclusionsSchema, parseTermKey, type BondedParams } from './bonded-terms';
 import { versionRef, type VersionRef } from './versions';
 
@@ -63,7 +63,8 @@ export interface ContentBead {
 
 /**
  * What a version's SHA-256 covers: the molecule (canonical SMILES), the beads and, when set, the
- * mapping's partition basis, its bonded terms (keys in string order) and its exclusion count; nothing
+ * mapping's partition basis, its bonded terms (keys in string order), its exclusion count and its
+ * residue name; nothing
  * else. A mapping without bonded terms hashes as it did before they existed.
  */
 export interface VersionContent {
@@ -72,6 +73,7 @@ export interface VersionContent {
   partitionBasis?: PartitionBasis;
   bonded?: Record<string, BondedParams>;
   exclusions?: number;
+  residue?: string;
 }
 
 /** The content of a mapping, keys in the documented order (the hash depends on that order). */
@@ -89,6 +91,7 @@ export function versionContent(canonicalSmiles: string, mapping: Mapping): Versi
     ...(mapping.partitionBasis ? { partitionBasis: mapping.partitionBasis } : {}),
     ...(mapping.bonded && Object.keys(mapping.bonded).length > 0 ? { bonded: sortedTerms(mapping.bonded) } : {}),
     ...(mapping.exclusions !== undefined ? { exclusions: mapping.exclusions } : {}),
+    ...(mapping.residue !== undefined ? { residue: mapping.residue } : {}),
   };
 }
 
@@ -118,6 +121,7 @@ export function contentToMapping(content: VersionContent): Mapping {
     ...(content.partitionBasis ? { partitionBasis: content.partitionBasis } : {}),
     ...(content.bonded ? { bonded: content.bonded } : {}),
     ...(content.exclusions !== undefined ? { exclusions: content.exclusions } : {}),
+    ...(content.residue !== undefined ? { residue: content.residue } : {}),
   };
 }
 
@@ -173,7 +177,7 @@ export const importBody = z.looseObject({
   mapping: z.looseObject({ name: z.string().trim().min(1).max(200), resolution: z.enum(['4:1', '3:1', '2:1']) }),
   /** The exported molecule's atoms and bonds: the beads are placed by matching this structure. */
   molecule: z.looseObject({ atoms: z.array(exportAtom).max(100_000), bonds: z.array(exportBond).max(200_000).optional() }).optional(),
-  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000), partitionBasis: partitionBasisSchema.optional(), bonded: contentBonded.optional(), exclusions: exclusionsSchema.optional() }),
+  content: z.strictObject({ canonicalSmiles: z.string().min(1), beads: z.array(contentBead).max(10_000), partitionBasis: partitionBasisSchema.optional(), bonded: contentBonded.optional(), exclusions: exclusionsSchema.optional(), residue: z.string().regex(RESIDUE_NAME, 'The residue name is 1 to 3 upper-case letters or digits.').optional() }),
   sha256: z.string().regex(/^[0-9a-f]{64}$/, 'sha256 is 64 lower-case hex digits.'),
   /** Name for the new mapping; defaults to the exported mapping's name. */
   name: z.string().trim().min(1).max(200).optional(),

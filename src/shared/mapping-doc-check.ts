@@ -23,7 +23,7 @@
  * GHOSTS_MAX of them (proposal-doc.ts).
  */
 import * as Y from 'yjs';
-import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, CENTRE_RULES, PARTITION_BASES, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, atomsOf, beadsOf, bondedOf, measuredProblem, settingsOf } from './mapping-doc';
+import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, CENTRE_RULES, PARTITION_BASES, RESIDUE_NAME, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, atomsOf, beadsOf, bondedOf, measuredProblem, settingsOf } from './mapping-doc';
 import { TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
 import { GHOSTS_MAX, PROPOSAL, proposalEntryProblem, proposalOf } from './proposal-doc';
 import { MAX_BEADS_PER_ATOM, atomKeyProblem, checkIntegratedStructs, checkUpdateStructs } from './mapping-update-check';
@@ -71,6 +71,7 @@ export function checkSetting(key: string, value: unknown): DocProblem | null {
   const path = `${SETTINGS}.${key}`;
   if (!(SETTING_KEYS as readonly string[]).includes(key)) return problem('unknown_key', path, `The settings hold only ${SETTING_KEYS.join(', ')}; "${key}" is not allowed.`);
   if (value === undefined) return null; // deleted
+  if (key === 'residue') return typeof value === 'string' && RESIDUE_NAME.test(value) ? null : problem('wrong_type', path, 'The residue name is 1 to 3 upper-case letters or digits.');
   if (key === 'exclusions') {
     const { min, max } = TERM_LIMITS.exclusions;
     return typeof value === 'number' && Number.isInteger(value) && value >= min && value <= max ? null : problem('wrong_type', path, `The exclusion count is a whole number from ${min} to ${max}.`);

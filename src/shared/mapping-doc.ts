@@ -6,7 +6,8 @@
  *   doc.getMap('beads')    bead id → Y.Map { name: string, type: string | null, centre: CentreRule,
  *                          measured?: { kind: 'logP' | 'deltaG', value: number, source: string } | null }
  *   doc.getMap('atoms')    atom index as a decimal string ("0", "17") → plain object { [beadId]: weight }
- *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms', exclusions?: 0…6 }
+ *   doc.getMap('settings') optional; { partitionBasis?: 'fragment' | 'atoms', exclusions?: 0…6,
+ *                          residue?: 1–3 letters or digits (upper case; the exports' residue name) }
  *   doc.getMap('bonded')   optional; term key ("angle:b1,b2,b3") → plain object BondedParams
  *                          (src/shared/bonded-terms.ts: function, value, k, multiplicity, constraint, omit)
  *   doc.getMap('proposal') optional; the open automatic proposal shown as ghosts, not mapping data
@@ -53,7 +54,9 @@ export const BONDED = 'bonded';
 /** A term key names a kind and up to four bead ids. */
 export const TERM_KEY_MAX = 12 + 4 * 65;
 export const BEAD_KEYS = ['name', 'type', 'centre', 'measured'] as const;
-export const SETTING_KEYS = ['partitionBasis', 'exclusions'] as const;
+export const SETTING_KEYS = ['partitionBasis', 'exclusions', 'residue'] as const;
+/** A residue name every export can write as it is: the PDB's resName has three columns (18–20). */
+export const RESIDUE_NAME = /^[A-Z0-9]{1,3}$/;
 export { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES, measuredProblem };
 export const CENTRE_RULES: readonly CentreRule[] = ['mass', 'geometry', 'geometry-heavy'];
 export const BEAD_NAME_MAX = 40;
@@ -78,6 +81,21 @@ export function readExclusions(doc: Y.Doc): number | undefined {
   if (!doc.share.has(SETTINGS)) return undefined;
   const v = settingsOf(doc).get('exclusions');
   return typeof v === 'number' && Number.isInteger(v) && v >= TERM_LIMITS.exclusions.min && v <= TERM_LIMITS.exclusions.max ? v : undefined;
+}
+
+/** The molecule's residue name as the draft holds it (undefined when never set). */
+export function readResidue(doc: Y.Doc): string | undefined {
+  if (!doc.share.has(SETTINGS)) return undefined;
+  const v = settingsOf(doc).get('residue');
+  return typeof v === 'string' && RESIDUE_NAME.test(v) ? v : undefined;
+}
+
+/** Sets (or with null clears) the residue name, as one transaction. */
+export function setResidue(doc: Y.Doc, residue: string | null, origin?: unknown): void {
+  doc.transact(() => {
+    if (residue === null) settingsOf(doc).delete('residue');
+    else settingsOf(doc).set('residue', residue);
+  }, origin);
 }
 
 /** The stored bonded terms by key (empty when none). */
@@ -146,11 +164,13 @@ export function docToMapping(doc: Y.Doc): Mapping {
   const partitionBasis = readPartitionBasis(doc);
   const bonded = readBonded(doc);
   const exclusions = readExclusions(doc);
+  const residue = readResidue(doc);
   return {
     beads,
     ...(partitionBasis ? { partitionBasis } : {}),
     ...(Object.keys(bonded).length > 0 ? { bonded } : {}),
     ...(exclusions !== undefined ? { exclusions } : {}),
+    ...(residue !== undefined ? { residue } : {}),
   };
 }
 
@@ -163,6 +183,8 @@ export function mappingToDoc(doc: Y.Doc, mapping: Mapping, origin?: unknown): vo
     else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('partitionBasis');
     if (mapping.exclusions !== undefined) settingsOf(doc).set('exclusions', mapping.exclusions);
     else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('exclusions');
+    if (mapping.residue !== undefined) settingsOf(doc).set('residue', mapping.residue);
+    else if (doc.share.has(SETTINGS)) settingsOf(doc).delete('residue');
     if (doc.share.has(BONDED) || mapping.bonded) {
       bondedOf(doc).clear();
       for (const [key, p] of Object.entries(mapping.bonded ?? {})) bondedOf(doc).set(key, { ...p });

@@ -7,7 +7,7 @@
 import { z } from 'zod';
 import { refineSmilesCharacters } from './smiles-text';
 import { beadTypeRow } from './bead-types';
-import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX } from './mapping-doc';
+import { BEAD_ID_MAX, BEAD_NAME_MAX, BEAD_TYPE_MAX, RESIDUE_NAME } from './mapping-doc';
 import { MEASURED_LIMITS, MEASURED_SOURCE_MAX, PARTITION_BASES } from './partition-input';
 
 export const SMILES_MAX = 5000;
@@ -54,6 +54,7 @@ export const mappingSchema = z
     // Bonded terms are not evaluated by the chemistry core beyond the missing-value check; a caller may send them.
     bonded: z.record(z.string(), z.any()).optional(),
     exclusions: z.number().int().min(0).max(6).optional(),
+    residue: z.string().regex(RESIDUE_NAME, 'The residue name is 1 to 3 upper-case letters or digits.').optional(),
   })
   .refine((m) => new Set(m.beads.map((b) => b.id)).size === m.beads.length, { message: 'Bead ids must be unique.', path: ['beads'] });
 

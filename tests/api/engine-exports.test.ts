@@ -15,6 +15,7 @@ import JSZip from 'jszip';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BondedTerm } from '../../src/shared/bonded-terms';
 import type { Vec3 } from '../../src/shared/chem';
+import { setResidue } from '../../src/shared/mapping-doc';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { binary } from '../helpers/binary';
 import { signedIn, type ApiClient } from '../helpers/client';
@@ -204,7 +205,7 @@ describe('engine exports run in the engines', () => {
     const inRing = (x: BondedTerm) => x.beads.filter((b) => ring.has(b)).length;
     // Two exclusions: the amide bead sits closer to the far ring beads than the placeholder sigma.
     const dirs = await exportBoth(f, 'drug', { constrain: (x) => inRing(x) === 2, omit: (x) => inRing(x) === 3 }, 2);
-    const itp = readFileSync(join(dirs.gromacs, 'parac.itp'), 'utf8');
+    const itp = readFileSync(join(dirs.gromacs, 'paracetamol.itp'), 'utf8');
     expect(itp).toMatch(/\[ constraints \]\n;[^\n]*\n(\d+\s+\d+\s+1\s+[\d.]+\n){3}/);
     expect(itp).toContain('[ exclusions ]');
     grompp(dirs.gromacs, 'drug');
@@ -232,7 +233,7 @@ describe('engine exports run in the engines', () => {
     };
     const dirs = await exportBoth(f, 'improper', { constrain: (x) => inRing(x) === 2, omit: (x) => inRing(x) === 3 }, 2, undefined, improper);
     expect(Math.abs(xi0)).toBeLessThan(10);
-    const itp = readFileSync(join(dirs.gromacs, 'tolue.itp'), 'utf8');
+    const itp = readFileSync(join(dirs.gromacs, 'toluene.itp'), 'utf8');
     expect(itp).toMatch(/\[ dihedrals \]\n;[^\n]*\n1 {2}3 {2}4 {2}2 {2}2 {2}-?[\d.]+ {2}100\.0\n/);
     grompp(dirs.gromacs, 'improper');
     const data = readFileSync(join(dirs.lammps, readdirData(dirs.lammps)), 'utf8');
@@ -257,10 +258,21 @@ describe('engine exports run in the engines', () => {
         { name: 'NA', type: 'cation', atoms: [na] },
       ];
     });
+    // The residue name stored with the mapping (a setting of the draft, edited live like the rest).
+    const room = (await t.collab.rooms.open(f.mappingId))!;
+    await room.editDraft((next) => setResidue(next, 'SAL'), (await t.ctx.db('users').where({ email: 'modeller@example.org' }).first('id')).id);
+    await room.releaseIfIdle();
     const dirs = await exportBoth(f, 'salt');
     const top = readFileSync(join(dirs.gromacs, 'topol.top'), 'utf8');
-    expect(top).toMatch(/\[ molecules \]\n; name {2}count\nSodiu {2}1\nNA {2}1\n/);
-    expect(readFileSync(join(dirs.gromacs, 'sodiu.itp'), 'utf8')).toMatch(/COO\s+2\s+-1\.0\s/);
+    // Moleculetype names are not cut to five characters (GROMACS reads any one-word name); .gro residue columns are.
+    expect(top).toMatch(/\[ molecules \]\n; name {2}count\nSodium_pentanoate {2}1\nNA {2}1\n/);
+    const itp = readFileSync(join(dirs.gromacs, 'sodium-pentanoate.itp'), 'utf8');
+    expect(itp).toMatch(/^Sodium_pentanoate {2}1$/m);
+    expect(itp).toMatch(/COO\s+2\s+-1\.0\s/);
+    expect(itp).toMatch(/^1 {2}tail {2}1 {2}SAL {2}C3 /m);
+    expect(readFileSync(join(dirs.gromacs, 'conf.gro'), 'utf8').split('\n')[2].slice(5, 10)).toBe('SAL  ');
+    const stored = (await binary(modeller.get(`/api/mappings/${f.mappingId}/export?format=pdb&version=${dirs.version}`)).expect(200)).body.toString('utf8');
+    expect(stored.split('\n').filter((l: string) => l.startsWith('HETATM')).map((l: string) => l.slice(17, 20))).toEqual(['SAL', 'SAL', ' NA']);
     grompp(dirs.gromacs, 'salt');
     // The PDB export: residue name as asked, the ion its own residue, blank element columns, a CRYST1 box
     // that GROMACS' own PDB reader (gmx editconf) takes over.
@@ -314,7 +326,7 @@ describe('engine exports run in the engines', () => {
     const gro = readFileSync(join(dirs.gromacs, 'conf.gro'), 'utf8').split('\n');
     expect(Number(gro[1])).toBe(20);
     expect(gro[21].slice(0, 10)).toBe('   10EO2un');
-    const itp = readFileSync(join(dirs.gromacs, 'eo2un.itp'), 'utf8');
+    const itp = readFileSync(join(dirs.gromacs, 'eo2-unit.itp'), 'utf8');
     const section = (name: string) => itp.split(`[ ${name} ]`)[1]?.split('\n\n')[0].split('\n').filter((l) => /^\d/.test(l)) ?? [];
     expect(section('bonds')).toHaveLength(19); // 10 within units + 9 junctions
     expect(section('angles')).toHaveLength(18); // 9 A-B-A+ and 9 B-A+-B+

@@ -6,14 +6,14 @@ import type { BondedTerm } from '../../src/shared/bonded-terms';
 // Ring handling in the bonded-terms panel through the real client, server, collab socket and MariaDB:
 // one click makes a ring of beads rigid (its bonds constraints, the angle inside it left out) and back;
 // an improper dihedral is added from labelled fields with the keyboard, a bad one is refused in the
-// form with nothing stored, and a stored one is removed.
+// form with nothing stored, and a stored one is removed; the residue name the exports use is set.
 
 const session = browserSession();
 beforeAll(() => session.open());
 afterAll(() => session.close());
 
 describe('ring handling in the editor', () => {
-  it('makes a ring rigid and flexible again, adds and removes an improper dihedral', async () => {
+  it('makes a ring rigid and flexible again, adds and removes an improper dihedral, stores the residue name', async () => {
     const page = await session.signedIn('modeller@example.org', 'beadloom-demo');
     const { mappingId, model } = await newMappingInPage(page, { molecule: 'Toluene for ring handling', smiles: 'Cc1ccccc1', mapping: 'Ring of three', resolution: '2:1' });
     const { atoms, bonds } = model;
@@ -57,6 +57,16 @@ describe('ring handling in the editor', () => {
     const improper = (await read()).find((x) => x.kind === 'improper')!;
     await page.getByRole('button', { name: `Remove improper ${improper.beads.join('–')}` }).click();
     await expect.poll(async () => (await read()).filter((x) => x.kind === 'improper').length, { timeout: 15_000 }).toBe(0);
+
+    // The residue name the exports use, stored with the mapping: a bad one is refused in the form.
+    const residue = page.getByRole('form', { name: 'Residue name' });
+    await residue.getByLabel('Residue name (PDB, GRO, ITP exports)').fill('a-b');
+    await residue.getByRole('button', { name: 'Save' }).click();
+    await residue.getByRole('alert').filter({ hasText: '1 to 3 letters or digits' }).waitFor();
+    await residue.getByLabel('Residue name (PDB, GRO, ITP exports)').fill('tol');
+    await residue.getByRole('button', { name: 'Save' }).click();
+    const stored = () => page.evaluate(async (id) => (await (await fetch(`/api/mappings/${id}/export?format=json&version=draft`)).json()).content.residue as string | undefined, mappingId);
+    await expect.poll(stored, { timeout: 15_000 }).toBe('TOL');
     expect(session.errors).toEqual([]);
   }, 120_000);
 });

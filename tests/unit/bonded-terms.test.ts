@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
 import { bondedParamsProblem, missingValues, parseTermKey, termKey } from '../../src/shared/bonded-terms';
 import { applyChecked, checkDoc } from '../../src/shared/mapping-doc-check';
-import { createBead, docToMapping, mappingToDoc, setBonded } from '../../src/shared/mapping-doc';
+import { createBead, docToMapping, mappingToDoc, setBonded, setResidue } from '../../src/shared/mapping-doc';
 
 // Bonded terms in the draft document: one canonical key per term, params checked on the way in
 // (the live server applies every update with applyChecked), carried through docToMapping/mappingToDoc.
@@ -47,5 +47,18 @@ describe('bonded terms in the draft', () => {
     mappingToDoc(fresh, docToMapping(doc));
     expect(applyChecked(fresh, update((d) => d.getMap('bonded').set('twist:a,b', { function: 'harmonic', value: 0.5, k: 1 }), fresh), 4)?.code).toBe('unknown_key');
     expect(applyChecked(fresh, update((d) => d.getMap('settings').set('exclusions', 12), fresh), 4)?.code).toBe('wrong_type');
+  });
+
+  it('keeps the residue name as a setting: 1 to 3 upper-case letters or digits, carried through versions', () => {
+    const doc = new Y.Doc();
+    createBead(doc, [0], { id: 'a' });
+    expect(applyChecked(doc, update((d) => setResidue(d, 'SAL'), doc), 4)).toBeNull();
+    expect(docToMapping(doc).residue).toBe('SAL');
+    const copy = new Y.Doc();
+    mappingToDoc(copy, docToMapping(doc));
+    expect(docToMapping(copy).residue).toBe('SAL');
+    for (const bad of ['sal', 'TOOL', '', 'A B', 7]) expect(applyChecked(doc, update((d) => d.getMap('settings').set('residue', bad), doc), 4)?.code, String(bad)).toBe('wrong_type');
+    expect(applyChecked(doc, update((d) => setResidue(d, null), doc), 4)).toBeNull();
+    expect(docToMapping(doc).residue).toBeUndefined();
   });
 });

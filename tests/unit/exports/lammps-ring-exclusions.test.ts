@@ -21,6 +21,7 @@ const ring = (exclusions: [number, number][]): CgModel => ({
   types: [
     {
       name: 'RING',
+      residue: 'RING',
       nrexcl: 1,
       exclusions,
       beads: [[0, 0], [side, 0], [side, side], [0, side]].map(([x, y], i) => ({ name: `R${i + 1}`, residue: 1, type: 'T', mass: 72, charge: 0, xyz: [2 + x, 2 + y, 2] as [number, number, number] })),

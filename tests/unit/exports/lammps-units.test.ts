@@ -33,6 +33,7 @@ describe('kJ mol⁻¹ nm⁻² → kcal mol⁻¹ Å⁻²', () => {
       types: [
         {
           name: 'PAIR',
+          residue: 'PAIR',
           nrexcl: 1,
           exclusions: [],
           beads: [

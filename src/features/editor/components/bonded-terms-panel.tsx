@@ -10,6 +10,7 @@ import { editorBondedRows, useBondedRevision, type EditorBondedRow } from '../mo
 import { FillFromAnalysis } from './fill-from-analysis';
 import { ImproperForm } from './improper-form';
 import { RingControls } from './ring-controls';
+import { ResidueForm } from './residue-form';
 
 const compact = 'px-1 py-0.5 text-xs w-20';
 const UNITS: Record<EditorBondedRow['kind'], { value: string; k: string }> = {
@@ -43,7 +44,10 @@ export function BondedTermsPanel({ mappingId, doc, origin, readOnly, topology, m
   return (
     <div className="flex flex-col gap-2">
       {!readOnly && <FillFromAnalysis mappingId={mappingId} rows={rows} />}
-      <ExclusionsForm doc={doc} origin={origin} readOnly={readOnly} exclusions={exclusions} />
+      <div className="flex flex-wrap items-end gap-4">
+        <ExclusionsForm doc={doc} origin={origin} readOnly={readOnly} exclusions={exclusions} />
+        <ResidueForm doc={doc} origin={origin} readOnly={readOnly} residue={draft.residue ?? null} />
+      </div>
       <RingControls doc={doc} origin={origin} readOnly={readOnly} topology={topology} stored={draft.bonded ?? {}} beadName={(id) => names.get(id) ?? id} />
       <ul className="flex flex-col gap-1" aria-label="Bonded terms">
         {rows.map((r) => <BondedRowForm key={r.key} row={r} doc={doc} origin={origin} readOnly={readOnly} />)}
