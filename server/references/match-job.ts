@@ -11,6 +11,9 @@ import { findReference, moleculeForReference, referenceFailed, referenceMatched,
 // The reference matching job: plain data (which reference) and a runner that does the work in a
 // thread (match-worker.ts) and records state, progress (per mille) and the outcome in MariaDB.
 
+/** Failures another selection can mend: the molecule was not found where the search looked. */
+const RETRYABLE = new Set(['molecule_not_found', 'united_atom_reference']);
+
 export interface MatchJobData {
   referenceId: number;
 }
@@ -45,10 +48,14 @@ export function matchJobRunner(db: Db, dataDir: string): TaskRunner<MatchJobData
       await referenceMatched(db, referenceId, { copies: result.copies, frames: result.frames, atomsPerCopy: result.atomsPerCopy, atomsTotal: result.atomsTotal, sourceFormat: result.source.format });
       await hooks.reportProgress(1000, 1000);
     } catch (err) {
-      if (err instanceof TaskFailed) await referenceFailed(db, referenceId, err.code ?? 'matching_failed', err.message, err.details);
-      else await referenceFailed(db, referenceId, 'matching_failed', `Matching stopped: ${(err as Error).message}`);
-      // A refused reference keeps its row (so everyone sees why) but none of its files.
-      await removeDir(dir);
+      // A refused reference keeps its row (so everyone sees why). Its files stay when a narrowed
+      // search may still find the molecule (POST /api/references/:id/match, without uploading
+      // again); a file that cannot be read, or that disagrees with the other, is removed.
+      const code = err instanceof TaskFailed ? (err.code ?? 'matching_failed') : 'matching_failed';
+      const keep = RETRYABLE.has(code);
+      if (err instanceof TaskFailed) await referenceFailed(db, referenceId, code, err.message, err.details, keep);
+      else await referenceFailed(db, referenceId, code, `Matching stopped: ${(err as Error).message}`);
+      if (!keep) await removeDir(dir);
     }
   };
 }

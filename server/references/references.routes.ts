@@ -5,7 +5,7 @@ import type { RouteTable } from '../http/route-table';
 import type { BackgroundTasks } from '../jobs/background-task';
 import { typed } from '../http/validate';
 import { requireUser, authorizeProject } from '../auth/access';
-import { badRequest, notFound } from '../http/errors';
+import { badRequest, conflict, notFound } from '../http/errors';
 import { idParam } from '../../src/shared/fields';
 import { referenceNameField, REFERENCE_FIELDS } from '../../src/shared/references';
 import { referenceSelection } from '../../src/shared/references-selection';
@@ -14,10 +14,11 @@ import { authorizeMolecule } from '../molecules/molecule-access';
 import { structureFormatOf, trajectoryFormatOf } from './formats';
 import { adoptUpload, analysisDir, referenceDir, removeDir } from './reference-files';
 import { discardUploads, quotaExceeded, referenceUpload, uploadedFiles } from './reference-upload';
-import { deleteReference, findReference, insertReference, projectBytes, referencesOf, toReferenceView } from './references.service';
+import { deleteReference, findReference, insertReference, projectBytes, referencesOf, requeueReference, toReferenceView } from './references.service';
 import { matchJobHooks, matchJobRunner } from './match-job';
 
 const params = z.object({ id: idParam });
+const matchAgainBody = z.object({ selection: referenceSelection.nullable() }).strict();
 
 /** A reference's project, authorised for `action`: 404 for unknown and invisible alike. */
 export async function authorizeReference(ctx: AppContext, req: Request, id: number, action: ProjectAction) {
@@ -99,6 +100,19 @@ export function referenceRoutes(r: RouteTable, ctx: AppContext, tasks: Backgroun
 
   r.get('/api/references/:id', typed({ params }, async ({ params }, req, res) => {
     res.json(toReferenceView(await authorizeReference(ctx, req, params.id, 'reference:read')));
+  }));
+
+  // Matching again with another selection, on the files a failed search kept (no new upload).
+  r.post('/api/references/:id/match', typed({ params, body: matchAgainBody }, async ({ params, body }, req, res) => {
+    const row = await authorizeReference(ctx, req, params.id, 'reference:create');
+    if (row.status !== 'failed') throw conflict('reference_not_failed', `That reference is ${row.status}; only a reference whose search failed is matched again.`, { status: row.status });
+    if (!(await requeueReference(ctx.db, params.id, body.selection))) {
+      const now = await findReference(ctx.db, params.id);
+      if (now?.status === 'failed') throw conflict('reference_files_gone', 'That reference’s files were removed when it failed (they could not be read or did not agree), so it cannot be matched again: upload them again.', { code: now.error_code });
+      throw conflict('reference_not_failed', `That reference is ${now?.status ?? 'gone'}; only a reference whose search failed is matched again.`, { status: now?.status });
+    }
+    tasks.start('reference-match', runMatch, { referenceId: params.id }, matchJobHooks(ctx.db, params.id));
+    res.status(202).json({ id: params.id, status: 'queued' });
   }));
 
   r.delete('/api/references/:id', typed({ params }, async ({ params }, req, res) => {

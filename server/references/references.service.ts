@@ -58,7 +58,9 @@ export function toReferenceView(r: ReferenceRow): ReferenceView {
     trajectoryName: r.trajectory_name,
     bytes: Number(r.bytes),
     createdAt: new Date(r.created_at).toISOString(),
-    ...(r.error ? { error: { code: r.error_code ?? 'failed', message: r.error, ...(r.error_details ? { details: JSON.parse(r.error_details) } : {}) } } : {}),
+    ...(r.error
+      ? { error: { code: r.error_code ?? 'failed', message: r.error, ...(r.error_details ? { details: JSON.parse(r.error_details) } : {}), ...(r.status === 'failed' && Number(r.bytes) > 0 ? { retryable: true } : {}) } }
+      : {}),
   };
 }
 
@@ -121,10 +123,28 @@ export async function referenceMatched(db: Db, id: number, found: { copies: numb
   });
 }
 
-export async function referenceFailed(db: Db, id: number, code: string, message: string, details?: unknown): Promise<void> {
+/**
+ * The reference failed. `filesKept`: its uploaded files stay (a narrowed search may still find the
+ * molecule, match-job.ts), and so do their bytes in the project's quota; otherwise they are gone and
+ * count no more.
+ */
+export async function referenceFailed(db: Db, id: number, code: string, message: string, details?: unknown, filesKept = false): Promise<void> {
   await db('simulation_references')
     .where({ id })
-    .update({ status: 'failed', bytes: 0, error_code: code, error: message, error_details: details === undefined ? null : JSON.stringify(details), updated_at: db.fn.now(3) });
+    .update({ status: 'failed', ...(filesKept ? {} : { bytes: 0 }), error_code: code, error: message, error_details: details === undefined ? null : JSON.stringify(details), updated_at: db.fn.now(3) });
+}
+
+/**
+ * A failed reference whose files were kept goes back to the queue with a new selection (null: the
+ * whole system). False when it is not such a reference (any more): the state check is in the UPDATE,
+ * so two retries at once cannot both start.
+ */
+export async function requeueReference(db: Db, id: number, selection: ReferenceSelection | null): Promise<boolean> {
+  const n = await db('simulation_references')
+    .where({ id, status: 'failed' })
+    .andWhere('bytes', '>', 0)
+    .update({ status: 'queued', selection: selection ? JSON.stringify(selection) : null, progress_done: 0, progress_total: 0, error_code: null, error: null, error_details: null, updated_at: db.fn.now(3) });
+  return n > 0;
 }
 
 /** The molecule's stored model (JSON) and project, for matching. */

@@ -28,7 +28,8 @@ export interface ReferenceView {
   trajectoryName: string | null;
   bytes: number;
   createdAt: string;
-  error?: { code: string; message: string; details?: unknown };
+  /** retryable: the files were kept, so POST /api/references/:id/match may try again with another selection. */
+  error?: { code: string; message: string; details?: unknown; retryable?: boolean };
 }
 
 export const referenceNameField = z.string().trim().min(1, 'Give the reference a name.').max(200);

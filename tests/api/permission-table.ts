@@ -289,6 +289,8 @@ export const ROUTE_CASES: RouteCase[] = [
   { method: 'post', path: '/api/molecules/:id/references', request: async (env) => ({ url: `/api/molecules/${(await shared(env)).moleculeId}/references`, body: {} }), expect: byRule(400, 'reference:create') },
   { method: 'get', path: '/api/molecules/:id/references', request: async (env) => ({ url: `/api/molecules/${(await shared(env)).moleculeId}/references` }), expect: byRule(200, 'reference:read') },
   { method: 'get', path: '/api/references/:id', request: async (env) => ({ url: `/api/references/${await referenceFixture(env, 'shared')}` }), expect: byRule(200, 'reference:read') },
+  // The fixture reference is queued, not failed: a permitted caller gets 409 (nothing runs).
+  { method: 'post', path: '/api/references/:id/match', request: async (env) => ({ url: `/api/references/${await referenceFixture(env, 'shared')}/match`, body: { selection: null } }), expect: byRule(409, 'reference:create') },
   { method: 'delete', path: '/api/references/:id', request: async (env, c) => ({ url: `/api/references/${await referenceFixture(env, unique(c))}` }), expect: byRule(204, 'reference:delete') },
   // Analyses: the fixture reference is not ready, so a permitted start gets 409 (nothing runs).
   { method: 'post', path: '/api/mappings/:id/analyses', request: async (env) => ({ url: `/api/mappings/${(await shared(env)).mappingId}/analyses`, body: { referenceId: await referenceFixture(env, 'shared'), version: 1 } }), expect: byRule(409, 'analysis:start') },

@@ -68,11 +68,42 @@ describe('references', () => {
     expect(readdirSync(join(t.ctx.config.dataDir, 'references')).includes(String(res.body.id))).toBe(false);
   });
 
-  it('a structure without the molecule names the first misfit', async () => {
+  it('a structure without the molecule names the first misfit, keeps the files, and matches again with a narrowed search', async () => {
     const res = await upload({ structure: ['sys.gro', groText(sys, sys.frames.slice(0, 1))] }, { selection: JSON.stringify({ start: 2, atomsPerCopy: sys.atomsPerCopy, copies: 2 }) }).expect(202);
     await t.tasks.idle();
     const got = await modeller.get(`/api/references/${res.body.id}`).expect(200);
-    expect(got.body).toMatchObject({ status: 'failed', error: { code: 'molecule_not_found', message: expect.stringMatching(/^Atom \d+ \(/) } });
+    expect(got.body).toMatchObject({ status: 'failed', error: { code: 'molecule_not_found', message: expect.stringMatching(/^Atom \d+ \(/), retryable: true } });
+    // The files stay (and count in the quota) so the search can be narrowed without uploading again.
+    expect(readdirSync(join(t.ctx.config.dataDir, 'references', String(res.body.id)))).toContain('structure.gro');
+    expect(got.body.bytes).toBeGreaterThan(0);
+    const url = `/api/references/${res.body.id}/match`;
+    const before = await snapshot(t.ctx.db, TABLES);
+    // A bad selection, or a student, changes nothing.
+    const bad = await modeller.post(url, { selection: { start: 0, atomsPerCopy: 3, copies: 1 } }).expect(400);
+    expect(bad.body.error.code).toBe('validation_failed');
+    await modeller.post(url, { selection: null, extra: 1 }).expect(400);
+    await student.post(url, { selection: null }).expect(403);
+    expect(await snapshot(t.ctx.db, TABLES)).toEqual(before);
+    const again = await modeller.post(url, { selection: { start: 1, atomsPerCopy: sys.atomsPerCopy, copies: 8 } }).expect(202);
+    expect(again.body).toEqual({ id: res.body.id, status: 'queued' });
+    await t.tasks.idle();
+    const ready = await modeller.get(`/api/references/${res.body.id}`).expect(200);
+    expect(ready.body).toMatchObject({ status: 'ready', copies: 8, frames: 1, atomsPerCopy: sys.atomsPerCopy });
+    expect(ready.body.error).toBeUndefined();
+    // Only a failed reference is matched again.
+    const ok = await modeller.post(url, { selection: null }).expect(409);
+    expect(ok.body.error).toMatchObject({ code: 'reference_not_failed', details: { status: 'ready' } });
+  });
+
+  it('a reference whose files could not be read is not matched again: its files are gone', async () => {
+    const fewer = { ...sys, elements: sys.elements.slice(0, -1), frames: sys.frames.map((f) => f.slice(0, -3)) };
+    const res = await upload({ structure: ['sys.gro', groText(sys, sys.frames.slice(0, 1))], trajectory: ['traj.gro', groText(fewer as RefSystem)] }).expect(202);
+    await t.tasks.idle();
+    const got = await modeller.get(`/api/references/${res.body.id}`).expect(200);
+    expect(got.body).toMatchObject({ status: 'failed', bytes: 0, error: { code: 'atom_count_mismatch' } });
+    expect(got.body.error.retryable).toBeUndefined();
+    const r = await modeller.post(`/api/references/${res.body.id}/match`, { selection: null }).expect(409);
+    expect(r.body.error).toMatchObject({ code: 'reference_files_gone', message: expect.stringMatching(/upload them again/) });
   });
 
   it('bad input is refused in the shared shape and nothing is stored', async () => {
