@@ -26,8 +26,8 @@ function withTransferSummary(description: string | undefined, report: TransferRe
 
 export function mappingRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess, starts: MappingStarts): void {
   const detail = async (id: number, canEdit: boolean): Promise<MappingDetail> => {
-    const summary = await findMapping(ctx.db, id);
-    const { draft, result } = await drafts.read(id);
+    // The mapping's row and the draft (a stamp query when it is kept) side by side.
+    const [summary, { draft, result }] = await Promise.all([findMapping(ctx.db, id), drafts.read(id)]);
     return { ...summary, draft, evaluation: result.evaluation, evaluationError: result.error, canEdit: canEdit && !summary.locked };
   };
 

@@ -16,7 +16,7 @@ export async function unreadCount(db: Db, userId: number): Promise<number> {
 
 /** The person's newest notifications (the bell's list), with the unread count. */
 export async function listNotifications(db: Db, userId: number, limit = 50): Promise<NotificationList> {
-  const rows = await db('notifications as n')
+  const [rows, unread] = await Promise.all([db('notifications as n')
     .join('threads as t', 't.id', 'n.thread_id')
     .join('thread_comments as c', 'c.id', 'n.comment_id')
     .join('mappings as p', 'p.id', 't.mapping_id')
@@ -24,7 +24,7 @@ export async function listNotifications(db: Db, userId: number, limit = 50): Pro
     .where('n.user_id', userId)
     .orderBy('n.id', 'desc')
     .limit(limit)
-    .select('n.id', 'n.kind', 'n.actor_id', 'a.display_name as actor_name', 't.mapping_id', 'p.name as mapping_name', 'n.thread_id', 't.bead_id', 'n.comment_id', 'c.body', 'c.deleted_at', 'n.created_at', 'n.read_at');
+    .select('n.id', 'n.kind', 'n.actor_id', 'a.display_name as actor_name', 't.mapping_id', 'p.name as mapping_name', 'n.thread_id', 't.bead_id', 'n.comment_id', 'c.body', 'c.deleted_at', 'n.created_at', 'n.read_at'), unreadCount(db, userId)]);
   const items: NotificationItem[] = rows.map((r) => ({
     id: r.id,
     kind: r.kind,
@@ -38,7 +38,7 @@ export async function listNotifications(db: Db, userId: number, limit = 50): Pro
     createdAt: new Date(r.created_at).toISOString(),
     readAt: r.read_at ? new Date(r.read_at).toISOString() : null,
   }));
-  return { unread: await unreadCount(db, userId), items };
+  return { unread, items };
 }
 
 /** Marks the person's own notifications read (ids of others are ignored); returns the unread count. */

@@ -55,7 +55,8 @@ export function threadRoutes(r: RouteTable, ctx: AppContext, live: LiveHub, jobs
   r.get('/api/mappings/:id/threads', typed({ params, query: listThreadsQuery }, async ({ params, query }, req, res) => {
     const id = params.id;
     await authorizeMapping(db, req, id, 'thread:read');
-    const list = await threads.listThreads(db, id, await draftBeads(drafts, id), query.status);
+    // The draft's bead names (a stamp query) and the thread list's one query run side by side.
+    const list = await threads.listThreads(db, id, draftBeads(drafts, id), query.status);
     if (query.version === undefined) return void res.json(list);
     // Viewing a version: the threads of the beads it contains.
     const inVersion = new Set((await getVersion(db, id, query.version)).draft.beads.map((b) => b.id));

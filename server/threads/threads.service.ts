@@ -6,30 +6,78 @@ import { toComment, toThread, type CommentRow, type ThreadRow } from './thread-v
 
 // Knex for threads, thread_comments and thread_beads.
 
-async function peopleOf(db: Db, ids: (number | null)[]): Promise<Map<number, string>> {
-  const wanted = [...new Set(ids.filter((id): id is number => id !== null))];
-  if (!wanted.length) return new Map();
-  const rows = await db('users').whereIn('id', wanted).select('id', 'display_name');
-  return new Map(rows.map((r) => [r.id as number, r.display_name as string]));
+/** One row per comment (or one per thread without comments) of the one-query thread list, people and stored bead name joined. */
+interface ThreadListRow extends ThreadRow {
+  created_by_name: string | null;
+  resolved_by_name: string | null;
+  stored_name: string | null;
+  c_id: number | null;
+  c_author_id: number | null;
+  c_author_name: string | null;
+  c_body: string | null;
+  c_created_at: Date | null;
+  c_edited_at: Date | null;
+  c_deleted_at: Date | null;
 }
 
-/** Threads of a mapping (optionally only open or resolved ones), oldest first, with their comments. */
-export async function listThreads(db: Db, mappingId: number, beads: DraftBeads, status: ThreadStatus = 'all', onlyIds?: number[]): Promise<Thread[]> {
-  const q = db<ThreadRow>('threads').where({ mapping_id: mappingId }).orderBy('id');
-  if (status === 'open') q.whereNull('resolved_at');
-  if (status === 'resolved') q.whereNotNull('resolved_at');
-  if (onlyIds) q.whereIn('id', onlyIds);
-  const threads: ThreadRow[] = await q.select('*');
-  if (!threads.length) return [];
-  const comments: CommentRow[] = await db('thread_comments').whereIn('thread_id', threads.map((t) => t.id)).orderBy('id').select('*');
-  const people = await peopleOf(db, [...threads.flatMap((t) => [t.created_by, t.resolved_by]), ...comments.map((c) => c.author_id)]);
-  const names = await recordBeadNames(db, mappingId, threads.map((t) => t.bead_id), beads);
-  return threads.map((t) =>
+/**
+ * Threads of a mapping (optionally only open or resolved ones), oldest first, with their comments. One
+ * query: the threads, their comments, the people named and the stored bead names, joined (the list is
+ * read on every page load of a mapping; it was four queries one after another). `beads` may still be
+ * on its way (its stamp query runs beside this one).
+ */
+export async function listThreads(db: Db, mappingId: number, beads: DraftBeads | Promise<DraftBeads>, status: ThreadStatus = 'all', onlyIds?: number[]): Promise<Thread[]> {
+  const q = db('threads as t')
+    .leftJoin('thread_comments as c', 'c.thread_id', 't.id')
+    .leftJoin('users as uc', 'uc.id', 't.created_by')
+    .leftJoin('users as ur', 'ur.id', 't.resolved_by')
+    .leftJoin('users as ua', 'ua.id', 'c.author_id')
+    .leftJoin('thread_beads as tb', function joinBead() {
+      this.on('tb.mapping_id', '=', 't.mapping_id').andOn('tb.bead_id', '=', 't.bead_id');
+    })
+    .where('t.mapping_id', mappingId)
+    .orderBy([{ column: 't.id' }, { column: 'c.id' }]);
+  if (status === 'open') q.whereNull('t.resolved_at');
+  if (status === 'resolved') q.whereNotNull('t.resolved_at');
+  if (onlyIds) q.whereIn('t.id', onlyIds);
+  const [rows, draft] = await Promise.all([
+    q.select<ThreadListRow[]>(
+      't.*',
+      'uc.display_name as created_by_name',
+      'ur.display_name as resolved_by_name',
+      'tb.last_name as stored_name',
+      'c.id as c_id',
+      'c.author_id as c_author_id',
+      'ua.display_name as c_author_name',
+      'c.body as c_body',
+      'c.created_at as c_created_at',
+      'c.edited_at as c_edited_at',
+      'c.deleted_at as c_deleted_at',
+    ),
+    beads,
+  ]);
+  if (!rows.length) return [];
+  const people = new Map<number, string>();
+  const named = (id: number | null, name: string | null) => id !== null && name !== null && people.set(id, name);
+  const byThread = new Map<number, { thread: ThreadListRow; comments: CommentRow[] }>();
+  for (const r of rows) {
+    named(r.created_by, r.created_by_name);
+    named(r.resolved_by, r.resolved_by_name);
+    named(r.c_author_id, r.c_author_name);
+    let entry = byThread.get(r.id);
+    if (!entry) byThread.set(r.id, (entry = { thread: r, comments: [] }));
+    if (r.c_id !== null) entry.comments.push({ id: r.c_id, thread_id: r.id, author_id: r.c_author_id, body: r.c_body ?? '', created_at: r.c_created_at!, edited_at: r.c_edited_at, deleted_at: r.c_deleted_at });
+  }
+  const threads = [...byThread.values()];
+  const stored = new Map<string, string>();
+  for (const { thread } of threads) if (thread.stored_name !== null) stored.set(thread.bead_id, thread.stored_name);
+  const names = await recordBeadNames(db, mappingId, new Set(threads.map((t) => t.thread.bead_id)), stored, draft);
+  return threads.map(({ thread, comments }) =>
     toThread(
-      t,
-      comments.filter((c) => c.thread_id === t.id).map((c) => toComment(c, people)),
+      thread,
+      comments.map((c) => toComment(c, people)),
       people,
-      { name: beads.current.get(t.bead_id) ?? names.get(t.bead_id) ?? t.bead_id, removed: !beads.current.has(t.bead_id) },
+      { name: draft.current.get(thread.bead_id) ?? names.get(thread.bead_id) ?? thread.bead_id, removed: !draft.current.has(thread.bead_id) },
     ),
   );
 }
@@ -43,13 +91,11 @@ export async function getThread(db: Db, threadId: number, beads: DraftBeads): Pr
 
 /**
  * Keeps `thread_beads` current for the given beads: the last name seen in the draft, so a thread on a
- * deleted bead still shows one. Returns the stored names.
+ * deleted bead still shows one. `stored`: the names stored now (bead id → name), updated and returned.
+ * Writes only when a bead was renamed since (rare).
  */
-async function recordBeadNames(db: Db, mappingId: number, beadIds: string[], beads: DraftBeads): Promise<Map<string, string>> {
-  const stored = new Map<string, string>(
-    (await db('thread_beads').where({ mapping_id: mappingId }).whereIn('bead_id', [...new Set(beadIds)]).select('bead_id', 'last_name')).map((r) => [r.bead_id, r.last_name]),
-  );
-  const changed = [...new Set(beadIds)].filter((id) => beads.current.has(id) && beads.current.get(id) !== stored.get(id));
+async function recordBeadNames(db: Db, mappingId: number, beadIds: Set<string>, stored: Map<string, string>, beads: DraftBeads): Promise<Map<string, string>> {
+  const changed = [...beadIds].filter((id) => beads.current.has(id) && beads.current.get(id) !== stored.get(id));
   for (const id of changed) {
     const name = beads.current.get(id)!;
     await db('thread_beads').insert({ mapping_id: mappingId, bead_id: id, last_name: name, seen_at: db.fn.now() }).onConflict(['mapping_id', 'bead_id']).merge();
