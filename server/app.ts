@@ -13,7 +13,8 @@ import { setChemJobTimeout } from './workers/chem-limits';
 import { createSessionMiddleware } from './auth/session';
 import { configurePassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';
-import { AccessCache } from './auth/access-cache';
+import { AccessCache, PROJECT_OF_TOPIC } from './auth/access-cache';
+import { ReadCache } from './cache/read-cache';
 import { authRoutes } from './auth/auth.routes';
 import { userRoutes } from './users/users.routes';
 import { projectRoutes } from './projects/projects.routes';
@@ -62,6 +63,23 @@ export interface BuiltApp {
   tasks: BackgroundTasks;
   close(): Promise<void>;
 }
+
+/**
+ * GET routes whose answers the read cache keeps: each is made from MariaDB alone (plus the conformer
+ * queue's positions, see above). Not the mapping detail or its threads: those follow the live drafts.
+ */
+const CACHED_READS = [
+  '/api/me',
+  '/api/projects',
+  '/api/projects/:id',
+  '/api/projects/:id/members',
+  '/api/projects/:id/molecules',
+  '/api/projects/:id/bead-types',
+  '/api/molecules/:id',
+  '/api/molecules/:id/mappings',
+  '/api/mappings/:id/versions',
+  '/api/notifications',
+];
 
 // Multipart bodies: molecule uploads and reference uploads.
 const UPLOAD_PATHS = /(\/upload|^\/api\/molecules\/[^/]+\/references)$/;
@@ -124,7 +142,15 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   }
 
   const collab = createCollab(ctx, [cookieParser(), session, passport.initialize(), passport.session()], collabOptions);
-  conformers.on('settled', (moleculeId: number) => collab.refresh({ moleculeId }));
+  // Answers of read-mostly lists and records kept per caller (cache/read-cache.ts); the molecule
+  // answers show the in-process conformer queue's positions, which change without a write.
+  // Access changes and deletions drop them too (see read-cache.ts for why).
+  const reads = new ReadCache(ctx.db, ctx.invalidation, [(clear) => ctx.accessChanges.subscribe(clear), (clear) => ctx.invalidation.subscribe(PROJECT_OF_TOPIC, clear)]);
+  conformers.on('queued', () => reads.clear());
+  conformers.on('settled', (moleculeId: number) => {
+    reads.clear();
+    collab.refresh({ moleculeId });
+  });
 
   const routes = new RouteTable();
   healthRoutes(routes, ctx);
@@ -151,6 +177,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
   referenceRoutes(routes, ctx, tasks);
   analysisRoutes(routes, ctx, collab, tasks);
   if (devMailMounted(ctx)) devMailRoutes(routes, ctx);
+  app.get(CACHED_READS, reads.serve);
   app.use(routes.router);
   app.use(['/api', '/dev'], unknownRoute);
 
@@ -177,6 +204,7 @@ export function createApp(ctx: AppContext, collabOptions: Partial<CollabOptions>
       await conformers.close();
       await collab.close();
       accessCache.close();
+      reads.close();
       await store.close();
     },
   };

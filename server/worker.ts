@@ -14,6 +14,7 @@ import { createMailer } from './mail/mailer';
 import { startMailSink, type MailSink } from './mail/sink';
 import { connectCluster } from './cluster/cluster-links';
 import { DRAFT_INPUTS_TOPIC } from './cluster/invalidation-bus';
+import { announceWrites } from './cache/read-cache';
 import { bullConnection, QUEUES } from './jobs/bull-queues';
 import type { Job } from './jobs/job-queue';
 import { computeConformer } from './molecules/conformer-queue';
@@ -34,6 +35,8 @@ export async function startWorker(config: Config): Promise<RunningWorker> {
   if (!config.smtpUrl) sink = await startMailSink(db);
   const mailer = createMailer(config.smtpUrl ?? (sink as MailSink).url, config.mailFrom);
   const cluster = await connectCluster(config.redisUrl, log);
+  // The app servers' read caches drop their answers when a job's writes are committed (cache/read-cache.ts).
+  const writes = announceWrites(db, cluster.invalidation);
   const connection = bullConnection(config.redisUrl);
   const workers: Worker[] = [
     new Worker<Job>(QUEUES.mail, async (job) => mailer.send(job.data.mail), { connection, concurrency: 4 }),
@@ -72,6 +75,7 @@ export async function startWorker(config: Config): Promise<RunningWorker> {
     async stop() {
       await Promise.all(workers.map((w) => w.close()));
       await stopConformerThread();
+      writes.stop();
       await cluster.close();
       mailer.close();
       await sink?.close();

@@ -8,7 +8,7 @@ import { setXyz } from './molecules.service';
 // Background 3D coordinates for molecules that arrived without them: one job at a time, in process,
 // in arrival order, computed in a worker thread (conformer-thread.ts). The state lives in the molecule row (queued → running → done | failed), so a
 // restart picks up what was waiting. An uploaded 3D structure that lands meanwhile wins.
-// Emits 'settled' (moleculeId) when a job finished either way.
+// Emits 'queued' (moleculeId) when a job joins the queue and 'settled' when one finished either way.
 
 /** Fixed so the same molecule always gets the same conformer (see generateConformer). */
 export const CONFORMER_SEED = 1;
@@ -21,8 +21,8 @@ export interface Conformers {
   resume(): Promise<void>;
   idle(): Promise<void>;
   close(): Promise<void>;
-  /** 'settled' (moleculeId) when a job finished here. */
-  on(event: 'settled', listener: (moleculeId: number) => void): unknown;
+  /** 'settled' (moleculeId) when a job finished here; 'queued' (moleculeId) when one joined the queue here. */
+  on(event: 'settled' | 'queued', listener: (moleculeId: number) => void): unknown;
 }
 
 export class ConformerQueue extends EventEmitter implements Conformers {
@@ -46,6 +46,7 @@ export class ConformerQueue extends EventEmitter implements Conformers {
   enqueue(moleculeId: number): void {
     if (this.closed || this.waiting.includes(moleculeId)) return;
     this.waiting.push(moleculeId);
+    this.emit('queued', moleculeId);
     this.pump();
   }
 
