@@ -49,12 +49,29 @@ function connect(base: string, mappingId: number, cookie: string) {
 }
 
 /**
+ * The names edit i sets ("E<i>") carried by an update, read from the update itself. Not from the
+ * document: edits 10 ms apart rename the same bead, so when two reach a client in one update, or a
+ * later one arrives first and wins, the earlier name is never the bead's name there — counting
+ * what the name became missed 4–5 % of the deliveries (an earlier version of this bench).
+ */
+function editsIn(update: Uint8Array): number[] {
+  const found: number[] = [];
+  for (const s of Y.decodeUpdate(update).structs) {
+    if (!(s instanceof Y.Item) || !(s.content instanceof Y.ContentAny)) continue;
+    for (const v of s.content.arr) if (typeof v === 'string' && /^E\d+$/.test(v)) found.push(Number(v.slice(1)));
+  }
+  return found;
+}
+
+/**
  * The collab bench's load. Client i connects to bases[i % bases.length]; a delivery counts as "cross"
- * when sender and receiver are on different bases. Returns the latencies (send → seen) of all
- * deliveries and of the cross-instance ones.
+ * when sender and receiver are on different bases. Returns the latencies (send → the update holding
+ * the edit applied at the receiver) of all deliveries and of the cross-instance ones, how many were
+ * expected, and how many edits some client still lacks at the end (`lost`: its document's state
+ * vector is behind the sender's — a lost relayed edit, not a counting gap).
  */
 async function load(bases: string[], mappingId: number, cookies: string[]) {
-  const clients = Array.from({ length: CLIENTS }, (_v, i) => ({ ...connect(bases[i % bases.length], mappingId, cookies[i % cookies.length]), base: i % bases.length }));
+  const clients = Array.from({ length: CLIENTS }, (_v, i) => ({ ...connect(bases[i % bases.length], mappingId, cookies[i % cookies.length]), base: i % bases.length, seen: new Set<number>() }));
   await until(() => clients.every((c) => c.provider.synced));
   if (!beadsOf(clients[0].doc).has('bench')) createBead(clients[0].doc, [0], { id: 'bench', name: 'E-1' });
   await until(() => clients.every((c) => beadsOf(c.doc).has('bench')));
@@ -62,25 +79,35 @@ async function load(bases: string[], mappingId: number, cookies: string[]) {
   const all: number[] = [];
   const cross: number[] = [];
   clients.forEach((c, ci) =>
-    beadsOf(c.doc)
-      .get('bench')!
-      .observe(() => {
-        const i = Number(String(beadsOf(c.doc).get('bench')!.get('name')).slice(1));
+    c.doc.on('update', (update: Uint8Array, origin: unknown) => {
+      if (origin !== c.provider) return; // this client's own edit
+      const now = performance.now();
+      for (const i of editsIn(update)) {
         const sender = i % CLIENTS;
-        if (sender === ci || !sent.has(i)) return;
-        const ms = performance.now() - sent.get(i)!;
-        all.push(ms);
-        if (clients[sender].base !== c.base) cross.push(ms);
-      }),
+        if (sender === ci || !sent.has(i) || c.seen.has(i)) continue;
+        c.seen.add(i);
+        all.push(now - sent.get(i)!);
+        if (clients[sender].base !== c.base) cross.push(now - sent.get(i)!);
+      }
+    }),
   );
+  // Each sender's clock after its last edit: a receiver whose state vector is behind it lacks an edit.
+  const clockAfter = new Map<number, number>();
   for (let i = 0; i < EDITS; i++) {
+    const sender = clients[i % CLIENTS];
     sent.set(i, performance.now());
-    beadsOf(clients[i % CLIENTS].doc).get('bench')!.set('name', `E${i}`);
+    beadsOf(sender.doc).get('bench')!.set('name', `E${i}`);
+    clockAfter.set(sender.doc.clientID, Y.decodeStateVector(Y.encodeStateVector(sender.doc)).get(sender.doc.clientID)!);
     await sleep(GAP_MS);
   }
-  await until(() => all.length >= EDITS * (CLIENTS - 1) * 0.999, 20_000).catch(() => undefined);
+  const expected = EDITS * (CLIENTS - 1);
+  await until(() => all.length >= expected, 20_000).catch(() => undefined);
+  const lost = clients.reduce((n, c) => {
+    const sv = Y.decodeStateVector(Y.encodeStateVector(c.doc));
+    return n + [...clockAfter].filter(([id, clock]) => id !== c.doc.clientID && (sv.get(id) ?? 0) < clock).length;
+  }, 0);
   for (const c of clients) c.provider.destroy();
-  return { all, cross };
+  return { all, cross, expected, lost };
 }
 
 function child(args: string[], env: NodeJS.ProcessEnv): Promise<{ proc: ChildProcess; url: string }> {
@@ -134,14 +161,18 @@ try {
   const singleLat: number[] = [];
   const clusterAll: number[] = [];
   const clusterCross: number[] = [];
+  // Deliveries expected and edits some receiver still lacked at the end, per setting.
+  const tally = { one: { expected: 0, lost: 0 }, two: { expected: 0, lost: 0 } };
   const loadBefore = loadavg()[0];
   for (let r = 0; r < ROUNDS; r++) {
-    for (const which of r % 2 === 0 ? ['one', 'two'] : ['two', 'one']) {
-      if (which === 'one') singleLat.push(...(await one()).all);
+    for (const which of r % 2 === 0 ? (['one', 'two'] as const) : (['two', 'one'] as const)) {
+      const round = await (which === 'one' ? one() : two());
+      tally[which].expected += round.expected;
+      tally[which].lost += round.lost;
+      if (which === 'one') singleLat.push(...round.all);
       else {
-        const { all, cross } = await two();
-        clusterAll.push(...all);
-        clusterCross.push(...cross);
+        clusterAll.push(...round.all);
+        clusterCross.push(...round.cross);
       }
       await sleep(500);
     }
@@ -181,7 +212,8 @@ try {
   console.log(row('one instance, no Redis', s1));
   console.log(row('two instances + Redis, all deliveries', summary(clusterAll)));
   console.log(row('two instances + Redis, cross-instance deliveries', cx));
-  console.log(`\nratio cross-instance p95 / single-instance p95: ${(cx.p95 / s1.p95).toFixed(2)} (target ≤ 2)`);
+  console.log(`\ndeliveries expected: ${tally.one.expected} (one instance), ${tally.two.expected} (two instances); receiver–sender pairs where the receiver still lacked an edit at the end (lost edits): ${tally.one.lost} and ${tally.two.lost}`);
+  console.log(`ratio cross-instance p95 / single-instance p95: ${(cx.p95 / s1.p95).toFixed(2)} (target ≤ 2)`);
   console.log(`${MAPPINGS * PER_MAPPING} clients on ${MAPPINGS} mappings over two instances: all synced in ${(syncedMs / 1000).toFixed(1)} s; one edit per mapping seen by all in ${editMs.toFixed(0)} ms`);
   console.log(`instance RSS (MB) before: ${rssBefore.map((m) => m.toFixed(0)).join(', ')}; with the 400 clients: ${rss400.map((m) => m.toFixed(0)).join(', ')}; load average now ${loadavg()[0].toFixed(2)}`);
 } finally {
