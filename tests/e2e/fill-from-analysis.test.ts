@@ -87,6 +87,10 @@ describe('fill from analysis in the editor', () => {
     const row = page.getByRole('form', { name: `bond ${bond.beads.join('–')}` });
     await expect.poll(() => row.getByLabel(`Value of bond ${bond.beads.join('–')} (nm)`).inputValue()).toBe(String(r.bonds[0].mean));
     expect(terms.filter((x) => x.value !== null && x.k !== null)).toHaveLength(fillable);
+    // The export menu offers the engine models at this analysis's mean structure.
+    await page.getByText('Export', { exact: true }).click();
+    const links = page.getByRole('list', { name: `Export at the mean structure of analysis ${analysis.id}` });
+    expect(await links.getByRole('link', { name: 'GROMACS model (zip)' }).getAttribute('href')).toBe(`/api/mappings/${mappingId}/export?format=gromacs&version=draft&analysis=${analysis.id}`);
     expect(session.errors).toEqual([]);
   }, 180_000);
 });

@@ -1,22 +1,11 @@
-import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery } from '@tanstack/react-query';
 import type { AnalysisView } from '../../../shared/references';
 import type { BondedFillView } from '../../../shared/bonded-fill';
 import { api } from '../../../lib/api-client';
 import { referenceKeys } from '../../../lib/query-keys';
 
-// Filling the bonded terms from an analysis: the mapping's analyses (the same list and key the
-// references feature reads, so both share the cache), one analysis with its result (to say before a
-// fill what it replaces) and the PUT. The draft changes arrive over the live socket; nothing to invalidate.
-
-const finishedAnalysesOptions = (mappingId: number) =>
-  queryOptions({
-    queryKey: referenceKeys.analysesOf(mappingId),
-    queryFn: () => api.get<AnalysisView[]>(`/api/mappings/${mappingId}/analyses`),
-  });
-
-export function useFinishedAnalyses(mappingId: number) {
-  return useQuery({ ...finishedAnalysesOptions(mappingId), select: (list) => list.filter((a) => a.status === 'done') });
-}
+// Filling the bonded terms from an analysis (the list of finished ones: src/hooks/use-finished-analyses.ts):
+// one analysis with its result (to say before a fill what it replaces) and the PUT. The draft changes arrive over the live socket; nothing to invalidate.
 
 export function useAnalysisResult(analysisId: number | null) {
   return useQuery({

@@ -5,10 +5,9 @@ import type { BondedTerm } from '../../../shared/bonded-terms';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { ErrorAlert, Notice } from '../../../components/ui/alert';
-import { useAnalysisResult, useFillBondedTerms, useFinishedAnalyses } from '../api/fill-bonded-terms';
+import { useAnalysisResult, useFillBondedTerms } from '../api/fill-bonded-terms';
+import { analysisLabel as label, useFinishedAnalyses } from '../../../hooks/use-finished-analyses';
 
-const versionOf = (a: AnalysisView) => (a.versionNumber === null ? 'draft' : `version ${a.versionNumber}`);
-const label = (a: AnalysisView) => `Analysis ${a.id} · ${versionOf(a)} · ${a.temperature} K`;
 
 /**
  * "Fill from analysis": the mapping's finished analyses, and a confirmation that says which rows the

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { ENGINE_FORMATS, EXPORT_FORMATS, exportUrl, projectZipUrl, type EngineFormat, type ExportFormat } from '../../../shared/exports';
 import type { VersionRef } from '../../../shared/versions';
+import { AnalysisModels } from './analysis-models';
 
 const LABELS: Record<ExportFormat | EngineFormat, string> = {
   csv: 'Mapping table (CSV)',
@@ -43,6 +44,7 @@ export function ExportMenu({ mappingId, projectId, states, versions = [] }: Expo
             <FormatLinks mappingId={mappingId} state={version} label={`Version ${version}`} hideTitle />
           </div>
         )}
+        <AnalysisModels mappingId={mappingId} />
         <a className="text-ink-700 underline hover:text-ink-900" href={projectZipUrl(projectId)} download>
           Every production version in this project (zip)
         </a>
