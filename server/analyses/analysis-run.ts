@@ -91,9 +91,16 @@ export async function runAnalysis(run: AnalysisRun): Promise<AnalysisResult> {
       next: new SharedArrayBuffer(4),
     };
     const threads = Math.max(1, Math.min(run.threads ?? ANALYSIS_THREADS, Math.ceil(frames / CHUNK_FRAMES)));
+    // When one thread fails, the others are stopped too (at their next cancel poll) rather than left
+    // to read the rest of the file for nothing.
+    let failed = false;
+    const isCancelled = async () => failed || ((await run.isCancelled?.()) ?? false);
     await Promise.all(
       Array.from({ length: threads }, () =>
-        runTaskThread<AnalysisTask, null, AnalysisPart>(ANALYSIS_WORKER, task, { onPart, isCancelled: run.isCancelled }),
+        runTaskThread<AnalysisTask, null, AnalysisPart>(ANALYSIS_WORKER, task, { onPart, isCancelled }).catch((err: unknown) => {
+          failed = true;
+          throw err;
+        }),
       ),
     );
     await centresFile.close();
