@@ -11,7 +11,8 @@ import type { Molecule } from '../../src/shared/chem';
 // reference of the demo's anisole, sees it matched, starts an analysis of the demo mapping, watches it
 // finish and opens its distributions (uPlot charts); picking a term (keyboard in the term list, a click
 // on a chart) shows its beads on the drawing and the bead graph, and opens the editor with them marked;
-// a student sees both but may not start one.
+// a student sees both but may not start one. A search that missed the molecule is tried again
+// elsewhere without uploading the files again.
 
 const session = browserSession();
 let dir: string;
@@ -90,4 +91,36 @@ describe('references and analyses in the browser', () => {
     expect(await student.getByRole('form', { name: 'Start an analysis' }).count()).toBe(0);
     expect(await student.getByRole('form', { name: 'Upload a reference' }).count()).toBe(0);
   }, 180_000);
+
+  it('a search that missed the molecule keeps the files: the modeller looks elsewhere and matches again without uploading', async () => {
+    const modeller = await session.signedIn('modeller@example.org', 'beadloom-demo');
+    const { moleculeId, model } = await modeller.evaluate(async () => {
+      const projects = await (await fetch('/api/projects')).json();
+      const molecules: { id: number; name: string }[] = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+      const anisole = molecules.find((m) => m.name === 'Anisole')!;
+      const detail = await (await fetch(`/api/molecules/${anisole.id}`)).json();
+      return { moleculeId: anisole.id, model: detail.model };
+    });
+    const mol = model as Molecule;
+    const s = makeSystem(mol, await generateConformer(mol, { seed: 6 }), { copies: 5, frames: 3, boxA: 36, noiseA: 0.05, seed: 9, residue: 'ANI' });
+    await writeFile(join(dir, 'missed.gro'), groText(s));
+
+    await modeller.goto(`/molecules/${moleculeId}`);
+    const upload = modeller.getByRole('form', { name: 'Upload a reference' });
+    await upload.getByLabel('Name', { exact: true }).fill('Missed box');
+    await upload.getByLabel('Structure (.gro, .pdb, .mol)').setInputFiles(join(dir, 'missed.gro'));
+    await upload.getByLabel('Where to look (optional)').fill('{ "residue": "SOL" }');
+    await upload.getByRole('button', { name: 'Upload reference' }).click();
+    const again = modeller.getByRole('form', { name: 'Match Missed box again' });
+    await again.waitFor({ timeout: 60_000 });
+    await modeller.getByRole('list', { name: 'References' }).getByText('No atom of the reference belongs to a residue named SOL').waitFor();
+    // Not JSON is caught in the page; then the right residue finds every copy.
+    await again.getByLabel('Look elsewhere (the files are kept)').fill('residue ANI');
+    await again.getByRole('button', { name: 'Match again' }).click();
+    await again.getByText('Not JSON', { exact: false }).waitFor();
+    await again.getByLabel('Look elsewhere (the files are kept)').fill('{ "residue": "ANI" }');
+    await again.getByRole('button', { name: 'Match again' }).click();
+    await modeller.getByRole('list', { name: 'References' }).getByText('5 copies × 3 frames', { exact: false }).waitFor({ timeout: 60_000 });
+    expect(await modeller.getByRole('form', { name: 'Match Missed box again' }).count()).toBe(0);
+  }, 120_000);
 });

@@ -5,6 +5,7 @@ import { isApiError } from '../../../lib/api-client';
 import { useReferences } from '../api/get-references';
 import { useUploadReference } from '../api/upload-reference';
 import { useDeleteReference } from '../api/delete-reference';
+import { MatchAgainForm } from './match-again-form';
 import { ProgressBar } from './progress-bar';
 
 const STATUS: Record<string, string> = { queued: 'Queued', matching: 'Finding copies', ready: 'Ready', failed: 'Failed' };
@@ -41,6 +42,7 @@ export function ReferencesPanel({ moleculeId, projectId }: { moleculeId: number;
             {r.status === 'ready' && <p className="text-ink-600">{r.copies} copies × {r.frames} frames, {r.atomsPerCopy} atoms per copy</p>}
             {(r.status === 'queued' || r.status === 'matching') && <ProgressBar progress={{ done: Math.round(r.progress.done / 10), total: r.progress.total ? 100 : 0 }} label={`Matching ${r.name}`} />}
             {r.error && <p role="alert" className="text-alert-700">{r.error.message}</p>}
+            {canUpload && r.status === 'failed' && r.error?.retryable && <MatchAgainForm moleculeId={moleculeId} referenceId={r.id} name={r.name} />}
             {canUpload && (
               <Button size="sm" variant="ghost" onClick={() => remove.mutate(r.id)} aria-label={`Delete reference ${r.name}`}>
                 Delete
