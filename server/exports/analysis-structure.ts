@@ -14,6 +14,8 @@ export interface AnalysisStructure {
   centres: Map<string, Vec3>;
   /** What the .gro title and headers say about where the coordinates come from. */
   note: string;
+  /** GROMACS only: the mapping's index file in the reference's atom numbering (reference-ndx.ts), when its files are there. */
+  referenceNdx?: { name: string; text: string };
 }
 
 export async function analysisStructure(dataDir: string, analysis: { id: number; versionNumber: number | null; result: AnalysisResult }): Promise<AnalysisStructure> {

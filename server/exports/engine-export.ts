@@ -41,6 +41,7 @@ export function engineFiles(s: ExportSource, format: EngineFormat, library: Libr
     { name: 'conf.gro', text: gro(placed, edge, `${header[0]}; ${s.mappingName} ${stateLabel(s)}; ${structure?.note ?? 'bead centres from 3D coordinates, nm'}`) },
     { name: 'md.mdp', text: mdp(header) },
     { name: `${base}-atoms.ndx`, text: writeNdx(beadIndexGroups(s.model, s.draft.beads), ndxHeader) },
+    ...(structure?.referenceNdx ? [structure.referenceNdx] : []),
   ];
 }
 

@@ -43,6 +43,12 @@ export function exportRoutes(r: RouteTable, ctx: AppContext, drafts: DraftAccess
         const analysis = await finishedAnalysisOf(ctx.db, id, q.analysis);
         if ((q.units ?? 1) > 1) throw unprocessable('analysis_one_unit', 'An analysis\'s mean structure is one molecule; export a chain of units from the 3D coordinates (without analysis).', { analysisId: q.analysis });
         structure = await analysisStructure(ctx.config.dataDir, analysis);
+        // The reference's own numbering too, so gmx traj -n on the reference gives the same bead centres.
+        const ref = q.format === 'gromacs' ? await findReference(ctx.db, analysis.referenceId) : undefined;
+        if (ref?.status === 'ready' && ref.atoms_per_copy) {
+          const groups = referenceIndexGroups(source, await readCopyAtoms(ctx.config.dataDir, ref.id), ref.atoms_per_copy);
+          structure.referenceNdx = { name: `${slug(source.mappingName)}-reference-${ref.id}.ndx`, text: writeNdx(groups, ndxComments(source, `atoms numbered as in reference "${ref.name}" (${ref.copies} copies)`)) };
+        }
       }
       assertUnits(source, q.units);
       const zip = await engineZip(source, q.format, await libraryNonbonded(ctx.db, id), q.units ?? 1, structure);

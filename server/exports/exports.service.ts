@@ -34,17 +34,17 @@ export async function projectName(db: Db, projectId: number): Promise<string> {
  * only, so nothing about other projects leaks), 422 `analysis_of_other_mapping` for another mapping of
  * the same project, 409 `analysis_not_finished` until it is done.
  */
-export async function finishedAnalysisOf(db: Db, mappingId: number, analysisId: number): Promise<{ id: number; versionNumber: number | null; result: AnalysisResult }> {
+export async function finishedAnalysisOf(db: Db, mappingId: number, analysisId: number): Promise<{ id: number; referenceId: number; versionNumber: number | null; result: AnalysisResult }> {
   const row = await db('analyses as a')
     .join('mappings as p', 'p.id', 'a.mapping_id')
     .join('molecules as m', 'm.id', 'p.molecule_id')
     .where('a.id', analysisId)
-    .first('a.id', 'a.mapping_id', 'a.status', 'a.version_number', 'a.result', 'm.project_id');
+    .first('a.id', 'a.mapping_id', 'a.reference_id', 'a.status', 'a.version_number', 'a.result', 'm.project_id');
   const own = await mappingsWithMolecule(db).where('p.id', mappingId).first('m.project_id');
   if (!row || !own || row.project_id !== own.project_id) throw notFound('That analysis');
   if (row.mapping_id !== mappingId) throw unprocessable('analysis_of_other_mapping', 'That analysis belongs to another mapping; pick one of this mapping\'s analyses.', { analysisId });
   if (row.status !== 'done' || !row.result) throw conflict('analysis_not_finished', `That analysis is ${row.status}; only a finished analysis has fitted values and a mean structure.`, { analysisId, status: row.status });
-  return { id: row.id, versionNumber: row.version_number, result: JSON.parse(row.result) as AnalysisResult };
+  return { id: row.id, referenceId: row.reference_id, versionNumber: row.version_number, result: JSON.parse(row.result) as AnalysisResult };
 }
 
 /** The non-bonded parameters of the mapping's project library, by bead type name (nulls: not set). */

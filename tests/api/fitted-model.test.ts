@@ -150,6 +150,12 @@ describe('an engine export at an analysis\'s mean structure', () => {
     const want = knownMean();
     for (let i = 0; i < 4; i++) for (let j = i + 1; j < 4; j++) expect(Math.abs(dist(at[i], at[j]) - dist(want[i], want[j]))).toBeLessThan(0.003);
     expect(files['topol.top']).toContain(`Coordinates: bead centres: mean structure of analysis ${s.analysisId}`);
+    // The index file in the reference's numbering rides along: each bead's group holds its atoms in every copy.
+    const groups = (text: string) => Object.fromEntries(text.split('[ ').slice(1).map((g) => [g.split(' ]')[0], g.split(']')[1].trim().split(/\s+/).map(Number)]));
+    const own = groups(Object.entries(files).find(([n]) => n.endsWith('-atoms.ndx'))![1]);
+    const ref = groups(Object.entries(files).find(([n]) => n.endsWith(`-reference-${s.referenceId}.ndx`))![1]);
+    expect(Object.keys(ref)).toEqual(['T1', 'T2', 'E1', 'E2']);
+    for (const name of Object.keys(ref)) expect(ref[name]).toHaveLength(8 * own[name].length);
     const dir = mkdtempSync(join(tmpdir(), 'beadloom-fitted-'));
     try {
       for (const [name, text] of Object.entries(files)) writeFileSync(join(dir, name), text);
