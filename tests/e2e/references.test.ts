@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { mkdtemp, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -23,17 +24,22 @@ beforeAll(async () => {
 });
 afterAll(() => session.close());
 
+/** The demo project's anisole, through the API as the signed-in page sees it. */
+async function demoAnisole(page: Page): Promise<{ moleculeId: number; mol: Molecule }> {
+  const { moleculeId, model } = await page.evaluate(async () => {
+    const projects = await (await fetch('/api/projects')).json();
+    const molecules: { id: number; name: string }[] = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
+    const anisole = molecules.find((m) => m.name === 'Anisole')!;
+    const detail = await (await fetch(`/api/molecules/${anisole.id}`)).json();
+    return { moleculeId: anisole.id, model: detail.model };
+  });
+  return { moleculeId, mol: model as Molecule };
+}
+
 describe('references and analyses in the browser', () => {
   it('uploads a reference, runs an analysis and shows its distributions', async () => {
     const modeller = await session.signedIn('modeller@example.org', 'beadloom-demo');
-    const { moleculeId, model } = await modeller.evaluate(async () => {
-      const projects = await (await fetch('/api/projects')).json();
-      const molecules: { id: number; name: string }[] = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
-      const anisole = molecules.find((m) => m.name === 'Anisole')!;
-      const detail = await (await fetch(`/api/molecules/${anisole.id}`)).json();
-      return { moleculeId: anisole.id, model: detail.model };
-    });
-    const mol = model as Molecule;
+    const { moleculeId, mol } = await demoAnisole(modeller);
     const s = makeSystem(mol, await generateConformer(mol, { seed: 5 }), { copies: 8, frames: 12, boxA: 40, noiseA: 0.05, seed: 8 });
     await writeFile(join(dir, 'box.gro'), groText(s, s.frames.slice(0, 1)));
     await writeFile(join(dir, 'traj.gro'), groText(s));
@@ -94,14 +100,7 @@ describe('references and analyses in the browser', () => {
 
   it('a search that missed the molecule keeps the files: the modeller looks elsewhere and matches again without uploading', async () => {
     const modeller = await session.signedIn('modeller@example.org', 'beadloom-demo');
-    const { moleculeId, model } = await modeller.evaluate(async () => {
-      const projects = await (await fetch('/api/projects')).json();
-      const molecules: { id: number; name: string }[] = await (await fetch(`/api/projects/${projects[0].id}/molecules`)).json();
-      const anisole = molecules.find((m) => m.name === 'Anisole')!;
-      const detail = await (await fetch(`/api/molecules/${anisole.id}`)).json();
-      return { moleculeId: anisole.id, model: detail.model };
-    });
-    const mol = model as Molecule;
+    const { moleculeId, mol } = await demoAnisole(modeller);
     const s = makeSystem(mol, await generateConformer(mol, { seed: 6 }), { copies: 5, frames: 3, boxA: 36, noiseA: 0.05, seed: 9, residue: 'ANI' });
     await writeFile(join(dir, 'missed.gro'), groText(s));
 
