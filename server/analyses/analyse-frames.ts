@@ -9,6 +9,7 @@
  * per copy; each chunk's coordinates are molstar's own columns, decoded only as far as the last atom
  * of the last copy (read-frames.ts).
  */
+import { closeSync, openSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { readFrameColumns } from '../references/read-frames';
 import { centresOf, type BeadWeights } from '../trajectory/bead-weights';
@@ -37,35 +38,41 @@ export async function analyseFrames(task: AnalysisTask, emit: (part: AnalysisPar
   const here = new Float64Array(3 * nb);
   const next = task.next ? new Int32Array(task.next) : null;
   const chunks = Math.ceil((task.to - task.from) / task.chunk);
-  for (let k = 0; ; k++) {
-    const chunk = next ? Atomics.add(next, 0, 1) : k;
-    if (chunk >= chunks) break;
-    const from = task.from + chunk * task.chunk;
-    const to = Math.min(task.to, from + task.chunk);
-    const frames = await readFrameColumns(task.source.path, task.index, from, to, needed);
-    const nf = to - from;
-    const centres = new Float32Array(nf * copies * nb * 3);
-    const values = new Float32Array(nt * nf * copies);
-    for (let f = 0; f < nf; f++) {
-      const { x, y, z, box } = frames[f];
-      for (let c = 0; c < copies; c++) {
-        wholeCopy(x, y, z, atoms, c * apc, order, via, box, whole);
-        centresOf(bw, whole, here, 0);
-        const at = (f * copies + c) * nb * 3;
-        for (let i = 0; i < 3 * nb; i++) centres[at + i] = here[i] / 10;
-        for (let ti = 0; ti < nt; ti++) {
-          const b = 4 * ti;
-          const kind = kinds[ti];
-          const v =
-            kind === BOND
-              ? distance(here, termBeads[b], termBeads[b + 1]) / 10
-              : kind === ANGLE
-                ? angle(here, termBeads[b], termBeads[b + 1], termBeads[b + 2])
-                : dihedral(here, termBeads[b], termBeads[b + 1], termBeads[b + 2], termBeads[b + 3]);
-          values[ti * nf * copies + f * copies + c] = v;
+  // One descriptor for the whole task, read synchronously (this thread has nothing else to do).
+  const fd = openSync(task.source.path, 'r');
+  try {
+    for (let k = 0; ; k++) {
+      const chunk = next ? Atomics.add(next, 0, 1) : k;
+      if (chunk >= chunks) break;
+      const from = task.from + chunk * task.chunk;
+      const to = Math.min(task.to, from + task.chunk);
+      const frames = await readFrameColumns(fd, task.index, from, to, needed);
+      const nf = to - from;
+      const centres = new Float32Array(nf * copies * nb * 3);
+      const values = new Float32Array(nt * nf * copies);
+      for (let f = 0; f < nf; f++) {
+        const { x, y, z, box } = frames[f];
+        for (let c = 0; c < copies; c++) {
+          wholeCopy(x, y, z, atoms, c * apc, order, via, box, whole);
+          centresOf(bw, whole, here, 0);
+          const at = (f * copies + c) * nb * 3;
+          for (let i = 0; i < 3 * nb; i++) centres[at + i] = here[i] / 10;
+          for (let ti = 0; ti < nt; ti++) {
+            const b = 4 * ti;
+            const kind = kinds[ti];
+            const v =
+              kind === BOND
+                ? distance(here, termBeads[b], termBeads[b + 1]) / 10
+                : kind === ANGLE
+                  ? angle(here, termBeads[b], termBeads[b + 1], termBeads[b + 2])
+                  : dihedral(here, termBeads[b], termBeads[b + 1], termBeads[b + 2], termBeads[b + 3]);
+            values[ti * nf * copies + f * copies + c] = v;
+          }
         }
       }
+      emit({ from, to, centres, values });
     }
-    emit({ from, to, centres, values });
+  } finally {
+    closeSync(fd);
   }
 }

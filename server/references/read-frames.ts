@@ -15,6 +15,7 @@
  * GROMACS systems usually are, is then never decoded. Its DCD reader reads the unit cell's second value from a wrong offset; the box
  * lengths A, B, C (cell values 0, 2, 5) are right and are all that is used here.
  */
+import { readSync } from 'node:fs';
 import { open } from 'node:fs/promises';
 import { parseXtc } from 'molstar/lib/mol-io/reader/xtc/parser.js';
 import { parseTrr } from 'molstar/lib/mol-io/reader/trr/parser.js';
@@ -38,11 +39,20 @@ export interface FrameColumns {
   box: Float64Array | null;
 }
 
-async function readBytes(path: string, at: number, length: number, prefix?: Uint8Array): Promise<Uint8Array> {
+/**
+ * `file`: a path (opened and closed for the read), or a descriptor the caller keeps open and reads
+ * synchronously: an analysis thread reads chunk after chunk and does nothing else meanwhile, so a
+ * blocking read there saves the open, the close and the trips through libuv's thread pool.
+ */
+async function readBytes(file: string | number, at: number, length: number, prefix?: Uint8Array): Promise<Uint8Array> {
   const out = new Uint8Array((prefix?.length ?? 0) + length);
-  const fh = await open(path, 'r');
+  if (prefix) out.set(prefix, 0);
+  if (typeof file === 'number') {
+    readSync(file, out, prefix?.length ?? 0, length, at);
+    return out;
+  }
+  const fh = await open(file, 'r');
   try {
-    if (prefix) out.set(prefix, 0);
     await fh.read(out, prefix?.length ?? 0, length, at);
   } finally {
     await fh.close();
@@ -63,7 +73,7 @@ function interleave(count: number, x: ArrayLike<number>, y: ArrayLike<number>, z
 const rectangular = (a: number, b: number, c: number): Float64Array | null => (a > 0 && b > 0 && c > 0 ? Float64Array.from([a, 0, 0, 0, b, 0, 0, 0, c]) : null);
 
 /** Frames from (0-based) up to but not including `to`, interleaved. */
-export async function readFrames(path: string, index: FrameIndex, from: number, to: number): Promise<Frame[]> {
+export async function readFrames(path: string | number, index: FrameIndex, from: number, to: number): Promise<Frame[]> {
   if (index.format === 'pdb') {
     const text = Buffer.from(await readBytes(path, index.offsets[from], index.offsets[to] - index.offsets[from])).toString('latin1');
     // A CRYST1 written once before the models holds for every model without its own.
@@ -76,8 +86,9 @@ export async function readFrames(path: string, index: FrameIndex, from: number, 
 /**
  * Frames from (0-based) up to but not including `to`, as columns. `atoms`: how many atoms from the
  * start are needed (all when absent); XTC then decodes no further (see above), other formats read all.
+ * `path` may be an open descriptor (readBytes).
  */
-export async function readFrameColumns(path: string, index: FrameIndex, from: number, to: number, atoms = index.atoms): Promise<FrameColumns[]> {
+export async function readFrameColumns(path: string | number, index: FrameIndex, from: number, to: number, atoms = index.atoms): Promise<FrameColumns[]> {
   const start = index.offsets[from];
   const length = index.offsets[to] - start;
   const fail = (message: string): never => {
