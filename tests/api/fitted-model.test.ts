@@ -15,7 +15,7 @@ import { connectClient, listen, sessionCookie, synced, until, type CollabClient 
 import { generateConformer } from '../../server/chem/index';
 import { createMapping } from '../../server/mappings/mappings.service';
 import { makeSystem } from '../../seeds/invented-reference';
-import { beadsOf, readBonded } from '../../src/shared/mapping-doc';
+import { assignAtoms, beadsOf, createBead, deleteBead, readBonded } from '../../src/shared/mapping-doc';
 import type { BondedTerm } from '../../src/shared/bonded-terms';
 import type { BondedFillView } from '../../src/shared/bonded-fill';
 import type { Molecule } from '../../src/shared/chem';
@@ -168,6 +168,19 @@ describe('an engine export at an analysis\'s mean structure', () => {
     const data = await Object.values(lammps.files).find((f) => f.name.endsWith('.data'))!.async('string');
     const atoms = data.split('Atoms')[1].split('\n').filter((l) => /^\d+ /.test(l)).map((l) => l.split(/\s+/).slice(4, 7).map((v) => Number(v) / 10));
     for (let i = 0; i < 4; i++) for (let j = i + 1; j < 4; j++) expect(Math.abs(dist(atoms[i], atoms[j]) - dist(want[i], want[j]))).toBeLessThan(0.003);
+  });
+
+  it('refuses a state with a bead the analysis did not have (422 naming it)', async () => {
+    live.doc.transact(() => createBead(live.doc, [12], { id: 'e3', name: 'E3', type: 'HEAD' }));
+    await until('the split evaluated', async () => (await modeller.get(url())).body.terms.some((x: BondedTerm) => x.beads.includes('E3')));
+    const res = await modeller.get(`/api/mappings/${s.mappingId}/export?format=gromacs&analysis=${s.analysisId}`).expect(422);
+    expect(res.body.error.code).toBe('model_incomplete');
+    expect(res.body.error.details.problems).toContainEqual({ check: 'analysis_bead_missing', message: expect.stringContaining('Bead E3 is not in the analysis') });
+    live.doc.transact(() => {
+      deleteBead(live.doc, 'e3');
+      assignAtoms(live.doc, 'e2', [12]);
+    });
+    await until('the merge evaluated', async () => !(await modeller.get(url())).body.terms.some((x: BondedTerm) => x.beads.includes('E3')));
   });
 
   it('refuses another mapping\'s analysis (422), an unfinished one (409), an unknown or invisible one (404), a chain of units (422)', async () => {
