@@ -1,5 +1,5 @@
 /**
- * `npm run bench:trajectory [-- --copies 1000 --frames 500 --repeat 1 --dir DIR --write]`: Beadloom's
+ * `npm run bench:trajectory [-- --copies 1000 --frames 500 --repeat 1 --dir DIR --no-write]`: Beadloom's
  * matching and analysis against `gmx traj -com -n` on the same XTC, in the same run.
  *
  * The system is invented (bench/trajectory-generate.ts: copies of a 41-atom surfactant with thermal
@@ -10,8 +10,8 @@
  * threads after a process's first analysis, so later ones find them ready). GROMACS's side: `gmx traj -com -n` with Beadloom's .ndx (one group
  * per bead over all copies; the bead centres Beadloom computes), on the same file. The load average
  * is taken before and after each timed part: the machine is shared. `--dir` keeps the generated
- * files there (and reuses them); `--write` puts the row into the table of docs/benchmarks.md
- * (replacing a row of the same size).
+ * files there (and reuses them). The row goes into the table of docs/benchmarks.md (replacing a row
+ * of the same size) unless `--no-write`.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
@@ -72,7 +72,7 @@ const header = [
 const row = `| ${((g.atoms * b.frames) / 1e6).toFixed(1)} M (${b.copies} copies × ${b.atomsPerCopy} atoms + ${g.atoms - b.copies * b.atomsPerCopy} solvent, ${b.frames} frames) | ${size} | ${s(b.tMatch)} s | ${s(b.tAnalysis)} s | ${s(b.tThreads)} s | ${s(tGmx)} s | ${(b.tAnalysis / tGmx).toFixed(2)} | ${((b.tAnalysis + b.tThreads) / tGmx).toFixed(2)} | ${(b.rssKB / 1024).toFixed(0)} MB (after matching ${(b.rssMatchKB / 1024).toFixed(0)} MB) | ${loadBefore} / ${loadAfterBeadloom} / ${loadAfterGmx} | ${cpus().length} |`;
 console.log([...header, row].join('\n'));
 
-if (process.argv.includes('--write')) {
+if (!process.argv.includes('--no-write')) {
   // The table sits between these two markers in docs/benchmarks.md; rows of other sizes stay.
   const doc = 'docs/benchmarks.md';
   const [open, close] = ['<!-- bench:trajectory table -->', '<!-- /bench:trajectory table -->'];
