@@ -4,7 +4,8 @@ import type { StructureFormat, TrajectoryFormat } from './formats';
 
 // Where a reference's and an analysis's files live under the data folder (config.dataDir):
 //   references/<id>/structure.<ext>, trajectory.<ext>, copies.bin, frames.json
-//   analyses/<id>/centres.f32 (frames × copies × beads × 3, float32, nm)
+//   analyses/<id>/centres.f32 (frames × copies × beads × 3, float32, nm); values.f32 while it runs
+//     (term values, removed once the distributions are built: analysis-run.ts)
 //   uploads/  multer's temporary files until a reference row takes them
 
 // Absolute, so worker threads and later worker processes find the same files.
