@@ -72,8 +72,6 @@ describe('an update that cannot be stored', () => {
     await Promise.all([synced(a), synced(b)]);
     const closes: (number | undefined)[] = [];
     a.provider.on('connection-close', (event) => void closes.push(event?.code));
-    const stored = async () => (await t.ctx.db('mapping_updates').where({ mapping_id: mappingId })).length;
-    const rowsBefore = await stored();
 
     // A real failure of the INSERT: the table is briefly not there.
     await t.ctx.db.raw('RENAME TABLE mapping_updates TO mapping_updates_away');
@@ -86,7 +84,8 @@ describe('an update that cannot be stored', () => {
     }
 
     await until('the bead reaches the other client after the resend', () => beadsOf(b.doc).has('while-away'));
-    expect(await stored()).toBeGreaterThan(rowsBefore);
+    // Stored: the draft as MariaDB has it holds the bead. (Not a row count: a compaction may fold the
+    // update rows into the snapshot meanwhile, which left fewer rows than before in a loaded run.)
     expect(docToMapping((await loadDraft(t.ctx.db, mappingId)).doc).beads.map((x) => x.id)).toContain('while-away');
     a.destroy();
     b.destroy();
