@@ -49,18 +49,17 @@ function connect(base: string, mappingId: number, cookie: string) {
 }
 
 /**
- * The names edit i sets ("E<i>") carried by an update, read from the update itself. Not from the
- * document: edits 10 ms apart rename the same bead, so when two reach a client in one update, or a
- * later one arrives first and wins, the earlier name is never the bead's name there — counting
- * what the name became missed 4–5 % of the deliveries (an earlier version of this bench).
+ * The ids of the structs an update carries, as "client:clock" for each clock they cover. A delivery is
+ * counted when the update holding the edit's own struct arrives, whatever became of its content: edits
+ * 10 ms apart rename the same bead, so the server may relay an edit already overwritten (its content
+ * deleted) and a client may get two in one update. Counting what the bead's name became (an earlier
+ * version of this bench) or the names an update carries missed those deliveries, though no edit was
+ * lost (the state-vector check below).
  */
-function editsIn(update: Uint8Array): number[] {
-  const found: number[] = [];
-  for (const s of Y.decodeUpdate(update).structs) {
-    if (!(s instanceof Y.Item) || !(s.content instanceof Y.ContentAny)) continue;
-    for (const v of s.content.arr) if (typeof v === 'string' && /^E\d+$/.test(v)) found.push(Number(v.slice(1)));
-  }
-  return found;
+function structIds(update: Uint8Array): string[] {
+  const ids: string[] = [];
+  for (const s of Y.decodeUpdate(update).structs) for (let c = s.id.clock; c < s.id.clock + s.length; c++) ids.push(`${s.id.client}:${c}`);
+  return ids;
 }
 
 /**
@@ -76,15 +75,19 @@ async function load(bases: string[], mappingId: number, cookies: string[]) {
   if (!beadsOf(clients[0].doc).has('bench')) createBead(clients[0].doc, [0], { id: 'bench', name: 'E-1' });
   await until(() => clients.every((c) => beadsOf(c.doc).has('bench')));
   const sent = new Map<number, number>();
+  /** Edit i by the id of the struct it made ("client:clock"). */
+  const editOf = new Map<string, number>();
   const all: number[] = [];
   const cross: number[] = [];
   clients.forEach((c, ci) =>
     c.doc.on('update', (update: Uint8Array, origin: unknown) => {
       if (origin !== c.provider) return; // this client's own edit
       const now = performance.now();
-      for (const i of editsIn(update)) {
+      for (const id of structIds(update)) {
+        const i = editOf.get(id);
+        if (i === undefined) continue;
         const sender = i % CLIENTS;
-        if (sender === ci || !sent.has(i) || c.seen.has(i)) continue;
+        if (sender === ci || c.seen.has(i)) continue;
         c.seen.add(i);
         all.push(now - sent.get(i)!);
         if (clients[sender].base !== c.base) cross.push(now - sent.get(i)!);
@@ -95,6 +98,7 @@ async function load(bases: string[], mappingId: number, cookies: string[]) {
   const clockAfter = new Map<number, number>();
   for (let i = 0; i < EDITS; i++) {
     const sender = clients[i % CLIENTS];
+    editOf.set(`${sender.doc.clientID}:${Y.getState(sender.doc.store, sender.doc.clientID)}`, i);
     sent.set(i, performance.now());
     beadsOf(sender.doc).get('bench')!.set('name', `E${i}`);
     clockAfter.set(sender.doc.clientID, Y.decodeStateVector(Y.encodeStateVector(sender.doc)).get(sender.doc.clientID)!);
