@@ -5,6 +5,8 @@
 // request, and the ratio. Not a test: see docs/benchmarks.md.
 //   --seconds N (30)  --users N (100)  --warmup N (5)  --profile DIR: a CPU profile of the Beadloom
 //   server's main thread over its measured window, written into DIR (bench/reads-server.ts).
+//   --only REGEX: only the endpoints whose path matches (e.g. '^/api/me$' for the least work a signed-in
+//   read does: session, account, router, a kept answer and the write).
 import type { ChildProcess } from 'node:child_process';
 import { child } from './child';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
@@ -21,11 +23,12 @@ import { DEMO_PASSWORD } from '../seeds/demo-data';
 import { signInOverHttp } from '../tests/helpers/collab-client';
 import { percentile, runLoad, type LoadClient, type LoadResult } from './http-load';
 
-const { values: args } = parseArgs({ options: { seconds: { type: 'string', default: '30' }, users: { type: 'string', default: '100' }, profile: { type: 'string' }, warmup: { type: 'string', default: '5' } } });
+const { values: args } = parseArgs({ options: { seconds: { type: 'string', default: '30' }, users: { type: 'string', default: '100' }, profile: { type: 'string' }, warmup: { type: 'string', default: '5' }, only: { type: 'string' } } });
 const SECONDS = Number(args.seconds);
 const USERS = Number(args.users);
 const WARMUP = Number(args.warmup);
 const profileDir = args.profile ? resolve(args.profile) : null;
+const only = args.only ? new RegExp(args.only) : null;
 const BCRYPT_COST = 12;
 const ROLES = ['supervisor', 'modeller', 'student'] as const;
 
@@ -117,7 +120,9 @@ try {
       `/api/mappings/${map}/versions`,
       '/api/notifications',
     ];
-    return list[(n + u) % list.length];
+    const chosen = only ? list.filter((p) => only.test(p)) : list;
+    if (!chosen.length) throw new Error(`--only ${args.only} matches none of the endpoints`);
+    return chosen[(n + u) % chosen.length];
   };
   const ours: LoadClient[] = sessions.map((s, u) => ({ headers: { cookie: s.cookie }, path: (n) => paths(n, u) }));
   const userIds: number[] = (await db('users').select('id')).map((r) => r.id);
@@ -134,7 +139,7 @@ try {
   console.log(`\n${USERS} signed-in users, closed loop, ${SECONDS} s (times in ms)\n`);
   console.log('| server | requests/s | p50 | p95 | p99 | errors | server CPU ms / request | load average at start |\n|---|---:|---:|---:|---:|---:|---:|---:|');
   console.log(row('bare Express + mysql2, one indexed SELECT', b));
-  console.log(row('Beadloom, 12 read endpoints', o));
+  console.log(row(only ? `Beadloom, endpoints matching ${args.only}` : 'Beadloom, 12 read endpoints', o));
   console.log('\n| Beadloom endpoint | requests | p50 | p99 |\n|---|---:|---:|---:|');
   for (const [path, xs] of [...o.r.byLabel].sort()) console.log(`| ${path} | ${xs.length} | ${percentile(xs, 50).toFixed(1)} | ${percentile(xs, 99).toFixed(1)} |`);
   if (o.r.firstError || b.r.firstError) console.log(`\nfirst error: Beadloom ${o.r.firstError ?? '—'}; bare ${b.r.firstError ?? '—'}`);
