@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { browserSession } from '../helpers/browser-session';
+import { newMappingInPage } from '../helpers/page-mapping';
 
 // Partition values in the browser, through the real client, server, collab socket and MariaDB: an
 // ionic bead shows "n/a (ionic)" in the bead table, the table shows both ΔG estimates side by side,
@@ -14,19 +15,8 @@ afterAll(() => session.close());
 describe('partition values in the editor', () => {
   it('ionic bead, both ΔG columns, basis setting, measured value, molecule warning', async () => {
     const page = await session.signedIn('modeller@example.org', 'beadloom-demo');
-    const { moleculeId, mappingId, projectId } = await page.evaluate(async () => {
-      const { token } = await (await fetch('/api/auth/csrf')).json();
-      const post = async (path: string, body: unknown) => {
-        const res = await fetch(path, { method: 'POST', headers: { 'content-type': 'application/json', 'x-csrf-token': token }, body: JSON.stringify(body) });
-        if (!res.ok) throw new Error(`${path}: ${res.status} ${await res.text()}`);
-        return res.json();
-      };
-      const projects = await (await fetch('/api/projects')).json();
-      // Sodium butanoate: C1–C4, O5, O6⁻ (1-based), Na7⁺.
-      const molecule = await post(`/api/projects/${projects[0].id}/molecules`, { name: 'Sodium butanoate', smiles: 'CCCC(=O)[O-].[Na+]' });
-      const mapping = await post(`/api/molecules/${molecule.id}/mappings`, { name: 'Salt', resolution: '3:1' });
-      return { moleculeId: molecule.id as number, mappingId: mapping.id as number, projectId: projects[0].id as number };
-    });
+    // Sodium butanoate: C1–C4, O5, O6⁻ (1-based), Na7⁺.
+    const { moleculeId, mappingId, projectId } = await newMappingInPage(page, { molecule: 'Sodium butanoate', smiles: 'CCCC(=O)[O-].[Na+]', mapping: 'Salt', resolution: '3:1' });
 
     // The molecule page: the logP of a charged species carries its warning.
     await page.goto(`/molecules/${moleculeId}`);
