@@ -10,7 +10,10 @@
  *   cut bonds      CUT_COST per bond between two beads
  *   partition      LOGP_COST × |logP_a − logP_b| per bond inside a bead (Wildman–Crippen atom
  *                  contributions, hydrogens included)
- *   symmetry       SYMMETRY_COST per symmetry class whose atoms sit in beads of different composition
+ *   symmetry       SYMMETRY_COST per symmetry class whose atoms sit in beads of different composition;
+ *                  25, more than one heavy atom outside the size limits (20), so a symmetric proposal
+ *                  with one bead a size too large (cyclopentane as one bead at 3:1) wins over an
+ *                  asymmetric one that fits
  */
 import type { Molecule } from '../../src/shared/chem';
 import type { Prepared } from './prepared';
@@ -23,7 +26,7 @@ export interface SizeLimits {
 
 export const CUT_COST = 0.1;
 export const LOGP_COST = 0.05;
-export const SYMMETRY_COST = 10;
+export const SYMMETRY_COST = 25;
 const OUTSIDE_COST = 20;
 
 /** Heavy atoms a bead holding a ring piece reaches freely by taking in substituent atoms. */
@@ -47,22 +50,53 @@ export function beadSizeCost(size: number, limits: SizeLimits): number {
   return c;
 }
 
-/** Composition of a bead: its atoms' symmetry classes, sorted. */
-export function compositionOf(atoms: readonly number[], classes: Int32Array): string {
-  return atoms.map((a) => classes[a]).sort((x, y) => x - y).join('.');
+/** Composition of a bead: its atoms' symmetry classes, sorted (with their weights when it shares atoms). */
+export function compositionOf(atoms: readonly number[], classes: Int32Array, weights?: readonly number[]): string {
+  if (!weights) return atoms.map((a) => classes[a]).sort((x, y) => x - y).join('.');
+  return atoms.map((a, i) => `${classes[a]}:${round(weights[i])}`).sort().join('.');
 }
 
-/** Symmetry classes whose (mapped) atoms sit in beads of more than one composition. */
-export function asymmetricClasses(beads: readonly (readonly number[])[], classes: Int32Array): number[] {
+const round = (w: number) => Math.round(w * 1e6) / 1e6;
+
+/**
+ * Symmetry classes whose (mapped) atoms sit in beads of more than one composition. With shared atoms
+ * (`weights` per bead, aligned with its atoms) an atom's place is the sorted list of (bead
+ * composition, its own weight there) over every bead holding it, and equivalent atoms must have the
+ * same place: two adamantane CH2 each shared at ½ by two alike beads agree, a ring atom wholly in one
+ * bead and its equivalent split over two do not.
+ */
+export function asymmetricClasses(beads: readonly (readonly number[])[], classes: Int32Array, weights?: readonly (readonly number[] | undefined)[]): number[] {
+  const shared = weights?.some((w) => w !== undefined);
+  if (!shared) {
+    const seen = new Map<number, string>();
+    const broken = new Set<number>();
+    for (const bead of beads) {
+      const comp = compositionOf(bead, classes);
+      for (const a of bead) {
+        const prev = seen.get(classes[a]);
+        if (prev === undefined) seen.set(classes[a], comp);
+        else if (prev !== comp) broken.add(classes[a]);
+      }
+    }
+    return [...broken].sort((x, y) => x - y);
+  }
+  const place = new Map<number, string[]>();
+  beads.forEach((bead, i) => {
+    const w = weights![i];
+    const comp = compositionOf(bead, classes, w ?? bead.map(() => 1));
+    bead.forEach((a, k) => {
+      const list = place.get(a) ?? [];
+      list.push(`${comp}@${round(w ? w[k] : 1)}`);
+      place.set(a, list);
+    });
+  });
   const seen = new Map<number, string>();
   const broken = new Set<number>();
-  for (const bead of beads) {
-    const comp = compositionOf(bead, classes);
-    for (const a of bead) {
-      const prev = seen.get(classes[a]);
-      if (prev === undefined) seen.set(classes[a], comp);
-      else if (prev !== comp) broken.add(classes[a]);
-    }
+  for (const [a, list] of place) {
+    const sig = list.sort().join('|');
+    const prev = seen.get(classes[a]);
+    if (prev === undefined) seen.set(classes[a], sig);
+    else if (prev !== sig) broken.add(classes[a]);
   }
   return [...broken].sort((x, y) => x - y);
 }
@@ -79,6 +113,8 @@ export interface CostInput {
   ring: readonly boolean[];
   /** Ring-piece cost already counted for the beads' ring atoms. */
   ringCost: number;
+  /** Count the symmetry term (default true; off when the beads are only part of a proposal). */
+  symmetry?: boolean;
 }
 
 export function proposalCost(x: CostInput): number {
@@ -96,6 +132,6 @@ export function proposalCost(x: CostInput): number {
     if (i !== j) cost += CUT_COST;
     else cost += LOGP_COST * Math.abs(x.molecule.atomLogP[b.a] - x.molecule.atomLogP[b.b]);
   }
-  cost += SYMMETRY_COST * asymmetricClasses(x.beads, x.classes).length;
+  if (x.symmetry !== false) cost += SYMMETRY_COST * asymmetricClasses(x.beads, x.classes).length;
   return Math.round(cost * 1e6) / 1e6;
 }

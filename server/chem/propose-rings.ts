@@ -5,17 +5,20 @@
  * together with any unit (propose-units.ts) that holds its ring atoms. It is cut into connected
  * pieces, each holding whole units:
  *  - a piece in a small ring holds 2 or 3 ring atoms (benzene → three pieces of two); a ring atom is
- *    alone only when no neighbour is left for it;
+ *    alone only when no neighbour is left for it, or when it carries a group outside the ring (a
+ *    methyl, a carbonyl O) to form a bead with — p-xylene at 2:1 is symmetric only as CH3–C, CH–CH,
+ *    C–CH3, CH–CH;
  *  - atoms only in large rings (macrocycles) go in pieces of up to the resolution's target size;
- *  - a lone four- or five-membered ring whose atoms all fit one bead may also be one piece (the only
- *    way to map cyclopentane or a ring of five equivalent atoms symmetrically);
- *  - pieces never share atoms: any ring system can be cut into pieces of 2–3 atoms without sharing,
- *    so sharing is left to the modellers (it changes centres, not membership).
- * Cost of a cut (lower is better): per piece 0 for 2 ring atoms, 0.5 for 3, 8 for a lone atom,
- * 3 for a whole small ring, (r − target)²/4 for a macrocycle piece of r atoms; +20 per heavy atom
- * above the resolution's maximum; +10 per symmetry class whose atoms end in pieces of different
- * composition; +5 per atom by which the piece and the terminal substituent atoms on it (methyl,
- * hydroxyl, halogen: they will join its bead) exceed the maximum. Searched exhaustively (branch and bound, cheapest pieces first) up to a step budget,
+ *  - a lone four- or five-membered ring whose atoms all fit one bead may also be one piece;
+ *  - pieces never share atoms; where no cut is symmetric, propose.ts tries a symmetric cut with shared
+ *    atoms for the whole part (propose-shared.ts).
+ * Cost of a cut (lower is better): per piece 0 for 2 ring atoms, 0.5 for 3, 4 for a lone ring atom
+ * with a group, 8 for another lone atom, 3 for a whole small ring, (r − target)²/4 for a macrocycle
+ * piece of r atoms; +20 per heavy atom above the resolution's maximum; +SYMMETRY_COST per symmetry
+ * class whose atoms end in pieces of different composition; +5 per atom by which the piece and the
+ * terminal substituent atoms on it (methyl, hydroxyl, halogen: they will join its bead) exceed the
+ * maximum.
+ * Searched exhaustively (branch and bound, cheapest pieces first) up to a step budget,
  * then the best cut found so far; ties go to the cut whose sorted piece compositions come first, so
  * the answer does not depend on the atom order.
  */
@@ -45,6 +48,12 @@ export interface RingOptions {
 }
 
 const STEP_BUDGET = 60_000;
+/**
+ * A lone ring atom that carries a group outside the ring (a methyl, a carbonyl O): dearer than any
+ * 2–3-atom piece, cheaper than a broken symmetry class (SYMMETRY_COST), so it is chosen only when it
+ * keeps the cut symmetric.
+ */
+const GROUP_PIECE_COST = 4;
 
 interface Node {
   atoms: number[];
@@ -53,6 +62,8 @@ interface Node {
   key: string;
   nbrs: number[];
   load: number;
+  /** The node carries a group outside the ring system (an atom of its unit or a bonded heavy atom). */
+  group: boolean;
 }
 
 export function cutRingSystems(p: Prepared, rings: RingBonds, units: Units, free: Uint8Array, o: RingOptions): RingPiece[] {
@@ -88,13 +99,15 @@ function cutSystem(p: Prepared, rings: RingBonds, units: Units, members: number[
     const ringAtoms = atoms.filter((a) => rings.ringAtom[a]);
     // Terminal substituent atoms (methyl, hydroxyl, halogen) that will want to join this node's bead.
     let load = 0;
+    let group = atoms.length > ringAtoms.length;
     for (const a of atoms) {
       for (let k = p.adjStart[a]; k < p.adjStart[a + 1]; k++) {
         const b = p.adj[k];
         if (units.unitOf[b] >= 0 && units.unitOf[b] !== u && p.adjStart[b + 1] - p.adjStart[b] === 1) load++;
+        if (units.unitOf[b] >= 0 && !rings.ringAtom[b] && p.heavy[b]) group = true;
       }
     }
-    return { atoms, ring: ringAtoms.length, small: ringAtoms.some((a) => rings.smallRingAtom[a]), key: atoms.map((a) => o.classes[a]).sort((x, y) => x - y).join('.'), nbrs: [], load };
+    return { atoms, ring: ringAtoms.length, small: ringAtoms.some((a) => rings.smallRingAtom[a]), key: atoms.map((a) => o.classes[a]).sort((x, y) => x - y).join('.'), nbrs: [], load, group };
   });
   nodes.forEach((node, i) => {
     const seen = new Set<number>();
@@ -119,7 +132,7 @@ function cutSystem(p: Prepared, rings: RingBonds, units: Units, members: number[
   const pieceCost = (set: number[], whole: boolean, twoCost = o.twoCost, threeCost = o.threeCost): number => {
     const r = ringCount(set);
     const small = set.some((i) => nodes[i].small);
-    let c = whole ? 3 : r <= 1 ? 8 : small ? (r === 2 ? twoCost : r === 3 ? threeCost : 4 * (r - 3)) : ((r - o.target) * (r - o.target)) / 4;
+    let c = whole ? 3 : r <= 1 ? (set.length === 1 && nodes[set[0]].group ? GROUP_PIECE_COST : 8) : small ? (r === 2 ? twoCost : r === 3 ? threeCost : 4 * (r - 3)) : ((r - o.target) * (r - o.target)) / 4;
     const s = size(set);
     if (s > o.max && set.length > 1) c += 20 * (s - o.max);
     const loaded = s + set.reduce((t, i) => t + nodes[i].load, 0);
@@ -149,7 +162,9 @@ function cutSystem(p: Prepared, rings: RingBonds, units: Units, members: number[
     };
     grow([start]);
     let list = [...found.values()];
-    const multi = list.filter((s) => s.length > 1 || nodes[s[0]].ring >= 2);
+    // A lone ring atom is a candidate only when no larger piece is left, or when it carries a group
+    // of its own to form a bead with (p-xylene's ring carbons under the methyls at 2:1).
+    const multi = list.filter((s) => s.length > 1 || nodes[s[0]].ring >= 2 || nodes[s[0]].group);
     if (multi.length) list = multi;
     const out = list.map((set) => ({ set, cost: pieceCost(set, false), whole: false }));
     if (simpleSmallRing && current.length === 0) out.push({ set: nodes.map((_, i) => i), cost: pieceCost(nodes.map((_, i) => i), true), whole: true });

@@ -10,15 +10,19 @@
  *    near the resolution's target size by dynamic programming on the tree they form (propose-tree.ts).
  * 5. Variants (target size one lower and one higher, ring pieces of three preferred) give alternatives;
  *    every candidate is scored with one cost (propose-cost.ts) and the best three distinct ones are kept.
+ * 6. When none of them is symmetric, each connected part holding a broken symmetry class is also cut
+ *    symmetrically around one class of its atoms or bonds, sharing atoms where beads meet
+ *    (propose-shared.ts: adamantane, cyclopentane); that candidate competes on the same cost.
  * Atoms that are fixed (already in a bead of the draft) take no part, so a partial mapping is completed
  * around them.
  */
 import type { Molecule, Resolution } from '../../src/shared/chem';
 import { isFreeIon } from './free-ions';
 import { prepare } from './prepared';
-import { proposalCost, type SizeLimits } from './propose-cost';
+import { asymmetricClasses, proposalCost, SYMMETRY_COST, type SizeLimits } from './propose-cost';
 import { ringBonds } from './propose-ring-bonds';
 import { cutRingSystems, type RingPiece } from './propose-rings';
+import { symmetricSharedCut, type SharedCut } from './propose-shared';
 import { symmetryClasses } from './propose-symmetry';
 import { joinNodes, type TreeNode } from './propose-tree';
 import { findUnits } from './propose-units';
@@ -31,12 +35,26 @@ export interface PartitionOptions {
   fixed?: Iterable<number>;
 }
 
+export interface ProposedBead {
+  atoms: number[];
+  /** Aligned with `atoms`, present only when the bead shares atoms (some weight below 1). */
+  weights?: number[];
+  reason: string;
+}
+
 export interface ProposedPartition {
-  beads: { atoms: number[]; reason: string }[];
+  beads: ProposedBead[];
   cost: number;
 }
 
 export const MAX_PROPOSALS = 3;
+
+interface Candidate {
+  beads: number[][];
+  weights: (number[] | undefined)[];
+  cost: number;
+  broken: number[];
+}
 
 export function proposePartitions(molecule: Molecule, options: PartitionOptions): ProposedPartition[] {
   const p = prepare(molecule);
@@ -60,8 +78,10 @@ export function proposePartitions(molecule: Molecule, options: PartitionOptions)
     { target: limits.target, threes: true },
   ];
   const seen = new Set<string>();
-  const out: ProposedPartition[] = [];
+  const candidates: Candidate[] = [];
   const ringCuts = new Map<boolean, RingPiece[]>();
+  const keyOf = (beads: number[][], weights: (number[] | undefined)[]) => beads.map((b, i) => `${b.join(',')}${weights[i] ? `/${weights[i]!.join(',')}` : ''}`).sort().join('|');
+  let bestPieces: RingPiece[] = [];
   for (const v of variants) {
     const variantLimits: SizeLimits = { ...limits, target: v.target };
     // Ring pieces depend on the 3-atom cost only (macrocycle pieces keep the resolution's target).
@@ -69,17 +89,91 @@ export function proposePartitions(molecule: Molecule, options: PartitionOptions)
     ringCuts.set(v.threes, pieces);
     const joined = joinNodes(...nodesOf(molecule, p, units, pieces, free, classes), variantLimits);
     const beads = [...joined, ...ions.map((a) => [a])];
-    const key = beads.map((b) => b.join(',')).sort().join('|');
+    const weights = beads.map(() => undefined);
+    const key = keyOf(beads, weights);
     if (seen.has(key)) continue;
     seen.add(key);
     const ion = beads.map((b) => b.length === 1 && isFreeIon(molecule, p, b[0]));
     const ring = beads.map((b) => b.some((a) => rings.ringAtom[a]));
     const ringCost = pieces.reduce((s, piece) => s + piece.cost, 0);
     const cost = proposalCost({ molecule, p, classes, limits, beads, ion, ring, ringCost });
-    const ordered = [...beads].sort((x, y) => x[0] - y[0]);
-    out.push({ beads: ordered.map((atoms) => ({ atoms, reason: describeBead(molecule, units, rings, atoms, isFreeIon(molecule, p, atoms[0])) })), cost });
+    if (!candidates.length || cost < Math.min(...candidates.map((c) => c.cost))) bestPieces = pieces;
+    candidates.push({ beads, weights, cost, broken: asymmetricClasses(beads, classes) });
   }
+  // No cut into separate beads is symmetric: the parts that break symmetry are cut anew around a
+  // symmetry class, sharing atoms where the beads meet (propose-shared.ts).
+  if (candidates.length && candidates.every((c) => c.broken.length > 0)) {
+    const best = candidates.reduce((x, y) => (y.cost < x.cost ? y : x));
+    const shared = sharedVariant(molecule, p, classes, units, free, limits, best, bestPieces, rings.ringAtom);
+    if (shared && !seen.has(keyOf(shared.beads, shared.weights))) candidates.push(shared);
+  }
+  const out: ProposedPartition[] = candidates.map((c) => {
+    const order = c.beads.map((_, i) => i).sort((x, y) => c.beads[x][0] - c.beads[y][0]);
+    return {
+      beads: order.map((i) => {
+        const atoms = c.beads[i];
+        const w = c.weights[i];
+        const reason = describeBead(molecule, units, rings, atoms, isFreeIon(molecule, p, atoms[0]));
+        return w ? { atoms, weights: w, reason: `${reason}; shares ${w.filter((x) => x < 1).length} of them with the beads beside it` } : { atoms, reason };
+      }),
+      cost: c.cost,
+    };
+  });
   return out.sort((x, y) => x.cost - y.cost).slice(0, MAX_PROPOSALS);
+}
+
+/**
+ * The best candidate with each connected part that holds a broken symmetry class replaced by that
+ * part's cheapest symmetric cut (sharing atoms where needed); null if no part could be cut so.
+ */
+function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classes: Int32Array, units: ReturnType<typeof findUnits>, free: Uint8Array, limits: SizeLimits, best: Candidate, pieces: RingPiece[], ringAtom: Uint8Array): Candidate | null {
+  const brokenClass = new Set(best.broken);
+  const partOf = new Int32Array(p.n).fill(-1);
+  const parts: number[][] = [];
+  for (let a = 0; a < p.n; a++) {
+    if (!free[a] || partOf[a] >= 0) continue;
+    const part = [a];
+    partOf[a] = parts.length;
+    for (let q = 0; q < part.length; q++) {
+      for (let k = p.adjStart[part[q]]; k < p.adjStart[part[q] + 1]; k++) {
+        const b = p.adj[k];
+        if (free[b] && partOf[b] < 0) {
+          partOf[b] = parts.length;
+          part.push(b);
+        }
+      }
+    }
+    parts.push(part);
+  }
+  const redo = new Set<number>();
+  const cuts: SharedCut['beads'] = [];
+  let cutCost = 0;
+  parts.forEach((part, i) => {
+    if (!part.some((a) => brokenClass.has(classes[a]))) return;
+    const cut = symmetricSharedCut(molecule, p, classes, units, part, limits);
+    if (!cut) return;
+    redo.add(i);
+    cuts.push(...cut.beads);
+    cutCost += cut.cost;
+  });
+  if (!redo.size) return null;
+  const kept = best.beads.filter((b) => !redo.has(partOf[b[0]]));
+  const keptCost = proposalCost({
+    molecule,
+    p,
+    classes,
+    limits,
+    beads: kept,
+    ion: kept.map((b) => b.length === 1 && isFreeIon(molecule, p, b[0])),
+    ring: kept.map((b) => b.some((a) => ringAtom[a])),
+    ringCost: pieces.filter((piece) => !redo.has(partOf[piece.atoms[0]])).reduce((s, piece) => s + piece.cost, 0),
+    symmetry: false,
+  });
+  const beads = [...kept, ...cuts.map((b) => b.atoms)];
+  const weights = [...kept.map(() => undefined), ...cuts.map((b) => b.weights)];
+  const broken = asymmetricClasses(beads, classes, weights);
+  if (broken.length >= best.broken.length) return null;
+  return { beads, weights, broken, cost: Math.round((keptCost + cutCost + SYMMETRY_COST * broken.length) * 1e6) / 1e6 };
 }
 
 function nodesOf(molecule: Molecule, p: ReturnType<typeof prepare>, units: ReturnType<typeof findUnits>, pieces: RingPiece[], free: Uint8Array, classes: Int32Array): [TreeNode[], [number, number][]] {
