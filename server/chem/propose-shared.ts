@@ -12,7 +12,8 @@
  * equivalent places: the set of beads is mapped onto itself by every symmetry of the part. Adamantane
  * with its CH as centres: four beads, each one CH and three CH2 at ½ (2.5 heavy atoms). The whole part
  * as one bead is also a candidate. A candidate is kept only if it covers every atom of the part and
- * leaves every unit (charged group, listed functional group: propose-units.ts) whole in one bead.
+ * leaves every unit (charged group, listed functional group: propose-units.ts) and every charged
+ * atom wholly in one bead.
  *
  * Cost of a candidate, on the standard scale (propose-cost.ts): per bead (s − target)² of its weighted
  * size s, + 20 per heavy atom outside the resolution's limits; CUT_COST per bond whose atoms share no
@@ -80,9 +81,11 @@ function fromCentres(molecule: Molecule, p: Prepared, units: Units, inPart: Uint
 function costed(molecule: Molecule, units: Units, beads: SharedCut['beads'], limits: SizeLimits): SharedCut | null {
   const beadsOf = new Map<number, number[]>();
   beads.forEach((b, i) => b.atoms.forEach((a) => beadsOf.set(a, [...(beadsOf.get(a) ?? []), i])));
-  // Units stay whole: every atom of a unit of two or more atoms wholly in one and the same bead.
-  for (const atoms of units.atoms) {
-    if (atoms.length < 2 || !beadsOf.has(atoms[0])) continue;
+  // Units stay whole: every atom of a group (a unit of two or more atoms, a unit with a reason, a
+  // charged atom) wholly in one and the same bead.
+  for (const [u, atoms] of units.atoms.entries()) {
+    if (!beadsOf.has(atoms[0])) continue;
+    if (atoms.length < 2 && !units.reason[u] && molecule.atoms[atoms[0]].charge === 0) continue;
     const first = beadsOf.get(atoms[0])!;
     if (atoms.some((a) => { const list = beadsOf.get(a); return !list || list.length !== 1 || list[0] !== first[0]; })) return null;
   }

@@ -10,9 +10,10 @@
  *    near the resolution's target size by dynamic programming on the tree they form (propose-tree.ts).
  * 5. Variants (target size one lower and one higher, ring pieces of three preferred) give alternatives;
  *    every candidate is scored with one cost (propose-cost.ts) and the best three distinct ones are kept.
- * 6. When none of them is symmetric, each connected part holding a broken symmetry class is also cut
- *    symmetrically around one class of its atoms or bonds, sharing atoms where beads meet
- *    (propose-shared.ts: adamantane, cyclopentane); that candidate competes on the same cost.
+ * 6. Each connected part of the best candidate that breaks symmetry or holds a bead outside the size
+ *    limits is also cut symmetrically around one class of its atoms or bonds, sharing atoms where beads
+ *    meet (propose-shared.ts: adamantane, cyclopentane, pentane at 3:1); that candidate competes on
+ *    the same cost.
  * Atoms that are fixed (already in a bead of the draft) take no part, so a partial mapping is completed
  * around them.
  */
@@ -100,9 +101,10 @@ export function proposePartitions(molecule: Molecule, options: PartitionOptions)
     if (!candidates.length || cost < Math.min(...candidates.map((c) => c.cost))) bestPieces = pieces;
     candidates.push({ beads, weights, cost, broken: asymmetricClasses(beads, classes) });
   }
-  // No cut into separate beads is symmetric: the parts that break symmetry are cut anew around a
-  // symmetry class, sharing atoms where the beads meet (propose-shared.ts).
-  if (candidates.length && candidates.every((c) => c.broken.length > 0)) {
+  // Parts of the best cut that break symmetry or hold a bead outside the size limits are also cut
+  // anew around one symmetry class, sharing atoms where the beads meet (propose-shared.ts); that
+  // candidate competes on the same cost (pentane at 3:1: two beads sharing the middle carbon).
+  if (candidates.length) {
     const best = candidates.reduce((x, y) => (y.cost < x.cost ? y : x));
     const shared = sharedVariant(molecule, p, classes, units, free, limits, best, bestPieces, rings.ringAtom);
     if (shared && !seen.has(keyOf(shared.beads, shared.weights))) candidates.push(shared);
@@ -123,8 +125,9 @@ export function proposePartitions(molecule: Molecule, options: PartitionOptions)
 }
 
 /**
- * The best candidate with each connected part that holds a broken symmetry class replaced by that
- * part's cheapest symmetric cut (sharing atoms where needed); null if no part could be cut so.
+ * The best candidate with each connected part that holds a broken symmetry class or a bead outside the
+ * size limits replaced by that part's cheapest symmetric cut (sharing atoms where needed); null if no
+ * part could be cut so or symmetry would suffer.
  */
 function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classes: Int32Array, units: ReturnType<typeof findUnits>, free: Uint8Array, limits: SizeLimits, best: Candidate, pieces: RingPiece[], ringAtom: Uint8Array): Candidate | null {
   const brokenClass = new Set(best.broken);
@@ -145,11 +148,16 @@ function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classe
     }
     parts.push(part);
   }
+  const offSize = new Uint8Array(parts.length);
+  for (const b of best.beads) {
+    if (b.length === 1 && isFreeIon(molecule, p, b[0])) continue;
+    if ((b.length < limits.min || b.length > limits.max) && partOf[b[0]] >= 0) offSize[partOf[b[0]]] = 1;
+  }
   const redo = new Set<number>();
   const cuts: SharedCut['beads'] = [];
   let cutCost = 0;
   parts.forEach((part, i) => {
-    if (!part.some((a) => brokenClass.has(classes[a]))) return;
+    if (!offSize[i] && !part.some((a) => brokenClass.has(classes[a]))) return;
     const cut = symmetricSharedCut(molecule, p, classes, units, part, limits);
     if (!cut) return;
     redo.add(i);
@@ -172,7 +180,7 @@ function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classe
   const beads = [...kept, ...cuts.map((b) => b.atoms)];
   const weights = [...kept.map(() => undefined), ...cuts.map((b) => b.weights)];
   const broken = asymmetricClasses(beads, classes, weights);
-  if (broken.length >= best.broken.length) return null;
+  if (broken.length > best.broken.length) return null;
   return { beads, weights, broken, cost: Math.round((keptCost + cutCost + SYMMETRY_COST * broken.length) * 1e6) / 1e6 };
 }
 

@@ -83,6 +83,20 @@ describe('mapping proposals', () => {
     expect(proposePartitions(m, { resolution: '3:1' }).slice(1).map((p) => p.beads.map((b) => b.atoms.length).sort())).toContainEqual([2, 3]);
   });
 
+  it('shares the middle atom where that is the symmetric way to reach the size (pentane at 3:1) and keeps a charged atom whole', async () => {
+    const m = await parseMolecule({ smiles: 'CCCCC' });
+    const [top] = proposePartitions(m, { resolution: '3:1' });
+    expect(top.beads.map((b) => [b.atoms, b.weights])).toEqual([[[0, 1, 2], [1, 1, 0.5]], [[2, 3, 4], [0.5, 1, 1]]]);
+    // Triethylammonium: the charged N is never shared (three ethyls sharing it would be symmetric).
+    const salt = await parseMolecule({ smiles: 'CC[NH+](CC)CC' });
+    for (const r of ['4:1', '3:1', '2:1'] as const) {
+      const n = salt.atoms.findIndex((a) => a.element === 'N');
+      const holders = proposePartitions(salt, { resolution: r })[0].beads.filter((b) => b.atoms.includes(n));
+      expect(holders).toHaveLength(1);
+      expect(holders[0].weights?.[holders[0].atoms.indexOf(n)] ?? 1).toBe(1);
+    }
+  });
+
   it('judges symmetry with shared atoms by each atom\'s beads and weights', () => {
     // Four atoms of one class on a ring a–b–c–d: beads on the bonds a–b and c–d are symmetric; beads
     // {a, b, c@½} and {c@½, d} are not (c is split, a is whole).
