@@ -9,11 +9,11 @@
  *    measured value and weights, on the counterpart atoms (when two beads share an atom and only one
  *    is carried, that atom's weights sum below 1 and the checks say so).
  * 3. The atoms no carried bead holds are proposed (propose.ts, as for scope 'unassigned'), with
- *    names that do not clash with the carried ones.
+ *    names that do not clash with the carried ones; a proposed bead that shares atoms keeps its weights.
  * A report lists carried, changed (partly matched) and added beads.
  */
 import type { BeadType, Mapping, MappingBead, Molecule, Resolution } from '../../src/shared/chem';
-import type { TransferResult } from '../../src/shared/proposals';
+import { proposedAtoms, type TransferResult } from '../../src/shared/proposals';
 import { writeTypingMolfile } from './molfile';
 import { proposeMapping } from './propose-mapping';
 import type { RDKit } from './rdkit';
@@ -70,7 +70,7 @@ export function transferMapping(rd: RDKit, source: Molecule, sourceMapping: Mapp
   }
   const partial: Mapping = { beads: carried, ...(sourceMapping.partitionBasis ? { partitionBasis: sourceMapping.partitionBasis } : {}) };
   const [best] = proposeMapping(target, { resolution: o.resolution, scope: 'unassigned', draft: partial, library: o.library });
-  const added = (best?.beads ?? []).map((b, i) => ({ id: `t${i + 1}`, name: b.name, ...(b.type ? { type: b.type } : {}), centre: 'mass' as const, atoms: b.atoms.map((index) => ({ index, weight: 1 })) }));
+  const added = (best?.beads ?? []).map((b, i) => ({ id: `t${i + 1}`, name: b.name, ...(b.type ? { type: b.type } : {}), centre: 'mass' as const, atoms: proposedAtoms(b) }));
   return {
     draft: { beads: [...carried, ...added], ...(partial.partitionBasis ? { partitionBasis: partial.partitionBasis } : {}) },
     report: {

@@ -1,6 +1,6 @@
 import type { Db } from '../db/knex';
 import type { Mapping, Resolution } from '../../src/shared/chem';
-import type { Proposal, ProposalBody, TransferResult } from '../../src/shared/proposals';
+import { proposedAtoms, type Proposal, type ProposalBody, type TransferResult } from '../../src/shared/proposals';
 import { libraryFor } from '../bead-types/bead-types.service';
 import { loadEvaluationInputs } from '../drafts/drafts.service';
 import { notFound, unprocessable } from '../http/errors';
@@ -50,7 +50,7 @@ export function mappingStarts(db: Db, drafts: DraftAccess): MappingStarts {
     async proposal(moleculeId: number, resolution: Resolution): Promise<Mapping> {
       const { model, library } = await moleculeOf(db, moleculeId);
       const [best] = await proposeInThread({ kind: 'propose', model, resolution, scope: 'all', draft: { beads: [] }, library });
-      return { beads: (best?.beads ?? []).map((b, i) => ({ id: `p${i + 1}`, name: b.name, ...(b.type ? { type: b.type } : {}), centre: 'mass', atoms: b.atoms.map((index) => ({ index, weight: 1 })) })) };
+      return { beads: (best?.beads ?? []).map((b, i) => ({ id: `p${i + 1}`, name: b.name, ...(b.type ? { type: b.type } : {}), centre: 'mass', atoms: proposedAtoms(b) })) };
     },
 
     async transfer(moleculeId, from, resolution): Promise<TransferResult> {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Mapping } from './chem';
+import type { Mapping, MappingAtom } from './chem';
 import { resolution } from './mappings';
 
 // Mapping proposals and transfers (docs/chemistry.md, "Mapping proposals"; docs/api.md).
@@ -17,8 +17,19 @@ export interface ProposedBead {
   name: string;
   /** The molecule's atom indices (0-based, as in the draft). */
   atoms: number[];
+  /**
+   * Each atom's share in this bead, aligned with `atoms` (each in (0, 1]); present only when the bead
+   * shares atoms with other proposed beads (some weight below 1), absent means every weight is 1. Over
+   * a whole proposal an atom's weights sum to 1.
+   */
+  weights?: number[];
   type: string | null;
   reason: string;
+}
+
+/** A proposed bead's atoms as the mapping holds them: weight 1 unless the bead shares the atom. */
+export function proposedAtoms(b: { atoms: readonly number[]; weights?: readonly number[] }): MappingAtom[] {
+  return b.atoms.map((index, k) => ({ index, weight: b.weights?.[k] ?? 1 }));
 }
 
 export interface Proposal {

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 import { signedIn, type ApiClient } from '../helpers/client';
 import { createMolecule, demoMappingId, demoMoleculeId, demoProjectId, snapshot } from '../helpers/fixtures';
-import type { ProposalsResponse, TransferReport } from '../../src/shared/proposals';
+import type { Proposal, ProposalsResponse, TransferReport } from '../../src/shared/proposals';
 import type { MappingDetail } from '../../src/shared/mappings';
 
 let t: TestApp;
@@ -171,5 +171,55 @@ describe('starting a mapping', () => {
     const res = await modeller.post(`/api/molecules/${moleculeId}/mappings`, body).expect(status);
     expect(res.body.error).toMatchObject({ code, message: expect.any(String) });
     expect(await snapshot(t.ctx.db, TABLES)).toBe(before);
+  });
+});
+
+// Adamantane: a highly symmetric ring system, where a proposed bead may share atoms with others (each
+// CH2 between two bridgeheads, at 0.5 in each). Whatever the proposal, every heavy atom's weights sum
+// to 1 (a whole mapping; hand-worked), and weights, when present, are one per atom in (0, 1].
+describe('proposals that may share atoms (adamantane, 4:1)', () => {
+  const ADAMANTANE = 'C1C2CC3CC1CC(C2)C3';
+  const expectValidWeights = (p: Proposal) => {
+    for (const b of p.beads) {
+      if (!('weights' in b)) continue;
+      expect(b.weights).toHaveLength(b.atoms.length);
+      for (const w of b.weights!) expect(w > 0 && w <= 1).toBe(true);
+      // Present only when the bead shares an atom.
+      expect(b.weights!.some((w) => w < 1)).toBe(true);
+    }
+  };
+  const sums = (entries: [number, number][]) => {
+    const out = new Map<number, number>();
+    for (const [index, weight] of entries) out.set(index, (out.get(index) ?? 0) + weight);
+    return out;
+  };
+  const everyAtomWhole = (s: Map<number, number>) => {
+    expect([...s.keys()].sort((a, b) => a - b)).toEqual(range(0, 9));
+    for (const [, w] of s) expect(Math.abs(w - 1)).toBeLessThan(1e-9);
+  };
+
+  it('proposes beads whose weights add up to 1 on every heavy atom', async () => {
+    const projectId = await demoProjectId(t.ctx.db);
+    const adamantane = await createMolecule(t.ctx.db, projectId, 'Adamantane', ADAMANTANE);
+    const mapping = await modeller.post(`/api/molecules/${adamantane}/mappings`, { name: 'Adamantane 4:1', resolution: '4:1', start: 'empty' }).expect(201);
+    const { proposals } = (await modeller.post(`/api/mappings/${mapping.body.id}/proposal`, { scope: 'all', resolution: '4:1' }).expect(200)).body as ProposalsResponse;
+    expect(proposals.length).toBeGreaterThanOrEqual(1);
+    for (const p of proposals) expectValidWeights(p);
+    everyAtomWhole(sums(proposals[0].beads.flatMap((b) => b.atoms.map((a, k): [number, number] => [a, b.weights?.[k] ?? 1]))));
+  });
+
+  it('starts a mapping from the proposal with the same weights in its draft', async () => {
+    const projectId = await demoProjectId(t.ctx.db);
+    const adamantane = await createMolecule(t.ctx.db, projectId, 'Adamantane (start)', ADAMANTANE);
+    const res = await modeller.post(`/api/molecules/${adamantane}/mappings`, { name: 'Proposed adamantane', resolution: '4:1', start: 'proposal' }).expect(201);
+    const m = res.body as MappingDetail;
+    expect(m.draft.beads.length).toBeGreaterThanOrEqual(1);
+    everyAtomWhole(sums(m.draft.beads.flatMap((b) => b.atoms.map((a): [number, number] => [a.index, a.weight]))));
+    expect(m.evaluation?.checks.filter((c) => c.severity === 'error')).toEqual([]);
+    // The draft holds what the proposal endpoint serves for the same molecule and resolution.
+    const { proposals } = (await modeller.post(`/api/mappings/${m.id}/proposal`, { scope: 'all', resolution: '4:1' }).expect(200)).body as ProposalsResponse;
+    // (The draft lists beads by their lowest atom, the proposal in its own order.)
+    const sorted = (beads: number[][][]) => beads.map((b) => JSON.stringify(b)).sort();
+    expect(sorted(m.draft.beads.map((b) => b.atoms.map((a) => [a.index, a.weight])))).toEqual(sorted(proposals[0].beads.map((b) => b.atoms.map((a, k) => [a, b.weights?.[k] ?? 1]).sort((x, y) => x[0] - y[0]))));
   });
 });
