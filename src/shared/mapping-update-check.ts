@@ -12,8 +12,8 @@
  *   - a plain value is null, text of at most the longest bead field, a whole number 0–6 (the
  *     exclusion count), an atom entry (≤ 16 bead ids of ≤ BEAD_ID_MAX characters → finite numbers),
  *     a valid measured value, valid bonded-term params (of any kind; the key's kind is checked
- *     once the value lands) or a proposal entry (proposal-doc.ts; its atoms are bounded by the atom
- *     count once it lands);
+ *     once the value lands) or a proposal entry (proposal-doc.ts: a ghost's optional weights are one
+ *     per atom, each in (0, 1]; its atoms are bounded by the atom count once it lands);
  *   - a top-level name is "beads", "atoms", "settings", "bonded" or "proposal"; a key directly in
  *     "beads" is a bead id, in "atoms" an atom index below the atom count, in "settings" a setting, in
  *     "bonded" a term key, in "proposal" 'meta' or 'g:<key>'; a key in a nested map is a bead field;
@@ -25,7 +25,7 @@ import * as Y from 'yjs';
 import { ATOMS, BEAD_ID_MAX, BEAD_KEYS, BEAD_NAME_MAX, BEAD_TYPE_MAX, BEADS, BONDED, SETTING_KEYS, SETTINGS, TERM_KEY_MAX, measuredProblem } from './mapping-doc';
 import { TERM_KINDS, TERM_LIMITS, bondedParamsProblem, parseTermKey } from './bonded-terms';
 import type { DocProblem } from './mapping-doc-check';
-import { PROPOSAL, ghostProblem, metaProblem, proposalEntryProblem } from './proposal-doc';
+import { GHOST_PREFIX, PROPOSAL, ghostProblem, metaProblem, proposalEntryProblem } from './proposal-doc';
 
 const TEXT_MAX = Math.max(BEAD_NAME_MAX, BEAD_TYPE_MAX);
 const INDEX = /^(0|[1-9][0-9]{0,8})$/;
@@ -90,6 +90,8 @@ function checkContent(item: Y.Item): DocProblem | null {
     if (bad === undefined) return null;
     // A bead's measured value says what is wrong with it, as the visible-document check would.
     if (item.parentSub === 'measured' && typeof bad === 'object' && bad !== null) return refuse('wrong_type', path, measuredProblem(bad) ?? 'The measured value is not valid.');
+    // So does a proposed bead (e.g. weights that are not one per atom in (0, 1]).
+    if (item.parentSub?.startsWith(GHOST_PREFIX) && typeof bad === 'object' && bad !== null) return refuse('wrong_type', path, ghostProblem(bad) ?? 'The proposed bead is not valid.');
     return refuse('wrong_type', path, `A value is null, text of at most ${TEXT_MAX} characters, or an atom entry of at most ${MAX_BEADS_PER_ATOM} bead ids → weight.`);
   }
   return refuse('wrong_type', path, `The draft holds no ${content.constructor.name.replace(/^Content/, '').toLowerCase()} content.`);

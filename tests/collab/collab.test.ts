@@ -8,7 +8,7 @@ import { connectClient, cookieSocket, listen, sessionCookie, synced, until, type
 import { createAccount, demoMappingId, demoProjectId } from '../helpers/fixtures';
 import { assignAtoms, atomsOf, beadsOf, createBead, docToMapping } from '../../src/shared/mapping-doc';
 import { CLOSE_MALFORMED, MESSAGE_AWARENESS } from '../../src/shared/collab-protocol';
-import { acceptGhosts, dismissGhosts, openProposal, readOpenProposal } from '../../src/shared/proposal-doc';
+import { acceptGhosts, dismissGhosts, openProposal, proposalOf, readOpenProposal } from '../../src/shared/proposal-doc';
 
 let t: TestApp;
 let http: Awaited<ReturnType<typeof listen>>;
@@ -160,6 +160,35 @@ describe('live collaboration', () => {
     expect(ghostNames(again)).toEqual(['P1', 'P3']);
     dismissGhosts(again.doc, ['g1', 'g3']);
     await until('dismissed for everyone', () => [a, b, c].every((x) => ghostNames(x).length === 0));
+  });
+
+  it('carries ghosts that share an atom, and their accept, to everyone and to storage; refuses malformed weights', async () => {
+    const ATOMS = 25;
+    // Atom 24 shared half and half by two ghosts (hand-worked: 0.5 + 0.5 = 1).
+    const beads = [
+      { name: 'S1', atoms: [23, 24], weights: [1, 0.5], type: null, reason: 'test' },
+      { name: 'S2', atoms: [24], weights: [0.5], type: null, reason: 'test' },
+    ];
+    openProposal(a.doc, { cost: 1, beads }, 'all', { id: 1, name: 'Tomas Brenn', colour: '#1f4e5a' });
+    await until('the sharing ghosts reach the supervisor', () => readOpenProposal(b.doc, ATOMS)?.beads.length === 2);
+    expect(readOpenProposal(b.doc, ATOMS)!.beads.map((g) => g.weights)).toEqual([[1, 0.5], [0.5]]);
+    acceptGhosts(b.doc, readOpenProposal(b.doc, ATOMS)!.beads, null);
+    const shares = (x: CollabClient) => docToMapping(x.doc).beads.filter((bead) => bead.name.startsWith('S')).map((bead) => [bead.name, bead.atoms.map((at) => [at.index, at.weight])]);
+    const expected = [['S1', [[23, 1], [24, 0.5]]], ['S2', [[24, 0.5]]]];
+    await until('the accept reaches the others', () => [a, c].every((x) => JSON.stringify(shares(x)) === JSON.stringify(expected)));
+    await until('and storage', async () => {
+      const stored = (await restDraft()).beads.filter((bead) => bead.name.startsWith('S')).map((bead) => [bead.name, bead.atoms.map((at) => [at.index, at.weight])]);
+      return JSON.stringify(stored) === JSON.stringify(expected);
+    });
+
+    const bad = await client('supervisor');
+    proposalOf(bad.doc).set('g:bad', { p: 'p1', name: 'X1', atoms: [0, 1], weights: [0.5], type: null, reason: '' });
+    await until('refusal', () => bad.errors.some((e) => e.code === 'update_refused'));
+    expect(bad.errors.at(-1)).toMatchObject({ code: 'update_refused', message: expect.stringMatching(/weights are a list as long as its atoms/), details: { code: 'wrong_type' } });
+    createBead(a.doc, [0], { id: 'marker-after-bad-weights' });
+    await until('marker reaches b', () => beadsOf(b.doc).has('marker-after-bad-weights'));
+    expect(proposalOf(b.doc).has('g:bad')).toBe(false);
+    bad.destroy();
   });
 
   it('refuses an invalid update with a clear error and changes nothing', async () => {

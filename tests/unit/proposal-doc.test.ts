@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import * as Y from 'yjs';
-import { ATOMS, BEADS, createBead, docToMapping } from '../../src/shared/mapping-doc';
+import { ATOMS, atomsOf, BEADS, createBead, docToMapping, shareAtom } from '../../src/shared/mapping-doc';
 import { applyChecked, checkDoc } from '../../src/shared/mapping-doc-check';
-import { acceptGhosts, closeProposal, dismissGhosts, GHOST_PREFIX, openProposal, PROPOSAL, PROPOSAL_META, proposalOf, readOpenProposal } from '../../src/shared/proposal-doc';
+import { checkUpdateStructs } from '../../src/shared/mapping-update-check';
+import { acceptGhosts, closeProposal, dismissGhosts, GHOST_PREFIX, ghostProblem, openProposal, PROPOSAL, PROPOSAL_META, proposalOf, readOpenProposal } from '../../src/shared/proposal-doc';
 import type { Proposal } from '../../src/shared/proposals';
 import { sync, updateOf } from '../helpers/doc-updates';
 
@@ -112,6 +113,115 @@ describe('the open proposal in the draft', () => {
   });
 });
 
+// Two ghosts sharing atom 2 half and half (hand-worked: 0.5 + 0.5 = 1), as a symmetric ring system's
+// proposal shares a CH2 between two bridgehead beads; B3 takes atom 4 wholly.
+const sharing: Proposal = {
+  cost: 1,
+  beads: [
+    { name: 'B1', atoms: [0, 1, 2], weights: [1, 1, 0.5], type: null, reason: 'bridgehead 0' },
+    { name: 'B2', atoms: [2, 3], weights: [0.5, 1], type: null, reason: 'bridgehead 3' },
+    { name: 'B3', atoms: [4], type: null, reason: 'one heavy atom' },
+  ],
+};
+const weightsOf = (doc: Y.Doc) => docToMapping(doc).beads.map((b) => [b.name, b.atoms.map((a) => [a.index, a.weight])]);
+const idsByName = (doc: Y.Doc) => Object.fromEntries(docToMapping(doc).beads.map((b) => [b.name, b.id]));
+
+describe('ghosts that share atoms', () => {
+  const open = () => {
+    const doc = new Y.Doc();
+    openProposal(doc, sharing, 'all', by);
+    return doc;
+  };
+  const ghost = (doc: Y.Doc, name: string) => readOpenProposal(doc, ATOM_COUNT)!.beads.find((b) => b.name === name)!;
+
+  it('keeps the weights in the document and reads them back; a ghost without shared atoms keeps five keys', () => {
+    const doc = open();
+    expect(proposalOf(doc).get('g:g1')).toEqual({ p: expect.any(String), name: 'B1', atoms: [0, 1, 2], weights: [1, 1, 0.5], type: null, reason: 'bridgehead 0' });
+    expect(Object.keys(proposalOf(doc).get('g:g3') as object).sort()).toEqual(['atoms', 'name', 'p', 'reason', 'type']);
+    expect(readOpenProposal(doc, ATOM_COUNT)!.beads.map((b) => [b.name, b.weights])).toEqual([['B1', [1, 1, 0.5]], ['B2', [0.5, 1]], ['B3', undefined]]);
+    expect('weights' in ghost(doc, 'B3')).toBe(false);
+  });
+
+  it('accepted one after the other, gives the shared atom to both beads half and half', () => {
+    const doc = open();
+    acceptGhosts(doc, [ghost(doc, 'B1')], null);
+    // Until the second is accepted, atom 2 is half in B1 only (the checks report the sum below 1).
+    expect(atomsOf(doc).get('2')).toEqual({ [idsByName(doc).B1]: 0.5 });
+    acceptGhosts(doc, [ghost(doc, 'B2')], null);
+    const ids = idsByName(doc);
+    expect(atomsOf(doc).get('2')).toEqual({ [ids.B1]: 0.5, [ids.B2]: 0.5 });
+    expect(weightsOf(doc)).toEqual([
+      ['B1', [[0, 1], [1, 1], [2, 0.5]]],
+      ['B2', [[2, 0.5], [3, 1]]],
+    ]);
+  });
+
+  it('accepted in the other order or both at once, gives the same entries', () => {
+    const reversed = open();
+    acceptGhosts(reversed, [ghost(reversed, 'B2')], null);
+    acceptGhosts(reversed, [ghost(reversed, 'B1')], null);
+    const together = open();
+    const origin = { local: true };
+    let transactions = 0;
+    together.on('afterTransaction', () => transactions++);
+    acceptGhosts(together, readOpenProposal(together, ATOM_COUNT)!.beads, origin);
+    expect(transactions).toBe(1);
+    for (const doc of [reversed, together]) {
+      const ids = idsByName(doc);
+      expect(atomsOf(doc).get('2')).toEqual({ [ids.B1]: 0.5, [ids.B2]: 0.5 });
+      expect(weightsOf(doc).filter(([name]) => name !== 'B3')).toEqual([
+        ['B1', [[0, 1], [1, 1], [2, 0.5]]],
+        ['B2', [[2, 0.5], [3, 1]]],
+      ]);
+    }
+    expect(weightsOf(together).map(([name]) => name)).toEqual(['B1', 'B2', 'B3']);
+  });
+
+  it('takes a shared atom out of a hand-made bead that held it wholly, deletes the bead left empty, and undoes in one step', () => {
+    const doc = new Y.Doc();
+    const origin = { local: true };
+    const undo = new Y.UndoManager([doc.getMap(BEADS), doc.getMap(ATOMS), doc.getMap(PROPOSAL)], { trackedOrigins: new Set([origin]), captureTimeout: 0 });
+    const hand = createBead(doc, [2, 7], { name: 'Hand' }, origin);
+    const lone = createBead(doc, [9], { name: 'Lone' }, origin);
+    // Atom 9 is half in Lone and shared by the proposal at 0.5: both fit, so Lone keeps its half.
+    openProposal(doc, { cost: 1, beads: [...sharing.beads.slice(0, 1), { name: 'B4', atoms: [8, 9], weights: [1, 0.5], type: null, reason: '' }] }, 'all', by);
+    shareAtom(doc, 9, { [lone]: 0.5 }, origin);
+    undo.clear();
+    const before = atomsOf(doc).toJSON();
+    acceptGhosts(doc, readOpenProposal(doc, ATOM_COUNT)!.beads, origin);
+    const ids = idsByName(doc);
+    expect(atomsOf(doc).get('2')).toEqual({ [ids.B1]: 0.5 });
+    expect(atomsOf(doc).get('7')).toEqual({ [hand]: 1 });
+    expect(atomsOf(doc).get('9')).toEqual({ [lone]: 0.5, [ids.B4]: 0.5 });
+    expect(weightsOf(doc).map(([name]) => name)).toEqual(['B1', 'Hand', 'B4', 'Lone']);
+
+    // Over an atom that is the only one of a hand-made bead: the bead goes.
+    const other = open();
+    createBead(other, [3], { name: 'Only' });
+    acceptGhosts(other, [ghost(other, 'B2')], null);
+    expect(docToMapping(other).beads.map((b) => b.name)).toEqual(['B2']);
+    // A share that no longer fits (0.5 kept + 0.75 > 1) replaces the kept one.
+    shareAtom(other, 2, { [idsByName(other).B2]: 0.5 });
+    openProposal(other, { cost: 1, beads: [{ name: 'B5', atoms: [2], weights: [0.75], type: null, reason: '' }] }, 'all', by);
+    acceptGhosts(other, readOpenProposal(other, ATOM_COUNT)!.beads, null);
+    expect(atomsOf(other).get('2')).toEqual({ [idsByName(other).B5]: 0.75 });
+
+    undo.undo();
+    expect(atomsOf(doc).toJSON()).toEqual(before);
+    expect(docToMapping(doc).beads.map((b) => b.name).sort()).toEqual(['Hand', 'Lone']);
+    expect(readOpenProposal(doc, ATOM_COUNT)!.beads.map((b) => [b.name, b.weights])).toEqual([['B1', [1, 1, 0.5]], ['B4', [1, 0.5]]]);
+  });
+
+  it('takes a shared atom out of a hand-made bead wholly, deleting the bead when that was its last atom', () => {
+    const doc = open();
+    const hand = createBead(doc, [2], { name: 'Hand' });
+    acceptGhosts(doc, [ghost(doc, 'B1')], null);
+    expect(docToMapping(doc).beads.map((b) => b.name)).toEqual(['B1']);
+    expect(atomsOf(doc).get('2')).toEqual({ [idsByName(doc).B1]: 0.5 });
+    expect(Object.keys(atomsOf(doc).get('2')!)).not.toContain(hand);
+  });
+});
+
 describe('the server’s checks of the proposal', () => {
   const base = () => {
     const doc = new Y.Doc();
@@ -142,7 +252,55 @@ describe('the server’s checks of the proposal', () => {
     ['a ghost as a nested map', (d: Y.Doc) => proposalOf(d).set('g:g1', new Y.Map()), 'wrong_type'],
     ['a meta value with a bad scope', (d: Y.Doc) => proposalOf(d).set(PROPOSAL_META, { id: 'p1', scope: 'most', by }), 'wrong_type'],
     ['a meta value with a bad colour', (d: Y.Doc) => proposalOf(d).set(PROPOSAL_META, { id: 'p1', scope: 'all', by: { ...by, colour: 'red' } }), 'wrong_type'],
+    ['a ghost with weights of the wrong length', (d: Y.Doc) => proposalOf(d).set('g:g1', { ...ghost, weights: [0.5, 0.5] }), 'wrong_type'],
+    ['a ghost with a weight of 0', (d: Y.Doc) => proposalOf(d).set('g:g1', { ...ghost, weights: [0] }), 'wrong_type'],
+    ['a ghost with a weight above 1', (d: Y.Doc) => proposalOf(d).set('g:g1', { ...ghost, weights: [1.5] }), 'wrong_type'],
+    ['a ghost with weights and an extra field', (d: Y.Doc) => proposalOf(d).set('g:g1', { ...ghost, weights: [0.5], weight: 1 }), 'wrong_type'],
   ])('refuses %s', (_what, edit, code) => {
     expect(check(edit)?.code).toBe(code);
+  });
+
+  it('accepts ghosts with weights and what accepting them writes', () => {
+    const doc = base();
+    expect(applyChecked(doc, updateOf(doc, (d) => openProposal(d, sharing, 'all', by)), ATOM_COUNT)).toBeNull();
+    expect(applyChecked(doc, updateOf(doc, (d) => acceptGhosts(d, readOpenProposal(d, ATOM_COUNT)!.beads, null)), ATOM_COUNT)).toBeNull();
+    expect(checkDoc(doc, ATOM_COUNT)).toBeNull();
+    // The draft's bead "x" was named B1, so the ghosts were renamed: both halves are there all the same.
+    expect(Object.values(atomsOf(doc).get('2')!)).toEqual([0.5, 0.5]);
+    expect(docToMapping(doc).beads.filter((b) => b.atoms.some((a) => a.index === 2 && a.weight === 0.5))).toHaveLength(2);
+  });
+
+  it('refuses malformed weights already in the update’s structs (mapping-update-check.ts)', () => {
+    const doc = base();
+    const good = updateOf(doc, (d) => proposalOf(d).set('g:g1', { ...ghost, weights: [0.5] }));
+    expect(checkUpdateStructs(good, ATOM_COUNT)).toBeNull();
+    for (const weights of [[0.5, 0.5], [0], [-0.5], [2], ['0.5'], [Number.NaN], 0.5]) {
+      const bad = updateOf(doc, (d) => proposalOf(d).set('g:g1', { ...ghost, weights }));
+      expect(checkUpdateStructs(bad, ATOM_COUNT)).toMatchObject({ code: 'wrong_type', message: expect.stringMatching(/proposed bead's weights/) });
+    }
+  });
+});
+
+describe('ghostProblem and weights', () => {
+  const ghost = { p: 'p1', name: 'B1', atoms: [0, 1], type: null, reason: '' };
+  it('takes weights as long as the atoms, each in (0, 1]', () => {
+    expect(ghostProblem(ghost)).toBeNull();
+    expect(ghostProblem({ ...ghost, weights: [1, 0.5] })).toBeNull();
+    expect(ghostProblem({ ...ghost, weights: [1 / 3, 1] })).toBeNull();
+  });
+  it.each([
+    ['of the wrong length', [0.5], /as long as its atoms/],
+    ['that are no list', 0.5, /as long as its atoms/],
+    ['of 0', [0, 1], /greater than 0 and at most 1/],
+    ['below 0', [-0.5, 1], /greater than 0 and at most 1/],
+    ['above 1', [1.5, 0.5], /greater than 0 and at most 1/],
+    ['that are not numbers', ['0.5', 1], /greater than 0 and at most 1/],
+    ['that are not finite', [Number.POSITIVE_INFINITY, 1], /greater than 0 and at most 1/],
+    ['of null', [null, 1], /greater than 0 and at most 1/],
+  ])('refuses weights %s', (_what, weights, message) => {
+    expect(ghostProblem({ ...ghost, weights })).toMatch(message);
+  });
+  it('refuses a sixth key other than weights', () => {
+    expect(ghostProblem({ ...ghost, weight: 1 })).toMatch(/holds only p, name, atoms, type and reason/);
   });
 });
