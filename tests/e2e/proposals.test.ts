@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { browserSession } from '../helpers/browser-session';
 import { addModeller } from '../helpers/second-modeller';
+import { newMappingInPage } from '../helpers/page-mapping';
 
 // Issue 17's browser test, through the real client, server, collab socket and MariaDB: one modeller
 // asks for a proposal (the P shortcut), accepts two of its beads and dismisses one, while a second
@@ -118,6 +119,38 @@ describe('proposals in the editor', () => {
     await expect.poll(() => first.locator('[data-ghost-owner]').count()).toBe(0);
     await expect.poll(() => second.locator('[data-ghost-owner]').count()).toBe(0);
 
+    expect(pageErrors).toEqual([]);
+  });
+
+  it('shows ghosts that share atoms (adamantane) and accepts them into beads that share those atoms', async () => {
+    const page = await session.signedIn('modeller@example.org', PASSWORD);
+    const { mappingId } = await newMappingInPage(page, { molecule: 'Adamantane', smiles: 'C1C2CC3CC1CC(C2)C3', mapping: 'Shared CH2', resolution: '4:1' });
+    await page.goto(`/mappings/${mappingId}`);
+    await page.locator('[data-connection="live"]').waitFor();
+    await page.getByRole('radio', { name: 'Whole molecule' }).check();
+    await page.locator('svg[role="application"]').focus();
+    await page.keyboard.press('p');
+    const proposed = page.getByRole('list', { name: 'Proposed beads' });
+    await proposed.getByRole('listitem').first().waitFor();
+    // Four bridgehead beads, each sharing its three CH2 (docs/collaboration.md, "Ghosts that share atoms").
+    await expect.poll(() => page.locator('[data-ghost-owner="you"]').count(), { timeout: 10_000 }).toBe(4);
+    for (const item of await proposed.getByRole('listitem').all()) await expect(item.textContent()).resolves.toContain('shares 3 atoms · weighted size 2.5');
+
+    await page.getByRole('button', { name: 'Accept all' }).click();
+    for (const name of ['B1', 'B2', 'B3', 'B4']) await tag(page, name).waitFor();
+    await expect.poll(() => page.locator('[data-ghost-owner]').count()).toBe(0);
+    // Stored: every CH2 half in each of two beads, every atom's weights summing to 1.
+    const entries = async () => {
+      const { draft } = await page.evaluate(async (id) => (await fetch(`/api/mappings/${id}`)).json(), mappingId);
+      const perAtom = new Map<number, number[]>();
+      for (const b of draft.beads as { atoms: { index: number; weight: number }[] }[]) for (const a of b.atoms) perAtom.set(a.index, [...(perAtom.get(a.index) ?? []), a.weight]);
+      return [...perAtom.entries()].sort((x, y) => x[0] - y[0]).map(([, ws]) => ws.sort().join('+'));
+    };
+    await expect.poll(entries, { timeout: 10_000 }).toEqual(expect.arrayContaining(['0.5+0.5', '1']));
+    const stored = await entries();
+    expect(stored).toHaveLength(10);
+    expect(stored.filter((e) => e === '0.5+0.5')).toHaveLength(6);
+    expect(stored.filter((e) => e === '1')).toHaveLength(4);
     expect(pageErrors).toEqual([]);
   });
 

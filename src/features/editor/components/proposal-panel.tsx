@@ -3,7 +3,7 @@ import { Button } from '../../../components/ui/button';
 import type { Proposal, ProposalScope } from '../../../shared/proposals';
 import { useProposeMapping } from '../api/propose-mapping';
 import type { MappingSession } from '../collab/mapping-session';
-import type { GhostBead, PeerGhosts } from '../model/proposal-ghosts';
+import { ghostShares, type GhostBead, type PeerGhosts } from '../model/proposal-ghosts';
 import { acceptGhosts, closeProposal, dismissGhosts, openProposal } from '../../../shared/proposal-doc';
 import { presenceColour } from '../../../shared/presence-colour';
 
@@ -117,6 +117,7 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
                 <span className="min-w-0 flex-1">
                   <span className="font-semibold">{b.name}</span> · {b.atoms.length} atom{b.atoms.length === 1 ? '' : 's'}
                   {b.type ? ` · ${b.type}` : ''}
+                  <SharesNote bead={b} />
                   <span className="block truncate text-xs text-ink-600" title={b.reason}>{b.reason}</span>
                 </span>
                 {!readOnly && (
@@ -138,5 +139,16 @@ export function ProposalPanel({ session, mappingId, readOnly, ghosts, proposeRef
       )}
       {!own && !note && <p className="text-ink-700">Proposed beads show as dashed outlines for everyone here until accepted or dismissed.</p>}
     </div>
+  );
+}
+
+/** For a ghost that shares atoms with other ghosts: how many, and its size counted by weight. */
+function SharesNote({ bead }: { bead: GhostBead }) {
+  const { shared, weighted } = ghostShares(bead);
+  if (shared === 0) return null;
+  return (
+    <span className="block text-xs text-ink-700" data-shares={shared}>
+      shares {shared} atom{shared === 1 ? '' : 's'} · weighted size {Number(weighted.toFixed(2))}
+    </span>
   );
 }
