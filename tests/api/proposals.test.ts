@@ -206,6 +206,21 @@ describe('proposals that may share atoms (adamantane, 4:1)', () => {
     expect(proposals.length).toBeGreaterThanOrEqual(1);
     for (const p of proposals) expectValidWeights(p);
     everyAtomWhole(sums(proposals[0].beads.flatMap((b) => b.atoms.map((a, k): [number, number] => [a, b.weights?.[k] ?? 1]))));
+    // Adamantane has no symmetric partition into 4:1 beads, so its best proposal shares atoms
+    // (docs/chemistry.md, "Mapping proposals", step 7).
+    expect(proposals[0].beads.some((b) => b.weights !== undefined)).toBe(true);
+  });
+
+  it('transfers onto adamantane with the proposed beads’ weights for the atoms nothing carried holds', async () => {
+    const projectId = await demoProjectId(t.ctx.db);
+    const adamantane = await createMolecule(t.ctx.db, projectId, 'Adamantane (transfer)', ADAMANTANE);
+    // C12E4 has no ring, and ring atoms match ring atoms only: nothing is carried, every bead is added.
+    const res = await modeller.post(`/api/molecules/${adamantane}/mappings`, { name: 'Adamantane from C12E4', resolution: '4:1', start: { transferFrom: mappingId } }).expect(201);
+    const report = res.body.transfer as TransferReport;
+    expect(report.carried).toEqual([]);
+    const draft = (res.body as MappingDetail).draft;
+    everyAtomWhole(sums(draft.beads.flatMap((b) => b.atoms.map((a): [number, number] => [a.index, a.weight]))));
+    expect(draft.beads.some((b) => b.atoms.some((a) => a.weight < 1))).toBe(true);
   });
 
   it('starts a mapping from the proposal with the same weights in its draft', async () => {
