@@ -7,7 +7,7 @@
  *   'meta'     → plain object { id, scope, by: { id, name, colour } }: which proposal is open, for what
  *                scope and by whom;
  *   'g:<key>'  → plain object { p, name, atoms, type, reason }: one proposed bead of the proposal `p`;
- *                a bead that shares atoms with other proposed beads (a symmetric ring system) also holds
+ *                a bead that shares atoms with other proposed beads (a symmetric cut, e.g. adamantane) also holds
  *                `weights`, aligned with `atoms`, each in (0, 1] (six keys then; absent: every weight 1).
  * Every value is one plain object, replaced or deleted whole. A new proposal replaces the old one in one
  * transaction (every key deleted, a new meta id); a ghost whose `p` is not the open id (an old one an
