@@ -153,30 +153,39 @@ function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classe
     if (b.length === 1 && isFreeIon(molecule, p, b[0])) continue;
     if ((b.length < limits.min || b.length > limits.max) && partOf[b[0]] >= 0) offSize[partOf[b[0]]] = 1;
   }
+  // What the best candidate's beads of some parts cost, without the symmetry term.
+  const costOf = (partsOf: Set<number>) => {
+    const beads = best.beads.filter((b) => partsOf.has(partOf[b[0]]));
+    return proposalCost({
+      molecule,
+      p,
+      classes,
+      limits,
+      beads,
+      ion: beads.map((b) => b.length === 1 && isFreeIon(molecule, p, b[0])),
+      ring: beads.map((b) => b.some((a) => ringAtom[a])),
+      ringCost: pieces.filter((piece) => partsOf.has(partOf[piece.atoms[0]])).reduce((s, piece) => s + piece.cost, 0),
+      symmetry: false,
+    });
+  };
   const redo = new Set<number>();
   const cuts: SharedCut['beads'] = [];
   let cutCost = 0;
   parts.forEach((part, i) => {
-    if (!offSize[i] && !part.some((a) => brokenClass.has(classes[a]))) return;
+    const broken = new Set(part.filter((a) => brokenClass.has(classes[a])).map((a) => classes[a])).size;
+    if (!offSize[i] && !broken) return;
     const cut = symmetricSharedCut(molecule, p, classes, units, part, limits);
-    if (!cut) return;
+    // A part is cut anew only when that is cheaper than its beads now with the symmetry they break.
+    if (!cut || cut.cost >= costOf(new Set([i])) + SYMMETRY_COST * broken - 1e-9) return;
     redo.add(i);
     cuts.push(...cut.beads);
     cutCost += cut.cost;
   });
   if (!redo.size) return null;
   const kept = best.beads.filter((b) => !redo.has(partOf[b[0]]));
-  const keptCost = proposalCost({
-    molecule,
-    p,
-    classes,
-    limits,
-    beads: kept,
-    ion: kept.map((b) => b.length === 1 && isFreeIon(molecule, p, b[0])),
-    ring: kept.map((b) => b.some((a) => ringAtom[a])),
-    ringCost: pieces.filter((piece) => !redo.has(partOf[piece.atoms[0]])).reduce((s, piece) => s + piece.cost, 0),
-    symmetry: false,
-  });
+  const keptParts = new Set(parts.map((_, i) => i).filter((i) => !redo.has(i)));
+  // Free ions (in no part) stay as they are.
+  const keptCost = costOf(new Set([...keptParts, -1]));
   const beads = [...kept, ...cuts.map((b) => b.atoms)];
   const weights = [...kept.map(() => undefined), ...cuts.map((b) => b.weights)];
   const broken = asymmetricClasses(beads, classes, weights);

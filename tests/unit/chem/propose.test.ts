@@ -87,6 +87,11 @@ describe('mapping proposals', () => {
     const m = await parseMolecule({ smiles: 'CCCCC' });
     const [top] = proposePartitions(m, { resolution: '3:1' });
     expect(top.beads.map((b) => [b.atoms, b.weights])).toEqual([[[0, 1, 2], [1, 1, 0.5]], [[2, 3, 4], [0.5, 1, 1]]]);
+    // Per connected part: in a mixture only the pentane is cut anew; hexane keeps its two beads of three,
+    // and SDS at 3:1 (its 5-atom sulfate is over the limit, so its part is tried) keeps its own cut.
+    const mix = await parseMolecule({ smiles: 'CCCCC.CCCCCC' });
+    expect(proposePartitions(mix, { resolution: '3:1' })[0].beads.map((b) => [b.atoms, b.weights ?? null])).toEqual([[[0, 1, 2], [1, 1, 0.5]], [[2, 3, 4], [0.5, 1, 1]], [[5, 6, 7], null], [[8, 9, 10], null]]);
+    expect(await best('CCCCCCCCCCCCOS(=O)(=O)[O-].[Na+]', '3:1')).toEqual([[0, 1, 2], [3, 4, 5], [6, 7, 8], [9, 10, 11], [12, 13, 14, 15, 16], [17]]);
     // Triethylammonium: the charged N is never shared (three ethyls sharing it would be symmetric).
     const salt = await parseMolecule({ smiles: 'CC[NH+](CC)CC' });
     for (const r of ['4:1', '3:1', '2:1'] as const) {
