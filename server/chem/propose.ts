@@ -19,6 +19,7 @@
  */
 import type { Molecule, Resolution } from '../../src/shared/chem';
 import { isFreeIon } from './free-ions';
+import { componentsOf } from './graph';
 import { prepare } from './prepared';
 import { asymmetricClasses, proposalCost, SYMMETRY_COST, type SizeLimits } from './propose-cost';
 import { ringBonds } from './propose-ring-bonds';
@@ -131,23 +132,10 @@ export function proposePartitions(molecule: Molecule, options: PartitionOptions)
  */
 function sharedVariant(molecule: Molecule, p: ReturnType<typeof prepare>, classes: Int32Array, units: ReturnType<typeof findUnits>, free: Uint8Array, limits: SizeLimits, best: Candidate, pieces: RingPiece[], ringAtom: Uint8Array): Candidate | null {
   const brokenClass = new Set(best.broken);
+  // Connected parts of the free atoms (free ions and fixed atoms are in none).
+  const parts = componentsOf(p.n, molecule.bonds.filter((b) => free[b.a] && free[b.b])).filter((part) => free[part[0]]);
   const partOf = new Int32Array(p.n).fill(-1);
-  const parts: number[][] = [];
-  for (let a = 0; a < p.n; a++) {
-    if (!free[a] || partOf[a] >= 0) continue;
-    const part = [a];
-    partOf[a] = parts.length;
-    for (let q = 0; q < part.length; q++) {
-      for (let k = p.adjStart[part[q]]; k < p.adjStart[part[q] + 1]; k++) {
-        const b = p.adj[k];
-        if (free[b] && partOf[b] < 0) {
-          partOf[b] = parts.length;
-          part.push(b);
-        }
-      }
-    }
-    parts.push(part);
-  }
+  parts.forEach((part, i) => part.forEach((a) => (partOf[a] = i)));
   const offSize = new Uint8Array(parts.length);
   for (const b of best.beads) {
     if (b.length === 1 && isFreeIon(molecule, p, b[0])) continue;

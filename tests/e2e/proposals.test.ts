@@ -19,6 +19,16 @@ const pageErrors = session.errors;
 const tag = (page: Page, name: string) => page.locator(`[data-bead-tag="${name}"]`);
 const ghost = (page: Page, name: string) => page.locator(`[data-ghost="${name}"]`);
 
+/** Proposes for the whole molecule with the P shortcut; the list of proposed beads once it shows. */
+async function proposeWholeMolecule(page: Page) {
+  await page.getByRole('radio', { name: 'Whole molecule' }).check();
+  await page.locator('svg[role="application"]').focus();
+  await page.keyboard.press('p');
+  const proposed = page.getByRole('list', { name: 'Proposed beads' });
+  await proposed.getByRole('listitem').first().waitFor();
+  return proposed;
+}
+
 beforeAll(async () => {
   await session.open();
   await addModeller(session, SECOND);
@@ -49,11 +59,7 @@ describe('proposals in the editor', () => {
     await second.locator('[data-connection="live"]').waitFor();
 
     // The first modeller proposes with the keyboard shortcut (scope: the whole molecule).
-    await first.getByRole('radio', { name: 'Whole molecule' }).check();
-    await first.locator('svg[role="application"]').focus();
-    await first.keyboard.press('p');
-    const proposed = first.getByRole('list', { name: 'Proposed beads' });
-    await proposed.getByRole('listitem').first().waitFor();
+    const proposed = await proposeWholeMolecule(first);
     const count = await proposed.getByRole('listitem').count();
     expect(count).toBeGreaterThanOrEqual(4);
 
@@ -127,11 +133,7 @@ describe('proposals in the editor', () => {
     const { mappingId } = await newMappingInPage(page, { molecule: 'Adamantane', smiles: 'C1C2CC3CC1CC(C2)C3', mapping: 'Shared CH2', resolution: '4:1' });
     await page.goto(`/mappings/${mappingId}`);
     await page.locator('[data-connection="live"]').waitFor();
-    await page.getByRole('radio', { name: 'Whole molecule' }).check();
-    await page.locator('svg[role="application"]').focus();
-    await page.keyboard.press('p');
-    const proposed = page.getByRole('list', { name: 'Proposed beads' });
-    await proposed.getByRole('listitem').first().waitFor();
+    const proposed = await proposeWholeMolecule(page);
     // Four bridgehead beads, each sharing its three CH2 (docs/collaboration.md, "Ghosts that share atoms").
     await expect.poll(() => page.locator('[data-ghost-owner="you"]').count(), { timeout: 10_000 }).toBe(4);
     for (const item of await proposed.getByRole('listitem').all()) await expect(item.textContent()).resolves.toContain('shares 3 atoms · weighted size 2.5');

@@ -22,6 +22,7 @@ import { asymmetricClasses, compositionOf } from '../../../server/chem/propose-c
 import { symmetryClasses } from '../../../server/chem/propose-symmetry';
 import type { RDKit } from '../../../server/chem/rdkit';
 import { RESOLUTION_LIMITS } from '../../../server/chem/resolution';
+import { proposedAtoms } from '../../../src/shared/proposals';
 import { PROPOSAL_PANEL } from './fixtures/proposal-panel';
 
 /** Listed groups (docs/chemistry.md, "Mapping proposals"): SMARTS and how many leading atoms must stay together. */
@@ -46,7 +47,7 @@ let rd: RDKit;
 const entries: Entry[] = [];
 
 function toMapping(p: ProposedPartition): Mapping {
-  return { beads: p.beads.map((b, i) => ({ id: `p${i}`, name: `B${i + 1}`, centre: 'mass', atoms: b.atoms.map((index, k) => ({ index, weight: b.weights?.[k] ?? 1 })) })) };
+  return { beads: p.beads.map((b, i) => ({ id: `p${i}`, name: `B${i + 1}`, centre: 'mass', atoms: proposedAtoms(b) })) };
 }
 
 /** Orbits of the automorphism group, from RDKit matching the molecule onto itself (every match). */
@@ -105,13 +106,14 @@ function assess(resolution: Resolution): Tally {
     if (bad.length) tally.problems.push(`${name}: ${bad.map((c) => c.code).join(', ')}`);
     // Every heavy atom's weights over the proposal add up to 1 (shared atoms split between beads).
     const sum = new Map<number, number>();
-    for (const b of best.beads) b.atoms.forEach((a, k) => sum.set(a, (sum.get(a) ?? 0) + (b.weights?.[k] ?? 1)));
+    for (const b of best.beads) for (const { index, weight } of proposedAtoms(b)) sum.set(index, (sum.get(index) ?? 0) + weight);
     const badSum = [...sum].filter(([, w]) => Math.abs(w - 1) > 1e-9);
     if (badSum.length || sum.size !== p.heavy.reduce((s, h) => s + h, 0)) tally.problems.push(`${name}: weights do not sum to 1 on every heavy atom`);
     // A listed group is split when its atoms are not all wholly in one and the same bead.
-    const beadsOf = new Map<number, string>();
-    best.beads.forEach((b, i) => b.atoms.forEach((a) => beadsOf.set(a, `${beadsOf.get(a) ?? ''}${i}@${b.weights?.[b.atoms.indexOf(a)] ?? 1};`)));
-    for (const g of groups) if (new Set(g.atoms.map((a) => beadsOf.get(a))).size > 1 || g.atoms.some((a) => !beadsOf.get(a)?.endsWith('@1;') || beadsOf.get(a)!.split(';').length > 2)) tally.problems.push(`${name}: ${g.name} split (atoms ${g.atoms.join(', ')})`);
+    const holders = new Map<number, { bead: number; weight: number }[]>();
+    best.beads.forEach((b, i) => proposedAtoms(b).forEach(({ index, weight }) => holders.set(index, [...(holders.get(index) ?? []), { bead: i, weight }])));
+    const wholeIn = (a: number) => { const h = holders.get(a) ?? []; return h.length === 1 && h[0].weight === 1 ? h[0].bead : -1; };
+    for (const g of groups) if (wholeIn(g.atoms[0]) < 0 || g.atoms.some((a) => wholeIn(a) !== wholeIn(g.atoms[0]))) tally.problems.push(`${name}: ${g.name} split (atoms ${g.atoms.join(', ')})`);
     // Symmetry against RDKit's automorphism orbits; with shared atoms each atom's place (bead
     // compositions and its own weights) must agree across its orbit.
     if (asymmetricClasses(best.beads.map((b) => b.atoms), orbitOf, best.beads.map((b) => b.weights)).length) tally.problems.push(`${name}: not symmetric`);
